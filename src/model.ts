@@ -1,0 +1,96 @@
+/**
+ * The diagram model: plain data produced by the solver and consumed by renderers and reports.
+ * Everything here is JSON-serialisable. Potentials are in V on the SHE scale at the diagram's
+ * temperature; pH is on the molal activity scale; energies are kJ/mol unless stated.
+ */
+
+export type Phase = 's' | 'l' | 'g' | 'aq';
+
+/** Class of a region for colouring and verdicts. */
+export type RegionClass = 'element' | 'solid' | 'dissolved' | 'gas';
+
+/** A closed ring of [pH, E] vertices, not repeating the first vertex at the end. */
+export type Ring = [number, number][];
+/** A polygon: outer ring (counter-clockwise in pH→right, E→up) then holes (clockwise). */
+export type Polygon = Ring[];
+
+export interface RegionModel {
+  species: string;          // formula exactly as in the input
+  phase: Phase;
+  class: RegionClass;
+  name?: string;
+  polygons: Polygon[];
+  /** Area in pH·V. */
+  area: number;
+}
+
+export interface LineCoefficients {
+  /** 'E' lines: E = intercept + slope·pH (V vs SHE); 'pH' lines: pH = value. */
+  kind: 'E' | 'pH';
+  intercept?: number;
+  slope?: number;
+  value?: number;
+  /** Standard potential at T of the reaction (all activities 1), V vs SHE; absent for no-electron lines. */
+  E0?: number;
+  /** log10 K at T for no-electron lines. */
+  logK?: number;
+  /** Electrons n and protons m in the reduction direction as written. */
+  n: number;
+  m: number;
+}
+
+export interface BoundaryModel {
+  between: [string, string];
+  /** Ligand species that take part in this segment's reaction. */
+  ligandSpecies: string[];
+  reaction: string;
+  equation: string;
+  line: LineCoefficients;
+  /** Polyline along the boundary, [pH, E] pairs. */
+  points: [number, number][];
+}
+
+export interface TriplePoint {
+  species: string[];
+  pH: number;
+  E: number;
+}
+
+export interface WaterLine {
+  reaction: string;
+  equation: string;
+  line: LineCoefficients;
+  points: [number, number][];
+}
+
+export interface DiagramModel {
+  ephmap: string;
+  element: string;
+  temperature: { celsius: number; kelvin: number };
+  units: Record<string, string>;
+  domain: { pH: [number, number]; E: [number, number] };
+  activity: number;
+  ligands: Record<string, number>;
+  species: SpeciesSummary[];
+  regions: RegionModel[];
+  boundaries: BoundaryModel[];
+  triplePoints: TriplePoint[];
+  waterLines: { hydrogen: WaterLine; oxygen: WaterLine; pressures: { H2: number; O2: number } };
+  /** Ligand predominance underlay (ligand element → its own regions). */
+  ligandRegions?: Record<string, RegionModel[]>;
+  water?: Record<string, number | string>;
+  warnings: string[];
+  sources: string[];
+}
+
+export interface SpeciesSummary {
+  formula: string;
+  phase: Phase;
+  class: RegionClass;
+  role: 'main' | 'ligand';
+  name?: string;
+  activity?: number;
+  pressure?: number;
+  G: number;       // apparent G at T, kJ/mol
+  source?: string;
+}
