@@ -1,0 +1,14 @@
+export { ELEMENTS, isElement } from './elements.js';
+export type { ElementInfo } from './elements.js';
+export {
+  FormulaError,
+  parseFormula,
+  tokenizeFormula,
+  splitPhase,
+  formulaWarnings,
+  molarMass,
+  formatFormula,
+  chargeLabel,
+  sameFormula,
+} from './formula.js';
+export type { Formula, FormulaToken, FormulaTokenKind, Phase } from './formula.js';
