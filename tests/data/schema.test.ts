@@ -1,0 +1,170 @@
+/**
+ * Every species/*.json validates against schema/species.schema.json (checked by a small validator of
+ * the JSON Schema keywords our schema uses — it refuses any other keyword, so it cannot silently pass),
+ * every formula parses, sources resolve, and the loader accepts the files.
+ */
+import { describe, it, expect } from 'vitest';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseFormula } from '../../src/chem/formula.js';
+import { validateSpeciesFile, LibraryError } from '../../src/data/library.js';
+
+type Schema = Record<string, unknown>;
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const schema = JSON.parse(readFileSync(join(root, 'schema/species.schema.json'), 'utf8')) as Schema;
+const speciesDir = join(root, 'species');
+const files = readdirSync(speciesDir).filter((f) => f.endsWith('.json')).sort();
+
+const ANNOTATIONS = new Set(['$schema', '$id', 'title', 'description', '$defs', 'examples']);
+
+/** Validates `value` against `s` (draft 2020-12 subset); returns error strings with JSON paths. */
+function validate(value: unknown, s: Schema | boolean, path: string, rootSchema: Schema): string[] {
+  if (s === true) return [];
+  if (s === false) return [`${path}: not allowed`];
+  const errs: string[] = [];
+  for (const k of Object.keys(s)) {
+    if (
+      !ANNOTATIONS.has(k) &&
+      !['type', 'required', 'properties', 'additionalProperties', 'propertyNames', 'minProperties', 'items',
+        'minItems', 'enum', 'pattern', 'minLength', '$ref', 'not', 'exclusiveMinimum'].includes(k)
+    ) {
+      throw new Error(`validator does not support keyword "${k}" (at ${path})`);
+    }
+  }
+  if (typeof s.$ref === 'string') {
+    const m = /^#\/\$defs\/(.+)$/.exec(s.$ref);
+    if (!m) throw new Error(`unsupported $ref ${s.$ref}`);
+    const target = (rootSchema.$defs as Record<string, Schema>)[m[1]!];
+    if (!target) return [`${path}: unresolved $ref ${s.$ref}`];
+    errs.push(...validate(value, target, path, rootSchema));
+  }
+  if (s.type !== undefined) {
+    const t = s.type as string;
+    const ok =
+      t === 'object' ? typeof value === 'object' && value !== null && !Array.isArray(value)
+      : t === 'array' ? Array.isArray(value)
+      : t === 'string' ? typeof value === 'string'
+      : t === 'number' ? typeof value === 'number' && Number.isFinite(value)
+      : t === 'integer' ? Number.isInteger(value)
+      : t === 'boolean' ? typeof value === 'boolean'
+      : (() => { throw new Error(`unsupported type ${t}`); })();
+    if (!ok) return [...errs, `${path}: expected ${t}`];
+  }
+  if (s.enum !== undefined && !(s.enum as unknown[]).includes(value)) errs.push(`${path}: not one of ${JSON.stringify(s.enum)}`);
+  if (typeof value === 'string') {
+    if (typeof s.minLength === 'number' && value.length < s.minLength) errs.push(`${path}: shorter than ${s.minLength}`);
+    if (typeof s.pattern === 'string' && !new RegExp(s.pattern, 'u').test(value)) errs.push(`${path}: does not match ${s.pattern}`);
+  }
+  if (typeof value === 'number' && typeof s.exclusiveMinimum === 'number' && !(value > s.exclusiveMinimum)) {
+    errs.push(`${path}: must be > ${s.exclusiveMinimum}`);
+  }
+  if (s.not !== undefined && validate(value, s.not as Schema, path, rootSchema).length === 0) errs.push(`${path}: matches a forbidden form`);
+  if (Array.isArray(value)) {
+    if (typeof s.minItems === 'number' && value.length < s.minItems) errs.push(`${path}: fewer than ${s.minItems} items`);
+    if (s.items !== undefined) value.forEach((v, i) => errs.push(...validate(v, s.items as Schema, `${path}[${i}]`, rootSchema)));
+  }
+  if (typeof value === 'object' && value !== null && !Array.isArray(value)) {
+    const o = value as Record<string, unknown>;
+    const props = (s.properties ?? {}) as Record<string, Schema>;
+    for (const r of (s.required ?? []) as string[]) if (!(r in o)) errs.push(`${path}: missing required "${r}"`);
+    if (typeof s.minProperties === 'number' && Object.keys(o).length < s.minProperties) errs.push(`${path}: fewer than ${s.minProperties} properties`);
+    for (const [k, v] of Object.entries(o)) {
+      if (s.propertyNames !== undefined) errs.push(...validate(k, s.propertyNames as Schema, `${path}{${k}}`, rootSchema));
+      if (k in props) errs.push(...validate(v, props[k]!, `${path}.${k}`, rootSchema));
+      else if (s.additionalProperties !== undefined) errs.push(...validate(v, s.additionalProperties as Schema, `${path}.${k}`, rootSchema));
+    }
+  }
+  return errs;
+}
+
+describe('the schema itself', () => {
+  it('is draft 2020-12 and strict', () => {
+    expect(schema.$schema).toBe('https://json-schema.org/draft/2020-12/schema');
+    expect(schema.additionalProperties).toBe(false);
+    const defs = schema.$defs as Record<string, Schema>;
+    expect(defs.species!.additionalProperties).toBe(false);
+    expect(defs.alternative!.additionalProperties).toBe(false);
+  });
+
+  it('rejects malformed entries (the validator can fail)', () => {
+    const good = {
+      element: 'Fe',
+      sources: { NBS82: 'citation' },
+      species: [{ formula: 'Fe+2', phase: 'aq', name: 'iron(II) ion', dfG: -78.9, source: 'NBS82' }],
+    };
+    expect(validate(good, schema, '$', schema)).toEqual([]);
+    const bad = (patch: Record<string, unknown>) =>
+      validate({ ...good, species: [{ ...good.species[0], ...patch }] }, schema, '$', schema);
+    expect(bad({ dfG: '−78.9' })).not.toEqual([]);
+    expect(bad({ phase: 'solid' })).not.toEqual([]);
+    expect(bad({ formula: 'Fe+2(aq)' })).not.toEqual([]);
+    expect(bad({ formula: 'Fe 2+' })).not.toEqual([]);
+    expect(bad({ dG: 1 })).not.toEqual([]);
+    expect(bad({ uncertainty: { dfG: -1 } })).not.toEqual([]);
+    expect(bad({ alternatives: [{ id: 'X', dfG: 1 }] })).not.toEqual([]);
+    expect(validate({ ...good, extra: 1 }, schema, '$', schema)).not.toEqual([]);
+  });
+});
+
+describe.each(files)('species/%s', (file) => {
+  const data = JSON.parse(readFileSync(join(speciesDir, file), 'utf8')) as {
+    $schema?: string;
+    sources: Record<string, string>;
+    species: { formula: string; phase: string; source: string; sources?: Record<string, string>; alternatives?: { source: string; sources?: Record<string, string> }[] }[];
+  };
+
+  it('validates against the schema', () => {
+    expect(validate(data, schema, '$', schema)).toEqual([]);
+  });
+
+  it('points editors at the schema', () => {
+    expect(data.$schema).toBe('../schema/species.schema.json');
+  });
+
+  it('has formulas that parse, and charged species only in solution', () => {
+    for (const sp of data.species) {
+      const f = parseFormula(sp.formula);
+      if (f.charge !== 0) expect(sp.phase, sp.formula).toBe('aq');
+    }
+  });
+
+  it('names only sources of its own map', () => {
+    const keys = Object.keys(data.sources);
+    for (const sp of data.species) {
+      for (const entry of [sp, ...(sp.alternatives ?? [])]) {
+        expect(keys, sp.formula).toContain(entry.source);
+        for (const k of Object.values(entry.sources ?? {})) expect(keys, sp.formula).toContain(k);
+      }
+    }
+  });
+
+  it('is accepted by the loader', () => {
+    expect(validateSpeciesFile(file, data).length).toBe(data.species.length);
+  });
+});
+
+describe('loader validation errors name the file and the field', () => {
+  const base = {
+    element: 'Fe',
+    sources: { NBS82: 'citation' },
+    species: [{ formula: 'Fe+2', phase: 'aq', name: 'iron(II) ion', dfG: -78.9, source: 'NBS82' }],
+  };
+  const withSpecies = (patch: Record<string, unknown>) => ({ ...base, species: [{ ...base.species[0], ...patch }] });
+  const cases: [string, unknown, RegExp][] = [
+    ['missing dfG', withSpecies({ dfG: undefined }), /x\.json.*species\[0\] \(Fe\+2\)\.dfG/],
+    ['unknown source key', withSpecies({ source: 'CRC' }), /x\.json.*\.source.*"CRC"/],
+    ['bad formula', withSpecies({ formula: 'Fe2+x' }), /x\.json.*\.formula/],
+    ['phase tag in formula', withSpecies({ formula: 'Fe+2(aq)' }), /x\.json.*\.formula.*phase/],
+    ['charged solid', withSpecies({ phase: 's' }), /x\.json.*\.phase/],
+    ['unknown field', withSpecies({ dG: 3 }), /x\.json.*\.dG.*unknown field/],
+    ['alternative without source', withSpecies({ alternatives: [{ id: 'A', dfG: 1 }] }), /alternatives\[0\]\.source/],
+    ['empty sources', { ...base, sources: {} }, /x\.json: sources/],
+  ];
+  for (const [label, data, re] of cases) {
+    it(label, () => {
+      expect(() => validateSpeciesFile('x.json', data)).toThrow(LibraryError);
+      expect(() => validateSpeciesFile('x.json', data)).toThrow(re);
+    });
+  }
+});
