@@ -90,6 +90,10 @@ export interface SpeciesSummary {
   role: 'main' | 'ligand';
   name?: string;
   activity?: number;
+  /** Molality (mol/kg) where a concentration was given; activity = γ·molality. */
+  molality?: number;
+  /** log10 γ applied. */
+  logGamma?: number;
   pressure?: number;
   G: number;       // apparent G at T, kJ/mol
   source?: string;

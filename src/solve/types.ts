@@ -19,6 +19,8 @@ export interface SolverSpecies {
   activity?: number;
   /** log10 γ applied (aq), for reports. */
   logGamma?: number;
+  /** Molality (mol/kg) where the amount was given as a concentration. */
+  molality?: number;
   source?: string;
 }
 

@@ -1,0 +1,119 @@
+/**
+ * `npm run bench`: speed and memory figures, measured in one run (not a test; nothing here fails).
+ *
+ * Prints:
+ *   file-to-JSON ms: T                  — demo iron diagram, system file → diagram model JSON, in-process
+ *   grid throughput: N points×species/s  — grid minimum-Gibbs map
+ *   draw/node-startup ratio: R          — wall time of `ephmap draw` (iron, SVG) over bare `node -e 0`; target ≤ 3
+ *   solver/bare-loop ratio: R           — grid solver throughput over a bare typed-array min-of-planes loop; target ≥ 0.5
+ *   Cu-S 500x500 ms: T                  — copper–sulfur map with ligand recursion on a 500×500 grid; target ≤ 200
+ *   peak RSS MB: M                      — a 1000×1000 grid map in a fresh process; target ≤ 150
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { computeFile, compute } from '../pipeline.js';
+import { stableJson } from '../report/json.js';
+import { gridMap } from '../solve/grid.js';
+import { readSpec } from '../system/spec.js';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const cli = join(here, '..', 'cli', 'main.js');
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+function timeIt(fn: () => void, reps: number): number {
+  const t: number[] = [];
+  for (let k = 0; k < reps; k++) {
+    const t0 = performance.now();
+    fn();
+    t.push(performance.now() - t0);
+  }
+  return median(t);
+}
+
+/** The bare reference: min over N planes at every node, typed arrays, nothing else. */
+function bareLoop(g: Float64Array, p: Float64Array, e: Float64Array, nx: number, ny: number, out: Uint16Array): void {
+  const N = g.length;
+  for (let j = 0; j < ny; j++) {
+    const E = -2 + (4 * j) / (ny - 1);
+    for (let i = 0; i < nx; i++) {
+      const pH = (14 * i) / (nx - 1);
+      let best = Infinity;
+      let arg = 0;
+      for (let k = 0; k < N; k++) {
+        const v = g[k] + p[k] * pH + e[k] * E;
+        if (v < best) {
+          best = v;
+          arg = k;
+        }
+      }
+      out[j * nx + i] = arg;
+    }
+  }
+}
+
+async function main(): Promise<void> {
+  if (process.argv[2] === '--rss-child') {
+    const spec = readSpec({ element: 'Cu', ligands: { S: 1e-3 } }, 'bench');
+    const c = compute(spec);
+    gridMap(c.built.input, 1000, 1000);
+    process.stdout.write(String(process.resourceUsage().maxRSS / 1024));
+    return;
+  }
+  const dir = mkdtempSync(join(tmpdir(), 'ephmap-bench-'));
+  try {
+    const fe = join(dir, 'iron.yaml');
+    writeFileSync(fe, 'element: Fe\nactivity: 1.0e-6\nE: [-1.2, 1.6]\n');
+    // 1. file → JSON.
+    computeFile(fe);
+    const tJson = timeIt(() => stableJson(computeFile(fe).model), 20);
+    console.log(`file-to-JSON ms: ${tJson.toFixed(2)}`);
+
+    // 2. grid throughput and the bare loop on the same grid.
+    const c = computeFile(fe);
+    const input = c.built.input;
+    const n = 1000;
+    const N = input.species.length;
+    const tGrid = timeIt(() => gridMap(input, n, n), 5);
+    const rate = (n * n * N) / (tGrid / 1000);
+    console.log(`grid throughput: ${rate.toExponential(3)} points×species/s (${N} species, ${n}×${n})`);
+    const g = new Float64Array(N).map((_, k) => k * 1000);
+    const p = new Float64Array(N).map((_, k) => -k * 5708);
+    const e = new Float64Array(N).map((_, k) => -k * 96485);
+    const out = new Uint16Array(n * n);
+    const tBare = timeIt(() => bareLoop(g, p, e, n, n, out), 5);
+
+    // 3. CLI draw vs bare node start-up.
+    const svg = join(dir, 'iron.svg');
+    const tNode = timeIt(() => execFileSync(process.execPath, ['-e', '0']), 7);
+    const tDraw = timeIt(() => execFileSync(process.execPath, [cli, 'draw', fe, '-o', svg]), 7);
+    console.log(`draw/node-startup ratio: ${(tDraw / tNode).toFixed(2)}`);
+    console.log(`solver/bare-loop ratio: ${(tBare / tGrid).toFixed(2)}`);
+
+    // 4. Cu–S with ligand recursion, 500×500.
+    const cus = compute(readSpec({ element: 'Cu', ligands: { S: 1e-3 } }, 'bench Cu-S'));
+    gridMap(cus.built.input, 500, 500);
+    const tCuS = timeIt(() => {
+      const cc = compute(readSpec({ element: 'Cu', ligands: { S: 1e-3 } }, 'bench Cu-S'));
+      gridMap(cc.built.input, 500, 500);
+    }, 7);
+    console.log(`Cu-S 500x500 ms: ${tCuS.toFixed(1)}`);
+
+    // 5. Peak RSS of a 1000×1000 map in a fresh process.
+    const r = spawnSync(process.execPath, [fileURLToPath(import.meta.url), '--rss-child'], { encoding: 'utf8' });
+    console.log(`peak RSS MB: ${Number(r.stdout).toFixed(1)}`);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+main().catch((e) => {
+  console.error(`bench failed: ${(e as Error).message}`);
+  process.exitCode = 1;
+});

@@ -1,0 +1,105 @@
+/**
+ * Verbs draw, probe, lines (issue 2 core) and demo.
+ */
+import { extname } from 'node:path';
+import type { Command } from 'commander';
+import { compute, computeFile, loadSpec } from '../pipeline.js';
+import { stableJson } from '../report/json.js';
+import { activityRows, linesText, lineRows } from '../report/lines.js';
+import { probe } from '../report/probe.js';
+import { InputError } from '../system/errors.js';
+import { writeAtomic } from './write.js';
+import { figureInput } from '../figure/compose.js';
+import { type FigureOverrides, figureSettings } from '../figure/options.js';
+import { type FigureFormat, renderFigure } from '../figure/output.js';
+
+const DRAW_FORMATS = ['svg', 'pdf', 'png', 'json'];
+
+interface DrawOptions extends FigureOverrides {
+  output: string;
+}
+
+function num(v: string, option: string, what: string): number {
+  const x = Number(v);
+  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError('command line', option, what, JSON.stringify(v));
+  return x;
+}
+
+function warn(ws: string[]): void {
+  for (const w of ws) process.stderr.write(`warning: ${w}\n`);
+}
+
+export function registerCore(program: Command): void {
+  program
+    .command('draw')
+    .description('compute the diagram of a system file and write it; format by extension: .svg, .pdf, .png, .json (diagram model)')
+    .argument('<file>', 'system file (.json, .yaml, .yml)')
+    .requiredOption('-o, --output <path>', 'output file (.svg, .pdf, .png or .json)')
+    .option('--width <length>', 'figure width: mm, or e.g. "170mm", "800px"')
+    .option('--height <length>', 'figure height')
+    .option('--style <style>', 'color, gray or lines')
+    .option('--font <family>', 'font family (SVG/PNG)')
+    .option('--font-size <pt>', 'base font size in pt')
+    .option('--title <text>', 'figure title')
+    .option('--no-caption', 'leave out the caption block')
+    .option('--grid', 'draw a light grid')
+    .action(async (file: string, opts: DrawOptions) => {
+      const ext = extname(opts.output).toLowerCase().slice(1);
+      if (!DRAW_FORMATS.includes(ext)) {
+        throw new InputError('command line', '--output', `a file name ending in ${DRAW_FORMATS.map((x) => `.${x}`).join(', ')}`, JSON.stringify(opts.output));
+      }
+      const spec = loadSpec(file);
+      const fig = figureSettings(spec, opts);
+      const c = compute(spec);
+      warn(c.model.warnings);
+      const data = ext === 'json' ? stableJson(c.model) : await renderFigure(figureInput(c, fig), ext as FigureFormat);
+      writeAtomic(opts.output, data);
+      process.stdout.write(`wrote ${opts.output}\n`);
+    });
+
+  program
+    .command('probe')
+    .description('the predominant species at one point, evaluated exactly')
+    .argument('<file>', 'system file')
+    .requiredOption('--ph <pH>', 'pH at the point')
+    .requiredOption('--potential <volts>', 'potential at the point, V vs SHE')
+    .option('--json', 'machine-readable output')
+    .action((file: string, opts: { ph: string; potential: string; json?: boolean }) => {
+      const pH = num(opts.ph, '--ph', 'a pH value (number)');
+      const E = num(opts.potential, '--potential', 'a potential in V (number)');
+      const spec = loadSpec(file);
+      // Evaluate on a domain that contains the point.
+      spec.pH = [Math.min(spec.pH[0], pH - 0.5), Math.max(spec.pH[1], pH + 0.5)];
+      spec.E = [Math.min(spec.E[0], E - 0.1), Math.max(spec.E[1], E + 0.1)];
+      const c = compute(spec);
+      warn(c.model.warnings);
+      const r = probe(c, pH, E);
+      if (opts.json) process.stdout.write(stableJson(r));
+      else process.stdout.write(probeText(r));
+    });
+
+  program
+    .command('lines')
+    .description('every boundary reaction and line equation')
+    .argument('<file>', 'system file')
+    .option('--json', 'machine-readable output')
+    .action((file: string, opts: { json?: boolean }) => {
+      const c = computeFile(file);
+      warn(c.model.warnings);
+      if (opts.json) {
+        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, lines: lineRows(c.model), waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water }));
+      } else process.stdout.write(linesText(c.model));
+    });
+}
+
+function probeText(r: ReturnType<typeof probe>): string {
+  const f = (v: number | null, d: number, unit: string) => (v === null ? 'none in range' : `${v >= 0 ? '+' : ''}${v.toFixed(d)} ${unit}`);
+  const lines = [
+    `point: pH ${r.pH}, E ${r.E} V vs SHE, ${r.temperature.celsius} °C`,
+    `predominant: ${r.predominant} (${r.class})`,
+    `runner-up:   ${r.runnerUp ?? 'none'}  (margin ${r.margin.kJPerMol.toFixed(3)} kJ/mol of element${r.margin.potentialV !== null ? `, ${(r.margin.potentialV * 1000).toFixed(1)} mV` : ''})`,
+    `to cross a boundary: E ${f(r.shifts.up, 4, 'V')} / ${f(r.shifts.down, 4, 'V')}; pH ${f(r.shifts.acid, 3, '')} / ${f(r.shifts.alkaline, 3, '')}`,
+  ];
+  if (r.nearestBoundary) lines.push(`nearest boundary: ${r.nearestBoundary.between.join(' / ')}: ${r.nearestBoundary.reaction}  [${r.nearestBoundary.equation}]`);
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,67 @@
+/**
+ * Compose the renderer's FigureInput from a computed diagram: caption lines, activity families
+ * (the same system re-solved at other activities), and the neutral-pH line at T.
+ */
+import type { Computed } from '../pipeline.js';
+import { compute } from '../pipeline.js';
+import type { FigureInput } from '../render/scene.js';
+import type { FigureSettings } from './options.js';
+
+const SUP: Record<string, string> = { '-': '\u207b', '0': '\u2070', '1': '\u00b9', '2': '\u00b2', '3': '\u00b3', '4': '\u2074', '5': '\u2075', '6': '\u2076', '7': '\u2077', '8': '\u2078', '9': '\u2079' };
+
+/** 1e-6 → "10⁻⁶"; other values as three significant digits. */
+export function powerOfTen(a: number): string {
+  const e = Math.log10(a);
+  if (Math.abs(e - Math.round(e)) < 1e-9) {
+    const k = Math.round(e);
+    return k === 0 ? '1' : `10${[...String(k)].map((ch) => SUP[ch]).join('')}`;
+  }
+  return a.toPrecision(3);
+}
+
+const sup = powerOfTen;
+
+export function captionLines(c: Computed): string[] {
+  const m = c.model;
+  const corrected = m.species.some((x) => x.role === 'main' && x.molality !== undefined);
+  const lig = Object.entries(m.ligands).map(([k, v]) => `${k} ${sup(v)}`);
+  const lines = [
+    `${m.element}–H\u2082O${lig.length ? `–${Object.keys(m.ligands).join('–')}` : ''} at ${fmtT(m.temperature.celsius)} °C; dissolved ${m.element} ${corrected ? `${sup(m.activity)} mol/kg` : `activity ${sup(m.activity)}`}` +
+      (lig.length ? `; ligand totals ${lig.join(', ')}` : '') +
+      `; p(H\u2082) = ${m.waterLines.pressures.H2} bar, p(O\u2082) = ${m.waterLines.pressures.O2} bar.`,
+  ];
+  const w = m.water;
+  if (w) {
+    const bits: string[] = [];
+    if (Number(w.temperatureC) >= 100 || w.pressurePath === 'user') bits.push(`liquid water at ${Number(w.pressureMPa).toPrecision(3)} MPa${w.pressurePath === 'saturation' ? ' (saturation pressure)' : ''}`);
+    if (Number(w.ionicStrength) > 0) bits.push(`ionic strength ${Number(w.ionicStrength).toPrecision(3)} mol/kg (${w.activityModel})`);
+    if (m.temperature.celsius !== 25) bits.push(`neutral pH ${Number(w.neutralPH).toFixed(2)}`);
+    if (bits.length) lines.push(`${bits.join('; ')}.`.replace(/^./, (ch) => ch.toUpperCase()));
+  }
+  const short = m.sources.map(shortSource).filter((s, k, a) => a.indexOf(s) === k);
+  if (short.length) lines.push(`Data: ${short.join('; ')}.`);
+  return lines;
+}
+
+function fmtT(t: number): string {
+  return Number.isInteger(t) ? String(t) : t.toFixed(1);
+}
+
+/** "Wagman D.D., Evans W.H., … (1982) The NBS tables …" → "Wagman et al. 1982". */
+export function shortSource(s: string): string {
+  const year = /\((\d{4})\)/.exec(s)?.[1] ?? /\b(19|20)\d{2}\b/.exec(s)?.[0];
+  const first = s.split(/[ ,]/)[0];
+  if (!first) return s.slice(0, 40);
+  const many = (s.match(/,/g) ?? []).length > 2 && /[A-Z]\.,/.test(s);
+  return `${first}${many ? ' et al.' : ''}${year ? ` ${year}` : ''}`;
+}
+
+export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
+  const input: FigureInput = { model: c.model, options: fig.options };
+  if (fig.options.show.caption) input.caption = captionLines(c);
+  if (fig.options.show.neutral && c.model.water) input.neutralPH = Number(c.model.water.neutralPH);
+  if (fig.families.length) {
+    input.families = fig.families.map((a) => ({ activity: a, boundaries: compute({ ...c.spec, activity: a }).model.boundaries }));
+  }
+  return input;
+}

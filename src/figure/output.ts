@@ -1,0 +1,21 @@
+/**
+ * Render a composed figure to bytes by output format. PDF and PNG libraries load lazily, only
+ * when asked for, so SVG and JSON runs start fast.
+ */
+import { mmToPx } from '../render/options.js';
+import { buildScene, type FigureInput } from '../render/scene.js';
+import { sceneToSvg } from '../render/svg.js';
+
+export type FigureFormat = 'svg' | 'pdf' | 'png';
+
+export async function renderFigure(input: FigureInput, format: FigureFormat): Promise<string | Uint8Array> {
+  const scene = buildScene(input);
+  if (format === 'svg') return sceneToSvg(scene);
+  if (format === 'pdf') {
+    const { sceneToPdf } = await import('../render/pdf.js');
+    return sceneToPdf(scene);
+  }
+  const { svgToPng } = await import('../render/png.js');
+  // 300 dpi print resolution.
+  return svgToPng(sceneToSvg(scene), Math.round(mmToPx(input.options.width, 300)));
+}

@@ -1,0 +1,58 @@
+/**
+ * The one-way pipeline (DESIGN §1): file → spec → species at T → solution → diagram model.
+ */
+import { buildModel } from './diagram/build.js';
+import type { DiagramModel } from './model.js';
+import { solve, type Solution } from './solve/solve.js';
+import { type BuiltSystem, buildSystem } from './system/build.js';
+import { readSystemFile } from './system/read.js';
+import { readSpec, type SystemSpec } from './system/spec.js';
+
+export interface Computed {
+  spec: SystemSpec;
+  built: BuiltSystem;
+  solution: Solution;
+  model: DiagramModel;
+}
+
+export function loadSpec(path: string): SystemSpec {
+  return readSpec(readSystemFile(path), path);
+}
+
+export function compute(spec: SystemSpec): Computed {
+  const built = buildSystem(spec);
+  const solution = solve(built.input);
+  const model = buildModel(built.input, solution, {
+    activity: spec.activity,
+    ligands: spec.ligands,
+    sources: built.sources,
+    warnings: built.warnings,
+    water: waterSummary(built),
+  });
+  return { spec, built, solution, model };
+}
+
+export function computeFile(path: string): Computed {
+  return compute(loadSpec(path));
+}
+
+/** Water properties and solution settings used, for the model's `water` key. */
+export function waterSummary(built: BuiltSystem): Record<string, number | string> {
+  const s = built.solution;
+  const w = s.water;
+  return {
+    temperatureC: w.celsius,
+    pressureMPa: w.pressureMPa,
+    saturationPressureMPa: w.saturationPressureMPa,
+    pressurePath: w.path,
+    densityKgM3: w.density,
+    permittivity: w.permittivity,
+    pKw: w.pKw,
+    neutralPH: w.neutralPH,
+    debyeHuckelA: s.A,
+    debyeHuckelB: s.B,
+    ionicStrength: s.settings.ionicStrength,
+    ionicStrengthFrom: s.settings.ionicStrengthFrom,
+    activityModel: s.settings.model,
+  };
+}

@@ -1,0 +1,102 @@
+/**
+ * The `lines` report: every boundary's balanced reaction and its line equation at T.
+ */
+import type { BoundaryModel, DiagramModel } from '../model.js';
+import { table } from './table.js';
+
+export interface LineRow {
+  between: [string, string];
+  ligandSpecies: string[];
+  reaction: string;
+  equation: string;
+  line: BoundaryModel['line'];
+  /** Extent of the segment(s) in the diagram: pH and E ranges. */
+  pHRange: [number, number];
+  ERange: [number, number];
+}
+
+/** One row per distinct reaction; runs of the same reaction are combined. */
+export function lineRows(model: DiagramModel): LineRow[] {
+  const rows = new Map<string, LineRow>();
+  for (const b of model.boundaries) {
+    const key = `${b.between.join('|')}|${b.reaction}`;
+    const xs = b.points.map((p) => p[0]);
+    const ys = b.points.map((p) => p[1]);
+    const r = rows.get(key);
+    if (r) {
+      r.pHRange = [Math.min(r.pHRange[0], ...xs), Math.max(r.pHRange[1], ...xs)];
+      r.ERange = [Math.min(r.ERange[0], ...ys), Math.max(r.ERange[1], ...ys)];
+    } else {
+      rows.set(key, {
+        between: b.between,
+        ligandSpecies: b.ligandSpecies,
+        reaction: b.reaction,
+        equation: b.equation,
+        line: b.line,
+        pHRange: [Math.min(...xs), Math.max(...xs)],
+        ERange: [Math.min(...ys), Math.max(...ys)],
+      });
+    }
+  }
+  return [...rows.values()];
+}
+
+export function linesText(model: DiagramModel): string {
+  const rows = lineRows(model);
+  const corrected = model.species.some((x) => x.role === 'main' && x.molality !== undefined);
+  const head = `${model.element} at ${model.temperature.celsius} °C; dissolved ${model.element} ${corrected ? 'molality' : 'activity'} ${fmtA(model.activity)}${corrected ? ' mol/kg (activities below)' : ''}` +
+    (Object.keys(model.ligands).length ? `; ligands ${Object.entries(model.ligands).map(([k, v]) => `${k} ${fmtA(v)}`).join(', ')}` : '') +
+    '\nPotentials in V vs SHE at the diagram temperature.';
+  const body = table(
+    ['boundary', 'reaction', 'E°/V or log K', 'line', 'pH range'],
+    rows.map((r) => [
+      r.between.join(' / '),
+      r.reaction,
+      r.line.kind === 'E' ? `E° = ${r.line.E0!.toFixed(4)}` : `log K = ${r.line.logK!.toFixed(3)}`,
+      r.equation,
+      `${r.pHRange[0].toFixed(2)}–${r.pHRange[1].toFixed(2)}`,
+    ]),
+  );
+  const acts = activityRows(model);
+  const actText = acts.length
+    ? `\nActivities used (a = γ·m where a concentration m was given${model.water ? `; ionic strength ${fmtNum(Number(model.water.ionicStrength))} mol/kg, ${model.water.activityModel} model at ${model.temperature.celsius} °C` : ''}):\n` +
+      table(
+        ['species', 'm / (mol/kg)', 'log γ', 'γ', 'activity a'],
+        acts.map((r) => [r.formula, r.molality === undefined ? 'as given' : fmtNum(r.molality), r.logGamma === undefined ? '0' : r.logGamma.toFixed(4), r.logGamma === undefined ? '1' : (10 ** r.logGamma).toFixed(4), fmtNum(r.activity)]),
+        [false, true, true, true, true],
+      ) + '\n'
+    : '';
+  const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${w.reaction}: ${w.equation}`).join('\n');
+  return `${head}\n\n${body}\n${actText}\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n`;
+}
+
+function fmtA(a: number): string {
+  const e = Math.log10(a);
+  return Number.isInteger(Math.round(e * 1e9) / 1e9) ? `1e${Math.round(e)}` : String(a);
+}
+
+export interface ActivityRow {
+  formula: string;
+  role: 'main' | 'ligand';
+  molality?: number;
+  logGamma?: number;
+  activity: number;
+}
+
+/** Dissolved species with the activities actually used (and the γ correction where applied). */
+export function activityRows(model: DiagramModel): ActivityRow[] {
+  return model.species
+    .filter((s) => s.phase === 'aq' && s.activity !== undefined)
+    .map((s) => {
+      const r: ActivityRow = { formula: s.formula, role: s.role, activity: s.activity! };
+      if (s.molality !== undefined) r.molality = s.molality;
+      if (s.logGamma !== undefined) r.logGamma = s.logGamma;
+      return r;
+    });
+}
+
+function fmtNum(v: number): string {
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  return a >= 1e-3 && a < 1e4 ? String(Number(v.toPrecision(4))) : v.toExponential(3);
+}

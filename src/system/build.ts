@@ -1,0 +1,251 @@
+/**
+ * From a validated SystemSpec to the solver's input: resolve species (inline, by library name or
+ * the library's set for the element and ligands), check their composition, carry their data to T
+ * and attach the activities used.
+ */
+import { type Formula, parseFormula, splitPhase } from '../chem/formula.js';
+import { elementEntropy } from '../data/element-entropies.js';
+import { type LibrarySpecies, findSpecies, loadLibrary, pickAlternative, speciesFor } from '../data/library.js';
+import type { Phase } from '../model.js';
+import type { LigandInput, SolverInput, SolverSpecies } from '../solve/types.js';
+import { KELVIN } from '../thermo/constants.js';
+import { apparentG, entropyFromFormation, type ThermoData } from '../thermo/gibbs.js';
+import { InputError } from './errors.js';
+import type { SystemSpec } from './spec.js';
+import { type Amount, molality, type SolutionAtT, solutionAt } from './solution.js';
+
+/** A species resolved to data, before activities. */
+export interface ResolvedSpecies extends ThermoData {
+  formula: string;
+  phase: Phase;
+  name?: string;
+  source?: string;
+  recalled?: boolean;
+  activity?: number;
+  concentration?: Amount;
+  pressure?: number;
+  f: Formula;
+  field: string;
+  /** Taken from the library's set without the user naming it. */
+  implicit?: boolean;
+}
+
+export interface BuiltSystem {
+  input: SolverInput;
+  /** Sources cited by the species used, deduplicated. */
+  sources: string[];
+  warnings: string[];
+  /** Role of each solver species for reports: ligand element or 'main'. */
+  water: { H2O: ResolvedSpecies; H2: ResolvedSpecies; O2: ResolvedSpecies };
+  /** Water properties, ionic strength and activity model at T. */
+  solution: SolutionAtT;
+}
+
+const WATER_FORMULAS: Record<string, 'H2O' | 'H2' | 'O2'> = { 'H2O|l': 'H2O', 'H2|g': 'H2', 'O2|g': 'O2' };
+
+function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
+  return {
+    formula: s.formula,
+    phase: s.phase,
+    name: s.name,
+    dfG: s.dfG,
+    dfH: s.dfH,
+    S: s.S,
+    Cp: s.Cp,
+    source: s.sourceText,
+    recalled: s.recalled,
+    f: { text: s.formula, elements: s.elements, charge: s.charge },
+    field,
+  };
+}
+
+export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; water: BuiltSystem['water'] } {
+  const lib = loadLibrary();
+  const ligandEls = Object.keys(spec.ligands);
+  let list: ResolvedSpecies[];
+  const water: Partial<BuiltSystem['water']> = {};
+  if (spec.species) {
+    list = [];
+    for (const s of spec.species) {
+      let r: ResolvedSpecies;
+      if (s.fromLibrary) {
+        const hit = findSpecies(lib, s.fromLibrary);
+        if (!hit) throw new InputError(spec.file, s.field, 'a species of the built-in library (formula or name) or an object with formula, phase and dfG', JSON.stringify(s.fromLibrary));
+        r = fromLibrary(hit, s.field);
+        if (s.activity !== undefined) r.activity = s.activity;
+        if (s.concentration !== undefined) r.concentration = s.concentration;
+        if (s.pressure !== undefined) r.pressure = s.pressure;
+      } else {
+        r = { ...s, dfG: s.dfG!, f: parseFormula(s.formula) };
+      }
+      const wkey = WATER_FORMULAS[`${r.f.text}|${r.phase}`];
+      if (wkey) water[wkey] = r;
+      else list.push(r);
+    }
+  } else {
+    const metaAll = spec.metastable === true;
+    list = speciesFor(lib, spec.element, ligandEls, { metastable: metaAll }).map((s) => ({ ...fromLibrary(s, `library ${s.file}: ${s.formula}`), implicit: true }));
+    if (Array.isArray(spec.metastable)) {
+      for (const m of spec.metastable) {
+        const hit = findSpecies(lib, m);
+        if (!hit) throw new InputError(spec.file, 'metastable', 'formulas or names of metastable library species', JSON.stringify(m));
+        if (!list.some((x) => x.formula === hit.formula && x.phase === hit.phase)) list.push(fromLibrary(hit, `library ${hit.file}: ${hit.formula}`));
+      }
+    }
+  }
+  for (const key of ['H2O', 'H2', 'O2'] as const) {
+    if (!water[key]) {
+      const hit = findSpecies(lib, key === 'H2O' ? 'H2O(l)' : `${key}(g)`);
+      if (!hit) throw new Error(`built-in water data lack ${key}`);
+      water[key] = fromLibrary(hit, `library: ${key}`);
+    }
+  }
+  // Exclusions match a formula with or without a phase tag, or a name.
+  for (const ex of spec.exclude) {
+    const { formula, phase } = splitPhase(ex);
+    const before = list.length;
+    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
+    if (list.length === before) throw new InputError(spec.file, 'exclude', 'formulas of species in the system', JSON.stringify(ex));
+  }
+  // Alternatives from other compilations.
+  for (const [formula, id] of Object.entries(spec.pick)) {
+    const k = list.findIndex((s) => s.formula === splitPhase(formula).formula);
+    if (k < 0) throw new InputError(spec.file, `pick.${formula}`, 'a formula of a species in the system', JSON.stringify(formula));
+    const hit = findSpecies(lib, formula);
+    const alt = hit ? pickAlternative(hit, id) : undefined;
+    if (!alt) {
+      const ids = hit?.alternatives?.map((a) => a.id).join(', ') || 'none';
+      throw new InputError(spec.file, `pick.${formula}`, `an alternative id of ${formula} (${ids})`, JSON.stringify(id));
+    }
+    list[k] = { ...fromLibrary(alt, list[k].field), activity: list[k].activity };
+  }
+  return { main: list, water: water as BuiltSystem['water'] };
+}
+
+/** Carry data to T; S° from ΔfH° where missing; error where neither is there. */
+function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: string[]): number {
+  if (Math.abs(spec.temperature - 25) > 1e-9) {
+    let S = s.S;
+    if (S === undefined) {
+      if (s.dfH === undefined) {
+        throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C`);
+      }
+      S = entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy);
+    }
+    if (s.Cp === undefined && spec.extrapolation === 'cp' && Math.abs(spec.temperature - 25) > 50) {
+      warnings.push(`${CP_WARN}${s.formula}`);
+    }
+    return apparentG({ ...s, S }, kelvin, spec.extrapolation);
+  }
+  return s.dfG;
+}
+
+export function buildSystem(spec: SystemSpec): BuiltSystem {
+  const warnings = [...spec.warnings];
+  const kelvin = spec.temperature + KELVIN;
+  const { main: resolved, water } = resolveSpecies(spec);
+  const sol = solutionAt(spec.file, spec.temperature, spec.pressure, spec.solution);
+  warnings.push(...sol.warnings);
+  const corrected = spec.solution.ionicStrength > 0 && spec.solution.model !== 'ideal';
+  /** Activity (and molality, log γ) of a dissolved species from the amount given for it. */
+  const dissolved = (a: Amount & { isDefault?: boolean }, z: number, asFormula: string) => {
+    if (a.kind === 'activity' && !(a.isDefault && corrected)) return { act: a.value, logGamma: 0, molality: undefined as number | undefined };
+    const m = a.kind === 'activity' ? a.value : molality(a, asFormula, sol.water.density);
+    const lg = sol.logGamma(z);
+    return { act: m * 10 ** lg, logGamma: lg, molality: m };
+  };
+  const ligandEls = Object.keys(spec.ligands);
+  const allowed = new Set([spec.element, ...ligandEls, 'H', 'O']);
+  const main: SolverSpecies[] = [];
+  const ligandSpecies = new Map<string, SolverSpecies[]>(ligandEls.map((L) => [L, []]));
+  const sources = new Set<string>();
+  for (const s of resolved) {
+    if (s.implicit && Math.abs(spec.temperature - 25) > 1e-9 && s.S === undefined && s.dfH === undefined) {
+      warnings.push(`${s.formula} (${s.phase}) left out at ${spec.temperature} °C: the library has no S° or ΔfH° for it`);
+      continue;
+    }
+    const els = Object.keys(s.f.elements);
+    const bad = els.find((e) => !allowed.has(e));
+    if (bad) {
+      throw new InputError(spec.file, `${s.field} (${s.formula})`, `only ${[...allowed].join(', ')} (add ${bad} under ligands to use it)`, `element ${bad}`);
+    }
+    const hasMain = (s.f.elements[spec.element] ?? 0) > 0;
+    const lig = [...ligandEls].reverse().find((L) => (s.f.elements[L] ?? 0) > 0);
+    if (!hasMain && !lig) {
+      throw new InputError(spec.file, `${s.field} (${s.formula})`, `a species containing ${spec.element}${ligandEls.length ? ` or a ligand (${ligandEls.join(', ')})` : ''}`);
+    }
+    const G = gAt(s, spec, kelvin, warnings);
+    let act: number | undefined;
+    let logA = 0;
+    let lg: number | undefined;
+    let mol: number | undefined;
+    if (s.phase === 'aq') {
+      const given: Amount & { isDefault?: boolean } =
+        s.activity !== undefined
+          ? { kind: 'activity', value: s.activity }
+          : s.concentration ?? (hasMain ? spec.amount : spec.ligandAmounts[lig!]);
+      const d = dissolved(given, s.f.charge, s.concentration ? s.formula : hasMain ? spec.element : lig!);
+      act = d.act;
+      lg = d.logGamma;
+      mol = d.molality;
+      logA = Math.log10(act);
+    } else if (s.phase === 'g') {
+      act = s.pressure ?? 1;
+      logA = Math.log10(act);
+    }
+    const sv: SolverSpecies = {
+      formula: s.formula,
+      phase: s.phase,
+      name: s.name,
+      elements: s.f.elements,
+      charge: s.f.charge,
+      G,
+      logActivity: logA,
+      activity: act,
+      source: s.source,
+    };
+    if (lg !== undefined && (lg !== 0 || mol !== undefined)) sv.logGamma = lg;
+    if (mol !== undefined) sv.molality = mol;
+    if (s.source) sources.add(s.source);
+    if (hasMain) main.push(sv);
+    else ligandSpecies.get(lig!)!.push(sv);
+  }
+  if (main.length === 0) throw new InputError(spec.file, 'species', `at least one species containing ${spec.element}`);
+  const ligands: LigandInput[] = ligandEls.map((L) => {
+    const sp = ligandSpecies.get(L)!;
+    if (sp.length === 0) throw new InputError(spec.file, `ligands.${L}`, `species of ${L} without ${spec.element} in the data (none found)`);
+    return { element: L, activity: spec.ligands[L], species: sp };
+  });
+  const wG = {
+    H2O: gAt(water.H2O, spec, kelvin, warnings),
+    H2: gAt(water.H2, spec, kelvin, warnings),
+    O2: gAt(water.O2, spec, kelvin, warnings),
+  };
+  for (const w of Object.values(water)) if (w.source) sources.add(w.source);
+  return {
+    input: {
+      element: spec.element,
+      kelvin,
+      species: main,
+      ligands,
+      water: wG,
+      pressures: { H2: spec.gases.H2, O2: spec.gases.O2 },
+      pH: spec.pH,
+      E: spec.E,
+    },
+    sources: [...sources].sort(),
+    warnings: collapseCpWarnings(warnings),
+    water,
+    solution: sol,
+  };
+}
+
+const CP_WARN = 'no Cp: ';
+
+/** One warning for all species used without Cp far from 25 °C. */
+function collapseCpWarnings(ws: string[]): string[] {
+  const cp = ws.filter((w) => w.startsWith(CP_WARN)).map((w) => w.slice(CP_WARN.length));
+  const rest = ws.filter((w) => !w.startsWith(CP_WARN));
+  if (cp.length) rest.push(`species without Cp° used more than 50 K from 25 °C (constant ΔH and ΔS for them): ${[...new Set(cp)].join(', ')}`);
+  return rest;
+}

@@ -1,0 +1,150 @@
+/**
+ * The aqueous solution at T: water properties (IAPWS), ionic strength (given, or from a background
+ * electrolyte), the activity-coefficient model, and how amounts given in the system file become
+ * activities: an activity is used as is; a concentration (mol/kg, or mg/L via the molar mass) is
+ * multiplied by γ(z) at the ionic strength. The top-level default threshold (10⁻⁶, when `activity`
+ * is not set) counts as a molality once an ionic strength is given, so that it is corrected too.
+ */
+import { molarMass, parseFormula } from '../chem/formula.js';
+import { KELVIN } from '../thermo/constants.js';
+import { activityModel, type ActivityModelName, debyeHuckelParameters } from '../thermo/activity.js';
+import { type WaterState, waterState } from '../thermo/water.js';
+import { InputError } from './errors.js';
+import { Fields } from './fields.js';
+
+/** An amount as written in a file: an activity (plain number) or a concentration with a unit. */
+export interface Amount {
+  kind: 'activity' | 'molality' | 'mg/L';
+  value: number;
+  /** For mg/L: the formula whose molar mass converts it (the element, "as Fe", or the species). */
+  as?: string;
+}
+
+export interface SolutionSettings {
+  model: ActivityModelName;
+  ionicStrength: number;
+  /** How the ionic strength was obtained, for reports. */
+  ionicStrengthFrom: string;
+  ionSize: number;
+}
+
+export interface SolutionAtT {
+  water: WaterState;
+  A: number;
+  B: number;
+  settings: SolutionSettings;
+  logGamma: (z: number) => number;
+  warnings: string[];
+}
+
+/** Salts for `background`, as ions (charge, count). Formula units; common practice. */
+const SALTS: Record<string, [number, number][]> = {
+  NaCl: [[1, 1], [-1, 1]],
+  KCl: [[1, 1], [-1, 1]],
+  NaNO3: [[1, 1], [-1, 1]],
+  KNO3: [[1, 1], [-1, 1]],
+  NaClO4: [[1, 1], [-1, 1]],
+  NH4Cl: [[1, 1], [-1, 1]],
+  NaHCO3: [[1, 1], [-1, 1]],
+  NaOH: [[1, 1], [-1, 1]],
+  KOH: [[1, 1], [-1, 1]],
+  Na2SO4: [[1, 2], [-2, 1]],
+  K2SO4: [[1, 2], [-2, 1]],
+  '(NH4)2SO4': [[1, 2], [-2, 1]],
+  Na2CO3: [[1, 2], [-2, 1]],
+  CaCl2: [[2, 1], [-1, 2]],
+  MgCl2: [[2, 1], [-1, 2]],
+  MgSO4: [[2, 1], [-2, 1]],
+  CuSO4: [[2, 1], [-2, 1]],
+  ZnSO4: [[2, 1], [-2, 1]],
+  NiSO4: [[2, 1], [-2, 1]],
+  ZnCl2: [[2, 1], [-1, 2]],
+  NiCl2: [[2, 1], [-1, 2]],
+};
+
+const AMOUNT_RE = /^\s*([0-9.]+(?:[eE][-+]?\d+)?)\s*(mol\/kg|mmol\/kg|mg\/L|mg\/l|g\/L|g\/l|ppm)\s*(?:as\s+([A-Za-z0-9()+-]+))?\s*$/;
+
+/** Read an amount: a number is an activity; "1e-4 mol/kg", "5 mg/L", "5 mg/L as Fe" are concentrations. */
+export function readAmount(f: Fields, v: unknown, field: string): Amount {
+  if (typeof v === 'number') {
+    f.number(v, field, { positive: true, max: 100 });
+    return { kind: 'activity', value: v };
+  }
+  const what = 'an activity (number) or a concentration such as "1e-4 mol/kg" or "5 mg/L" (optionally "as Fe")';
+  if (typeof v !== 'string') f.fail(field, what, v);
+  const m = AMOUNT_RE.exec(v as string);
+  if (!m) f.fail(field, what, v);
+  const x = Number(m![1]);
+  if (!(x > 0) || !Number.isFinite(x)) f.fail(field, `${what}, greater than 0`, v);
+  const unit = m![2].toLowerCase();
+  const as = m![3];
+  if (as) {
+    try {
+      parseFormula(as);
+    } catch {
+      f.fail(field, `a formula after "as" (e.g. "as Fe")`, as);
+    }
+  }
+  if (unit === 'mol/kg') return { kind: 'molality', value: x };
+  if (unit === 'mmol/kg') return { kind: 'molality', value: x / 1000 };
+  if (unit === 'g/l') return { kind: 'mg/L', value: x * 1000, as };
+  return { kind: 'mg/L', value: x, as }; // mg/L, ppm (dilute water: 1 ppm ≈ 1 mg/L)
+}
+
+export function readSolutionSettings(f: Fields, o: Record<string, unknown>): SolutionSettings {
+  let I = 0;
+  let from = 'not given (ideal solution)';
+  if (o.ionicStrength !== undefined && o.background !== undefined) {
+    f.fail('background', 'either ionicStrength or background, not both');
+  }
+  if (o.ionicStrength !== undefined) {
+    I = f.number(o.ionicStrength, 'ionicStrength', { min: 0, max: 10 });
+    from = 'given';
+  }
+  if (o.background !== undefined) {
+    const b = o.background;
+    if (!b || typeof b !== 'object' || Array.isArray(b)) f.fail('background', 'a map of salt or ion → mol/kg, e.g. {NaCl: 0.5}', b);
+    const parts: string[] = [];
+    for (const [k, v] of Object.entries(b as Record<string, unknown>)) {
+      const m = f.number(v, `background.${k}`, { min: 0, max: 10 });
+      const salt = SALTS[k];
+      if (salt) {
+        I += 0.5 * salt.reduce((s, [z, n]) => s + n * m * z * z, 0);
+      } else {
+        let z = 0;
+        try {
+          z = parseFormula(k).charge;
+        } catch {
+          z = 0;
+        }
+        if (z === 0) f.fail(`background.${k}`, `a salt (${Object.keys(SALTS).join(', ')}) or an ion with its charge (e.g. Na+, SO4-2)`, k);
+        I += 0.5 * m * z * z;
+      }
+      parts.push(`${m} mol/kg ${k}`);
+    }
+    from = `background ${parts.join(' + ')}`;
+  }
+  const given = o.ionicStrength !== undefined || o.background !== undefined;
+  const model = o.activityModel === undefined ? (given ? 'davies' : 'ideal') : f.oneOf(o.activityModel, 'activityModel', ['davies', 'debye-huckel', 'ideal'] as const);
+  const ionSize = f.optNumber(o.ionSize, 'ionSize', 4, { min: 1, max: 12 });
+  return { model, ionicStrength: I, ionicStrengthFrom: from, ionSize };
+}
+
+export function solutionAt(file: string, celsius: number, pressureMPa: number | undefined, s: SolutionSettings): SolutionAtT {
+  let water: WaterState;
+  try {
+    water = waterState(celsius, pressureMPa);
+  } catch (e) {
+    throw new InputError(file, pressureMPa !== undefined ? 'pressure' : 'temperature', (e as Error).message.replace(/^[^:]*:\s*/, ''));
+  }
+  const { A, B } = debyeHuckelParameters(celsius + KELVIN, water.density, water.permittivity);
+  const m = activityModel(s.model, { ionicStrength: s.ionicStrength, A, B, ionSizeAngstrom: s.ionSize });
+  return { water, A, B, settings: s, logGamma: (z) => m.logGamma(z), warnings: m.warnings };
+}
+
+/** Molality of an amount given as mg/L, with the molar mass of `as` (or the fallback formula). */
+export function molality(a: Amount, fallbackFormula: string, densityKgM3: number): number {
+  if (a.kind === 'molality') return a.value;
+  const M = molarMass(parseFormula(a.as ?? fallbackFormula));
+  return a.value / (1000 * M) / (densityKgM3 / 1000);
+}

@@ -1,0 +1,233 @@
+/**
+ * The system file contract: keys, types, ranges and defaults. `readSpec` turns parsed JSON/YAML
+ * into a validated SystemSpec or throws an InputError naming the file and field.
+ *
+ * Stable keys (used by independent checks): element, temperature, activity, ligands, pH, E,
+ * exclude, species. Further keys are documented in README.md.
+ */
+import { isElement } from '../chem/elements.js';
+import { FormulaError, formulaWarnings, parseFormula } from '../chem/formula.js';
+import type { Phase } from '../model.js';
+import { Fields } from './fields.js';
+import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
+
+export interface InlineSpecies {
+  formula: string;
+  phase: Phase;
+  dfG?: number;
+  dfH?: number;
+  S?: number;
+  Cp?: number;
+  activity?: number;
+  /** A concentration given instead of an activity. */
+  concentration?: Amount;
+  pressure?: number;
+  name?: string;
+  source?: string;
+  /** Where in the file (for messages): species[k]. */
+  field: string;
+  /** A bare name/formula to take from the library. */
+  fromLibrary?: string;
+}
+
+export interface SystemSpec {
+  file: string;
+  element: string;
+  temperature: number;
+  /** Liquid pressure, MPa (default: 0.101325 below 100 °C, saturation above). */
+  pressure?: number;
+  activity: number;
+  /** How the dissolved amount of the element was given; `isDefault` when neither key was set. */
+  amount: Amount & { isDefault: boolean };
+  ligands: Record<string, number>;
+  ligandAmounts: Record<string, Amount>;
+  solution: SolutionSettings;
+  pH: [number, number];
+  E: [number, number];
+  exclude: string[];
+  species?: InlineSpecies[];
+  gases: { H2: number; O2: number };
+  metastable: boolean | string[];
+  pick: Record<string, string>;
+  extrapolation: 'cp' | 'constant-h-s';
+  title?: string;
+  grid: number;
+  /** Everything else the later stages read (figure, points, ...), validated where used. */
+  extra: Record<string, unknown>;
+  warnings: string[];
+}
+
+export const TOP_KEYS = [
+  'element',
+  'temperature',
+  'pressure',
+  'activity',
+  'ligands',
+  'pH',
+  'E',
+  'exclude',
+  'species',
+  'gases',
+  'metastable',
+  'pick',
+  'extrapolation',
+  'title',
+  'grid',
+  'figure',
+  'ionicStrength',
+  'background',
+  'activityModel',
+  'ionSize',
+  'concentration',
+  'reference',
+  'points',
+  'boxes',
+  'paths',
+  'classes',
+  'families',
+  'description',
+] as const;
+
+const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
+
+/** Temperatures the program accepts, °C (liquid water, IAPWS-IF97 region 1). */
+export const T_RANGE = { min: 0, max: 350 };
+
+export function readSpec(data: unknown, file: string): SystemSpec {
+  const f = new Fields(file);
+  const o = f.object(data, '', TOP_KEYS);
+  const warnings: string[] = [];
+
+  if (o.element === undefined) f.fail('element', 'the symbol of the main element, e.g. "Fe"');
+  const element = f.string(o.element, 'element', 'an element symbol such as "Fe"', 3);
+  if (!isElement(element)) f.fail('element', 'an element symbol such as "Fe" (case matters)', element);
+  if (element === 'H' || element === 'O') f.fail('element', 'an element other than H or O (water is always present)', element);
+
+  const temperature = f.optNumber(o.temperature, 'temperature', 25, { min: T_RANGE.min, max: T_RANGE.max });
+  if (temperature > 300) warnings.push(`temperature ${temperature} °C is above 300 °C: data extrapolated beyond their usual range`);
+  const pressure = o.pressure === undefined ? undefined : f.number(o.pressure, 'pressure', { positive: true, max: 100 });
+  const activity = f.optNumber(o.activity, 'activity', 1e-6, { positive: true, max: 100 });
+  if (o.activity !== undefined && o.concentration !== undefined) f.fail('concentration', 'either activity or concentration, not both');
+  let amount: SystemSpec['amount'] = { kind: 'activity', value: activity, isDefault: o.activity === undefined };
+  if (o.concentration !== undefined) {
+    const a = typeof o.concentration === 'number' ? { kind: 'molality' as const, value: f.number(o.concentration, 'concentration', { positive: true, max: 100 }) } : readAmount(f, o.concentration, 'concentration');
+    amount = { ...a, isDefault: false };
+  }
+  const solution = readSolutionSettings(f, o);
+
+  const ligands: Record<string, number> = {};
+  const ligandAmounts: Record<string, Amount> = {};
+  if (o.ligands !== undefined) {
+    if (!o.ligands || typeof o.ligands !== 'object' || Array.isArray(o.ligands)) {
+      f.fail('ligands', 'a map of element symbol → total activity, e.g. {S: 1e-3}', o.ligands);
+    }
+    for (const [k, v] of Object.entries(o.ligands as Record<string, unknown>)) {
+      if (!isElement(k)) f.fail(`ligands.${k}`, 'an element symbol as key (e.g. S, C, Cl, N)', k);
+      if (k === element || k === 'H' || k === 'O') f.fail(`ligands.${k}`, 'a ligand element other than the main element, H and O', k);
+      const a = readAmount(f, v, `ligands.${k}`);
+      ligandAmounts[k] = a;
+      ligands[k] = a.value;
+    }
+  }
+
+  const pH = f.range(o.pH, 'pH', [0, 14], { min: -3, max: 17, unit: 'pH' });
+  const E = f.range(o.E, 'E', [-2, 2], { min: -5, max: 5, unit: 'V vs SHE' });
+  const exclude = o.exclude === undefined ? [] : f.stringList(o.exclude, 'exclude');
+
+  let species: InlineSpecies[] | undefined;
+  if (o.species !== undefined) {
+    const list = f.list(o.species, 'species', 2000);
+    if (list.length === 0) f.fail('species', 'a non-empty list of species (or leave the key out to use the built-in library)', list);
+    species = list.map((s, k) => readSpecies(f, s, `species[${k}]`, warnings));
+    const seen = new Map<string, string>();
+    for (const s of species) {
+      if (s.fromLibrary) continue;
+      const key = `${s.formula}|${s.phase}`;
+      if (seen.has(key)) f.fail(s.field, `each species once; ${s.formula} (${s.phase}) is already given at ${seen.get(key)}`, s.formula);
+      seen.set(key, s.field);
+    }
+  }
+
+  let gases = { H2: 1, O2: 1 };
+  if (o.gases !== undefined) {
+    const g = f.object(o.gases, 'gases', ['H2', 'O2']);
+    gases = {
+      H2: f.optNumber(g.H2, 'gases.H2', 1, { positive: true, max: 1000 }),
+      O2: f.optNumber(g.O2, 'gases.O2', 1, { positive: true, max: 1000 }),
+    };
+  }
+  let metastable: boolean | string[] = false;
+  if (o.metastable !== undefined) {
+    metastable = typeof o.metastable === 'boolean' ? o.metastable : f.stringList(o.metastable, 'metastable');
+  }
+  const pick: Record<string, string> = {};
+  if (o.pick !== undefined) {
+    if (!o.pick || typeof o.pick !== 'object' || Array.isArray(o.pick)) f.fail('pick', 'a map of formula → alternative id', o.pick);
+    for (const [k, v] of Object.entries(o.pick as Record<string, unknown>)) pick[k] = f.string(v, `pick.${k}`, 'an alternative id');
+  }
+  const extrapolation = o.extrapolation === undefined ? 'cp' : f.oneOf(o.extrapolation, 'extrapolation', ['cp', 'constant-h-s'] as const);
+  const title = o.title === undefined ? undefined : f.string(o.title, 'title', 'a title text', 200);
+  const grid = f.optNumber(o.grid, 'grid', 200, { integer: true, min: 10, max: 4000 });
+
+  const extra: Record<string, unknown> = {};
+  for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
+    if (o[k] !== undefined) extra[k] = o[k];
+  }
+  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, solution, pH, E, exclude, species, gases, metastable, pick, extrapolation, title, grid, extra, warnings };
+}
+
+function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {
+  if (typeof raw === 'string') {
+    return { formula: raw, phase: 'aq', field, fromLibrary: raw };
+  }
+  const o = f.object(raw, field, SPECIES_KEYS);
+  const formula = f.string(o.formula, `${field}.formula`, 'a formula such as "Fe+2" or "Fe2O3"', 100);
+  try {
+    parseFormula(formula);
+  } catch (e) {
+    if (e instanceof FormulaError) f.fail(`${field}.formula`, `a valid formula (${e.message})`);
+    throw e;
+  }
+  for (const w of formulaWarnings(formula)) warnings.push(`${f.file}: ${field}.formula: ${w}`);
+  const label = `${field} (${formula})`;
+  if (o.dfG === undefined) {
+    if (o.phase !== undefined || o.dfH !== undefined || o.S !== undefined || o.Cp !== undefined) {
+      f.fail(`${label}.dfG`, 'ΔfG° in kJ/mol (required for an inline species)');
+    }
+    // Only a formula (and activity/pressure): take the data from the library.
+    const activity = o.activity === undefined ? undefined : f.number(o.activity, `${label}.activity`, { positive: true, max: 100 });
+    const pressure = o.pressure === undefined ? undefined : f.number(o.pressure, `${label}.pressure`, { positive: true, max: 1000 });
+    const concentration = o.concentration === undefined ? undefined : concentrationOf(f, o.concentration, `${label}.concentration`);
+    if (activity !== undefined && concentration) f.fail(`${label}.concentration`, 'either activity or concentration, not both');
+    return { formula, phase: 'aq', field, fromLibrary: formula, activity, pressure, concentration };
+  }
+  const phase = f.oneOf(o.phase, `${label}.phase`, ['s', 'l', 'g', 'aq'] as const);
+  const num = (k: string, opts = {}) => (o[k] === undefined ? undefined : f.number(o[k], `${label}.${k}`, { min: -1e5, max: 1e5, ...opts }));
+  const sp: InlineSpecies = {
+    formula,
+    phase,
+    dfG: num('dfG'),
+    dfH: num('dfH'),
+    S: num('S'),
+    Cp: num('Cp'),
+    activity: o.activity === undefined ? undefined : f.number(o.activity, `${label}.activity`, { positive: true, max: 100 }),
+    concentration: o.concentration === undefined ? undefined : concentrationOf(f, o.concentration, `${label}.concentration`),
+    pressure: o.pressure === undefined ? undefined : f.number(o.pressure, `${label}.pressure`, { positive: true, max: 1000 }),
+    name: o.name === undefined ? undefined : f.string(o.name, `${label}.name`, 'a name', 200),
+    source: o.source === undefined ? undefined : f.string(o.source, `${label}.source`, 'a source citation', 1000),
+    field,
+  };
+  if (sp.activity !== undefined && sp.concentration) f.fail(`${label}.concentration`, 'either activity or concentration, not both');
+  if (sp.concentration && phase !== 'aq') f.fail(`${label}.concentration`, 'a concentration only on dissolved (aq) species');
+  if (sp.activity !== undefined && phase !== 'aq') f.fail(`${label}.activity`, 'activity only on dissolved (aq) species; use pressure for gases');
+  if (sp.pressure !== undefined && phase !== 'g') f.fail(`${label}.pressure`, 'pressure only on gases (phase "g")');
+  return sp;
+}
+
+/** A species concentration: a number is mol/kg; a string carries its unit. */
+function concentrationOf(f: Fields, v: unknown, field: string): Amount {
+  if (typeof v === 'number') return { kind: 'molality', value: f.number(v, field, { positive: true, max: 100 }) };
+  const a = readAmount(f, v, field);
+  if (a.kind === 'activity') f.fail(field, 'a concentration such as "1e-4 mol/kg" or "5 mg/L"', v);
+  return a;
+}
