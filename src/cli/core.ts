@@ -9,6 +9,9 @@ import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { probe } from '../report/probe.js';
 import { InputError } from '../system/errors.js';
 import { writeAtomic } from './write.js';
+import { isElement } from '../chem/elements.js';
+import { loadLibrary } from '../data/library.js';
+import { catalogEntries, catalogText } from '../report/catalog.js';
 import { figureInput } from '../figure/compose.js';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
@@ -89,6 +92,20 @@ export function registerCore(program: Command): void {
       if (opts.json) {
         process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, lines: lineRows(c.model), waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water }));
       } else process.stdout.write(linesText(c.model));
+    });
+}
+
+export function registerCatalog(program: Command): void {
+  program
+    .command('catalog')
+    .description('the built-in species, with their data and sources')
+    .argument('[element]', 'only species containing this element (e.g. Cu)')
+    .option('--json', 'machine-readable output')
+    .action((element: string | undefined, opts: { json?: boolean }) => {
+      if (element !== undefined && !isElement(element)) throw new InputError('command line', 'element', 'an element symbol such as Cu (case matters)', JSON.stringify(element));
+      const entries = catalogEntries(loadLibrary(), element);
+      if (opts.json) process.stdout.write(stableJson(entries));
+      else process.stdout.write(entries.length ? catalogText(entries) : `no species of ${element} in the library\n`);
     });
 }
 

@@ -4,7 +4,7 @@
  */
 import { Command, CommanderError } from 'commander';
 import { InputError } from '../system/errors.js';
-import { registerCore } from './core.js';
+import { registerCatalog, registerCore } from './core.js';
 import { registerDemo } from './demo.js';
 
 export function makeProgram(): Command {
@@ -17,6 +17,7 @@ export function makeProgram(): Command {
     .configureOutput({ writeErr: (s) => process.stderr.write(s) });
   registerCore(program);
   registerDemo(program);
+  registerCatalog(program);
   return program;
 }
 

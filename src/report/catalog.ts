@@ -1,0 +1,82 @@
+/**
+ * The `catalog` report: the built-in species with their data and sources.
+ */
+import type { LibrarySpecies } from '../data/library.js';
+import { table } from './table.js';
+
+export interface CatalogEntry {
+  formula: string;
+  phase: string;
+  name: string;
+  dfG: number;
+  dfH: number | null;
+  S: number | null;
+  Cp: number | null;
+  source: string;
+  sourceText: string;
+  valueSources?: Record<string, string>;
+  recalled: boolean;
+  metastable: boolean;
+  uncertainty?: Record<string, number>;
+  alternatives?: { id: string; dfG: number; dfH: number | null; S: number | null; Cp: number | null; source: string; sourceText: string; note?: string }[];
+  note?: string;
+  file: string;
+}
+
+export function catalogEntries(lib: readonly LibrarySpecies[], element?: string): CatalogEntry[] {
+  const sel = element ? lib.filter((s) => (s.elements[element] ?? 0) > 0) : lib;
+  return sel.map((s) => {
+    const e: CatalogEntry = {
+      formula: s.formula,
+      phase: s.phase,
+      name: s.name,
+      dfG: s.dfG,
+      dfH: s.dfH ?? null,
+      S: s.S ?? null,
+      Cp: s.Cp ?? null,
+      source: s.source,
+      sourceText: s.sourceText,
+      recalled: s.recalled === true,
+      metastable: s.metastable === true,
+      file: s.file,
+    };
+    if (s.valueSourceText) e.valueSources = { ...s.valueSourceText } as Record<string, string>;
+    if (s.uncertainty) e.uncertainty = { ...s.uncertainty } as Record<string, number>;
+    if (s.note) e.note = s.note;
+    if (s.alternatives?.length) {
+      e.alternatives = s.alternatives.map((a) => ({
+        id: a.id,
+        dfG: a.dfG,
+        dfH: a.dfH ?? null,
+        S: a.S ?? null,
+        Cp: a.Cp ?? null,
+        source: a.source,
+        sourceText: s.sourceMap[a.source] ?? a.source,
+        ...(a.note ? { note: a.note } : {}),
+      }));
+    }
+    return e;
+  });
+}
+
+export function catalogText(entries: CatalogEntry[]): string {
+  const n = (v: number | null, d: number) => (v === null ? '—' : v.toFixed(d));
+  const rows = entries.map((e) => [
+    e.formula,
+    e.phase,
+    e.name,
+    n(e.dfG, 2),
+    n(e.dfH, 2),
+    n(e.S, 2),
+    n(e.Cp, 2),
+    `${e.source}${e.recalled ? '*' : ''}${e.metastable ? ' (metastable)' : ''}${e.alternatives ? ` [alt: ${e.alternatives.map((a) => a.id).join(', ')}]` : ''}`,
+  ]);
+  const sources = new Map<string, string>();
+  for (const e of entries) {
+    sources.set(e.source, e.sourceText);
+    for (const a of e.alternatives ?? []) sources.set(a.source, a.sourceText);
+  }
+  const body = table(['formula', 'phase', 'name', 'ΔfG°/(kJ/mol)', 'ΔfH°/(kJ/mol)', 'S°/(J/(mol·K))', 'Cp°/(J/(mol·K))', 'source'], rows, [false, false, false, true, true, true, true, false]);
+  const refs = [...sources.entries()].sort().map(([k, v]) => `  ${k}: ${v}`).join('\n');
+  return `${body}\n\n* recalled from memory, not read from the source.\nSources:\n${refs}\n`;
+}
