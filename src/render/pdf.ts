@@ -1,0 +1,117 @@
+/**
+ * Scene → vector PDF with pdfkit (loaded lazily so SVG-only runs never load it). Text uses the
+ * standard PDF font Helvetica (no font files needed); the layout was measured with its metrics.
+ * Output is reproducible: the creation date is fixed unless given.
+ */
+import { runRise, runSize, runsWidth } from './metrics.js';
+import type { Scene, SceneItem, ScenePath, SceneText } from './scene-types.js';
+
+/** Characters outside the WinAnsi set of the standard fonts, mapped to close equivalents. */
+function winAnsi(s: string): string {
+  return s
+    .replace(/\u2212/g, '\u2013') // minus → en dash
+    .replace(/[\u2080-\u2089]/g, (c) => String(c.charCodeAt(0) - 0x2080))
+    .replace(/[^\u0020-\u007e\u00a0-\u00ff\u2013\u2014\u2018\u2019\u201c\u201d\u2026\u2022\u2020\u2021\u2030\u20ac]/g, '?');
+}
+
+function fontName(italic: boolean, bold: boolean): string {
+  if (bold) return italic ? 'Helvetica-BoldOblique' : 'Helvetica-Bold';
+  return italic ? 'Helvetica-Oblique' : 'Helvetica';
+}
+
+// pdfkit's document type (kept loose to avoid loading the module for types at run time).
+type Doc = PDFKit.PDFDocument;
+
+function drawPath(doc: Doc, p: ScenePath): void {
+  let any = false;
+  for (const sp of p.subpaths) {
+    if (sp.points.length < 2) continue;
+    const [first, ...rest] = sp.points;
+    doc.moveTo(first![0], first![1]);
+    for (const q of rest) doc.lineTo(q[0], q[1]);
+    if (sp.closed) doc.closePath();
+    any = true;
+  }
+  if (!any) return;
+  const rule = p.fillRule === 'evenodd' ? 'even-odd' : 'non-zero';
+  if (p.stroke) {
+    doc.lineWidth(p.strokeWidth);
+    doc.lineCap(p.lineCap ?? 'butt');
+    doc.lineJoin(p.lineJoin ?? 'miter');
+    // pdfkit accepts an array of lengths (its type declarations say number).
+    if (p.dash) doc.dash(p.dash.map((x) => Math.max(x, 0.001)) as unknown as number, {});
+    else doc.undash();
+  }
+  if (p.fill && p.stroke) doc.fillAndStroke(p.fill, p.stroke, rule);
+  else if (p.fill) doc.fill(p.fill, rule);
+  else if (p.stroke) doc.stroke(p.stroke);
+}
+
+function drawText(doc: Doc, t: SceneText): void {
+  const total = runsWidth(t.runs, t.size);
+  let x = t.anchor === 'start' ? t.x : t.anchor === 'middle' ? t.x - total / 2 : t.x - total;
+  doc.save();
+  if (t.rotate !== 0) doc.rotate(t.rotate, { origin: [t.x, t.y] });
+  doc.fillColor(t.fill);
+  for (const r of t.runs) {
+    const size = runSize(r, t.size);
+    const s = winAnsi(r.text);
+    doc.font(fontName(r.italic ?? false, t.bold ?? false)).fontSize(size);
+    doc.text(s, x, t.y - runRise(r, t.size), { lineBreak: false, baseline: 'alphabetic' });
+    x += runsWidth([r], t.size);
+  }
+  doc.restore();
+}
+
+function drawItems(doc: Doc, items: readonly SceneItem[]): void {
+  for (const it of items) {
+    if (it.type === 'path') drawPath(doc, it);
+    else if (it.type === 'text') drawText(doc, it);
+    else if (it.type === 'circle') {
+      doc.circle(it.cx, it.cy, it.r);
+      if (it.fill && it.stroke) {
+        doc.lineWidth(it.strokeWidth).undash();
+        doc.fillAndStroke(it.fill, it.stroke);
+      } else if (it.fill) doc.fill(it.fill);
+      else if (it.stroke) {
+        doc.lineWidth(it.strokeWidth).undash();
+        doc.stroke(it.stroke);
+      }
+    } else {
+      doc.save();
+      if (it.clip) doc.rect(it.clip.x, it.clip.y, it.clip.w, it.clip.h).clip();
+      drawItems(doc, it.children);
+      doc.restore();
+    }
+  }
+}
+
+/**
+ * Renders a scene to a one-page vector PDF of the scene's physical size.
+ * `creationDate` defaults to a fixed date so that the same scene gives the same bytes.
+ */
+export async function sceneToPdf(scene: Scene, opts: { creationDate?: Date } = {}): Promise<Buffer> {
+  const { default: PDFDocument } = await import('pdfkit');
+  const doc = new PDFDocument({
+    size: [scene.widthPt, scene.heightPt],
+    margin: 0,
+    autoFirstPage: true,
+    compress: true,
+    info: {
+      Title: scene.title,
+      Creator: 'ephmap',
+      Producer: 'ephmap',
+      CreationDate: opts.creationDate ?? new Date(Date.UTC(2000, 0, 1)),
+    },
+  });
+  const chunks: Buffer[] = [];
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('data', (c: Buffer) => chunks.push(c));
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  doc.rect(0, 0, scene.widthPt, scene.heightPt).fill(scene.background);
+  drawItems(doc, scene.items);
+  doc.end();
+  return done;
+}

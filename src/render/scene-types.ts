@@ -1,0 +1,97 @@
+/**
+ * Renderer-neutral scene: what to draw, in figure coordinates (points, 1/72 in; origin top left,
+ * y down). Built by scene.ts, drawn by svg.ts and pdf.ts so that both show the same figure.
+ */
+
+export type Point = [number, number];
+
+/** A run of text with one baseline shift: counts are `sub`, charges and exponents `sup`. */
+export interface TextRun {
+  text: string;
+  shift: 'normal' | 'sub' | 'sup';
+  italic?: boolean;
+}
+
+export interface Rect {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+export interface SubPath {
+  points: Point[];
+  closed: boolean;
+}
+
+export interface ScenePath {
+  type: 'path';
+  /** What the path is (CSS class in SVG): region, boundary, water, family, grid, frame, tick, leader, … */
+  role: string;
+  subpaths: SubPath[];
+  fill: string | null;
+  fillRule?: 'nonzero' | 'evenodd';
+  stroke: string | null;
+  strokeWidth: number;
+  /** Dash pattern in pt, null for solid. */
+  dash: number[] | null;
+  lineCap?: 'butt' | 'round' | 'square';
+  lineJoin?: 'miter' | 'round' | 'bevel';
+  /** Extra attributes for SVG (data-*), e.g. { species: 'Fe+2' }. */
+  data?: Record<string, string>;
+}
+
+export interface SceneText {
+  type: 'text';
+  role: string;
+  /** Anchor point: x per `anchor`, y is the baseline. */
+  x: number;
+  y: number;
+  /** Base font size in pt (sub/superscripts are smaller). */
+  size: number;
+  anchor: 'start' | 'middle' | 'end';
+  /** Rotation in degrees about (x, y), clockwise on the page (SVG convention); −90 reads upwards. */
+  rotate: number;
+  runs: TextRun[];
+  fill: string;
+  bold?: boolean;
+  /** Layout box (axis-aligned, unrotated text only) that collision checks used. */
+  box?: Rect;
+  data?: Record<string, string>;
+}
+
+export interface SceneCircle {
+  type: 'circle';
+  role: string;
+  cx: number;
+  cy: number;
+  r: number;
+  fill: string | null;
+  stroke: string | null;
+  strokeWidth: number;
+  data?: Record<string, string>;
+}
+
+export interface SceneGroup {
+  type: 'group';
+  role: string;
+  /** Clip children to this rectangle. */
+  clip?: Rect;
+  children: SceneItem[];
+}
+
+export type SceneItem = ScenePath | SceneText | SceneCircle | SceneGroup;
+
+export interface Scene {
+  widthPt: number;
+  heightPt: number;
+  widthMm: number;
+  heightMm: number;
+  fontFamily: string;
+  background: string;
+  /** Plot area (inside the axes frame). */
+  plot: Rect;
+  items: SceneItem[];
+  /** Title for document metadata. */
+  title: string;
+}
