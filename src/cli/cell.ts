@@ -1,0 +1,93 @@
+/**
+ * Verb `cell`: energies, equilibrium and thermoneutral potentials of one reaction at a temperature
+ * or over a range of temperatures.
+ */
+import type { Command } from 'commander';
+import { cellReaction, cellTable, ReactionError, temperatureSteps, type CellResult, type SpeciesLookup } from '../report/cell.js';
+import { cellText } from '../report/cell-format.js';
+import { stableJson } from '../report/json.js';
+import { InputError } from '../system/errors.js';
+import { listReferences } from '../thermo/reference.js';
+import type { Extrapolation } from '../thermo/gibbs.js';
+
+export interface CellDeps {
+  lookup: SpeciesLookup;
+  /** Where the report goes (default: standard output). */
+  write?: (text: string) => void;
+}
+
+interface CellCliOptions {
+  temperature?: string;
+  range?: string;
+  electrons?: string;
+  extrapolation: string;
+  reference?: string;
+  ph?: string;
+  json?: boolean;
+}
+
+const CLI = 'command line';
+
+function num(v: string, option: string, what: string): number {
+  const x = Number(v);
+  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError(CLI, option, what, JSON.stringify(v));
+  return x;
+}
+
+export function registerCell(program: Command, deps: CellDeps): void {
+  program
+    .command('cell')
+    .description(
+      'ΔrG, ΔrH, ΔrS, equilibrium and thermoneutral potentials of a reaction, e.g. "2H2O(l) = 2H2(g) + O2(g)" ' +
+        'or "Cu+2 + 2e- = Cu(s)" (terms separated by " + ", "e-" is the electron)',
+    )
+    .argument('<reaction>', 'balanced reaction, quoted')
+    .option('--temperature <C>', 'temperature, °C', '25')
+    .option('--range <from:to:step>', 'table over temperatures, °C (e.g. 25:100:25)')
+    .option('--electrons <N>', 'electrons transferred (for full reactions whose oxidation states are not decided)')
+    .option('--extrapolation <mode>', 'cp (constant Cp°) or constant-h-s (ΔH − TΔS)', 'cp')
+    .option('--reference <name>', 'also give half-reaction potentials against a reference electrode')
+    .option('--ph <pH>', 'pH, for --reference rhe')
+    .option('--json', 'machine-readable output')
+    .addHelpText('after', `\nReference electrodes:\n${listReferences().map((l) => `  ${l}`).join('\n')}\n`)
+    .action((reaction: string, opts: CellCliOptions) => {
+      const out = deps.write ?? ((s: string) => void process.stdout.write(s));
+      const extrapolation = opts.extrapolation as Extrapolation;
+      if (extrapolation !== 'cp' && extrapolation !== 'constant-h-s') {
+        throw new InputError(CLI, '--extrapolation', '"cp" or "constant-h-s"', JSON.stringify(opts.extrapolation));
+      }
+      const electrons = opts.electrons === undefined ? undefined : num(opts.electrons, '--electrons', 'a positive number of electrons');
+      if (electrons !== undefined && !(electrons > 0)) throw new InputError(CLI, '--electrons', 'a positive number of electrons', opts.electrons);
+      const pH = opts.ph === undefined ? undefined : num(opts.ph, '--ph', 'a pH value (number)');
+      let temperatures: number[];
+      if (opts.range !== undefined) {
+        const parts = opts.range.split(':');
+        const bad = () => new InputError(CLI, '--range', 'FROM:TO:STEP in °C with TO ≥ FROM and STEP > 0, at most 1001 rows', JSON.stringify(opts.range));
+        if (parts.length !== 3 || parts.some((p) => p.trim() === '' || !Number.isFinite(Number(p)))) throw bad();
+        const [a, b, c] = parts.map(Number) as [number, number, number];
+        try {
+          temperatures = temperatureSteps(a, b, c);
+        } catch {
+          throw bad();
+        }
+      } else {
+        temperatures = [num(opts.temperature ?? '25', '--temperature', 'a temperature in °C (number)')];
+      }
+      if (temperatures.some((t) => t <= -273.15)) throw new InputError(CLI, opts.range ? '--range' : '--temperature', 'temperatures above −273.15 °C', opts.range ?? opts.temperature);
+      const cellOpts = { lookup: deps.lookup, electrons, extrapolation, reference: opts.reference, pH };
+      let rows: CellResult[];
+      try {
+        rows = temperatures.length === 1 && opts.range === undefined
+          ? [cellReaction(reaction, { ...cellOpts, celsius: temperatures[0] })]
+          : cellTable(reaction, temperatures, cellOpts);
+      } catch (e) {
+        if (e instanceof ReactionError) {
+          const field = /reference electrode/.test(e.expected) ? '--reference' : /electron\(s\) written/.test(e.expected) ? '--electrons' : 'REACTION';
+          throw new InputError(CLI, field, e.expected, e.got);
+        }
+        throw e;
+      }
+      if (opts.json) out(stableJson(rows.length === 1 && opts.range === undefined ? rows[0] : { reaction: rows[0]!.reaction, rows }));
+      else out(cellText(rows));
+    });
+}

@@ -1,0 +1,54 @@
+/**
+ * Plain-text report of the `cell` calculator for people: a heading (reaction, n, direction, sign
+ * convention), an aligned table with one row per temperature (units in the headers), the data
+ * sources and the warnings. Draws nothing and computes nothing.
+ */
+import type { CellResult } from './cell.js';
+import { table } from './table.js';
+
+const fix = (v: number | null, digits: number, plus = false): string =>
+  v === null ? '—' : `${plus && v >= 0 ? '+' : ''}${v.toFixed(digits)}`;
+
+/** Text report for one or more rows of the same reaction (throws RangeError on no rows). */
+export function cellText(rows: readonly CellResult[]): string {
+  const first = rows[0];
+  if (!first) throw new RangeError('cellText: no rows');
+  const half = first.kind === 'half';
+  const ref = first.reference;
+  const header = [
+    'T/°C',
+    'ΔrG/(kJ/mol)',
+    'ΔrH/(kJ/mol)',
+    'ΔrS/(J/(mol·K))',
+    half ? 'E/(V vs SHE)' : 'E_eq/V',
+    half ? 'E_tn/(V vs SHE)' : 'E_tn/V',
+    'dE/dT/(mV/K)',
+  ];
+  if (ref) header.push(`E/(V vs ${ref.label})`, `E_tn/(V vs ${ref.label})`);
+  const body = rows.map((r) => {
+    const row = [
+      String(Number(r.temperature.celsius.toPrecision(10))),
+      fix(r.deltaG, 3),
+      fix(r.deltaH, 3),
+      fix(r.deltaS, 2),
+      fix(r.equilibriumPotential, 4, half),
+      fix(r.thermoneutralPotential, 4, half),
+      fix(r.dEdT === null ? null : r.dEdT * 1000, 4, true),
+    ];
+    if (ref) row.push(fix(r.reference?.equilibriumPotential ?? null, 4, true), fix(r.reference?.thermoneutralPotential ?? null, 4, true));
+    return row;
+  });
+  const nFrom = first.nFrom === 'written' ? 'electrons written' : first.nFrom === 'given' ? 'given' : 'from oxidation states';
+  const what = half
+    ? `half-reaction, n = ${first.n} (${nFrom}), written as ${first.direction === 'reduction' ? 'a reduction' : 'an oxidation'}`
+    : `full reaction, n = ${first.n} (${nFrom}), ${first.direction}${first.direction === 'electrolytic' ? ' (must be driven)' : ' (delivers work)'}`;
+  const lines = [`reaction: ${first.reaction}`, what, `convention: ${first.convention}`];
+  if (ref) lines.push(`reference: ${ref.label}, ${fix(ref.offset, 4, true)} V vs SHE at ${first.temperature.celsius} °C`);
+  lines.push('', table(header, body, header.map((_, k) => k >= 0)), '', 'data:');
+  for (const s of first.species) {
+    lines.push(`  ${s.coefficient > 0 ? '+' : ''}${Number(s.coefficient.toPrecision(10))} ${s.formula}${s.phase ? `(${s.phase})` : ''}: ${s.source}`);
+  }
+  const warnings = [...new Set(rows.flatMap((r) => r.warnings))];
+  if (warnings.length > 0) lines.push('', 'warnings:', ...warnings.map((w) => `  ${w}`));
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,564 @@
+/**
+ * The `cell` calculator: reaction energies and potentials of one reaction at a temperature.
+ *
+ * Input: a reaction text such as "2H2O(l) = 2H2(g) + O2(g)" (full reaction) or
+ * "Cu+2 + 2e- = Cu(s)" (half-reaction). Terms are separated by " + " (spaces around the plus,
+ * since "+" also writes charges), sides by "=" (also "->", "→", "⇌"); a term is an optional
+ * coefficient (2, 0.5, 1/2) then a formula with an optional phase tag; "e-" is the electron.
+ *
+ * Thermodynamics (apparent-G convention of thermo/gibbs.ts; kJ/mol, J/(mol·K)):
+ *   ΔrG(T) = Σν·G_i(T),  ΔrH(T) = Σν·H_i(T),  ΔrS(T) = Σν·S_i(T)
+ * with H⁺ and e⁻ zero on the conventional scale. A half-reaction is completed with the SHE at the
+ * same T: each electron is replaced by ½H2(g) − H⁺ (from ½H2 = H⁺ + e⁻), so
+ *   ΔrG(ox + n e⁻ = red) = ΔrG(ox + n/2 H2 = red + n H⁺).
+ * Potentials (F = 96485.33212 C/mol):
+ *   half-reaction (as a reduction): E = −ΔrG/(nF) vs SHE at T, E_tn = −ΔrH/(nF), dE/dT = ΔrS/(nF);
+ *   full reaction: voltage |ΔrG|/(nF) ('electrolytic' when ΔrG > 0, else 'galvanic'), thermoneutral
+ *   voltage ΔrH/(nF) (electrolytic) or −ΔrH/(nF) (galvanic), dE/dT the slope of that voltage; the
+ *   signed values −ΔrG/(nF), −ΔrH/(nF), ΔrS/(nF) are given under `signed`.
+ * Worked example (NBS 1982 data, Wagman et al.): 2H2O(l) = 2H2(g) + O2(g) at 25 °C:
+ *   ΔrG = 474.258 kJ/mol, n = 4 → 1.2288 V; ΔrH = 571.660 kJ/mol → 1.4812 V.
+ * Validity: the constant-Cp extrapolation is good over roughly 0–300 °C; constant ΔH/ΔS over some
+ * tens of K around 25 °C. Standard states: unit activity for dissolved species, 1 bar for gases.
+ * Reference: any physical-chemistry text (ΔG = −nFE; Gibbs–Helmholtz); H.C. Helgeson et al.,
+ * Am. J. Sci. 281 (1981) 1249 for the apparent convention.
+ */
+import { F, KELVIN, T_REF } from '../thermo/constants.js';
+import { apparentG, apparentH, entropyAt, type Extrapolation } from '../thermo/gibbs.js';
+import { formulaWarnings, parseFormula, splitPhase, FormulaError, type Phase } from '../chem/formula.js';
+import { referenceOffset, type CustomReference } from '../thermo/reference.js';
+
+/** Thermodynamic data of one species as returned by the resolver. */
+export interface SpeciesData {
+  /** ΔfG° at 25 °C, kJ/mol. */
+  dfG: number;
+  /** ΔfH° at 25 °C, kJ/mol. */
+  dfH?: number;
+  /** S° at 25 °C, J/(mol·K). */
+  S?: number;
+  /** Cp° at 25 °C, J/(mol·K). */
+  Cp?: number;
+  elements: Record<string, number>;
+  charge: number;
+  /** Phase the resolver chose (when the reaction text gave none). */
+  phase?: Phase;
+  /** Where the values come from. */
+  source?: string;
+}
+
+/** Finds a species by formula and phase (phase undefined when the reaction text gives no tag). */
+export type SpeciesLookup = (formula: string, phase: Phase | undefined) => SpeciesData | undefined;
+
+export interface CellOptions {
+  lookup: SpeciesLookup;
+  /** Temperature, °C (default 25). */
+  celsius?: number;
+  /** Electrons transferred; overrides the oxidation-state count of a full reaction. */
+  electrons?: number;
+  extrapolation?: Extrapolation;
+  /** Also give the half-reaction potentials against this reference electrode. */
+  reference?: string | CustomReference;
+  /** pH for the RHE. */
+  pH?: number;
+}
+
+/** A reaction the calculator cannot use; `expected`/`got` let a caller build an InputError. */
+export class ReactionError extends Error {
+  readonly expected: string;
+  readonly got: string;
+  constructor(reaction: string, expected: string, got: string) {
+    super(`reaction "${reaction}": expected ${expected}, got ${got}`);
+    this.name = 'ReactionError';
+    this.expected = expected;
+    this.got = got;
+  }
+}
+
+interface Term {
+  /** −1 left, +1 right. */
+  side: -1 | 1;
+  coefficient: number;
+  coefficientText: string;
+  electron: boolean;
+  formula: string;
+  phase?: Phase;
+  elements: Record<string, number>;
+  charge: number;
+}
+
+export interface ParsedReaction {
+  text: string;
+  terms: Term[];
+  warnings: string[];
+}
+
+const ARROW = /\s*(?:<=>|<->|⇌|⇄|->|→|=)\s*/;
+const TERM = /^(\d+(?:\.\d+)?(?:\/\d+(?:\.\d+)?)?)?\s*(\S.*)$/;
+
+function coefficientValue(t: string): number {
+  const [a, b] = t.split('/');
+  return b === undefined ? Number(a) : Number(a) / Number(b);
+}
+
+/**
+ * Parses a reaction text (see module comment) and checks element and charge balance.
+ * Throws ReactionError on syntax errors and on an unbalanced reaction (naming what is unbalanced).
+ */
+export function parseReaction(text: string): ParsedReaction {
+  const src = text.trim();
+  const sides = src.split(ARROW);
+  if (sides.length !== 2 || sides.some((s) => s.trim() === '')) {
+    throw new ReactionError(src, 'two sides separated by "=" (e.g. "Cu+2 + 2e- = Cu(s)")', JSON.stringify(text));
+  }
+  const terms: Term[] = [];
+  const warnings: string[] = [];
+  sides.forEach((sideText, k) => {
+    for (const raw of sideText.trim().split(/\s+\+\s+/)) {
+      const m = TERM.exec(raw.trim());
+      if (!m) throw new ReactionError(src, 'a term: coefficient then formula', JSON.stringify(raw));
+      const coefficientText = m[1] ?? '1';
+      const coefficient = coefficientValue(coefficientText);
+      if (!(coefficient > 0 && Number.isFinite(coefficient))) {
+        throw new ReactionError(src, 'a positive coefficient', JSON.stringify(coefficientText));
+      }
+      const body = m[2]!.trim().replace(/\u2212/g, '-');
+      const side = k === 0 ? -1 : 1;
+      if (/^e-?$/.test(body)) {
+        terms.push({ side, coefficient, coefficientText, electron: true, formula: 'e-', elements: {}, charge: -1 });
+        continue;
+      }
+      const { formula, phase } = splitPhase(body);
+      let parsed;
+      try {
+        parsed = parseFormula(formula);
+      } catch (e) {
+        const hint = /\S\+\S/.test(body) && e instanceof FormulaError ? ' (separate terms with " + ", spaces around the plus)' : '';
+        throw new ReactionError(src, `a formula${hint}`, `${JSON.stringify(body)}: ${(e as Error).message}`);
+      }
+      warnings.push(...formulaWarnings(body));
+      terms.push({ side, coefficient, coefficientText, electron: false, formula, phase, elements: parsed.elements, charge: parsed.charge });
+    }
+  });
+  checkBalance(src, terms, warnings);
+  return { text: formatReaction(terms), terms, warnings };
+}
+
+function checkBalance(src: string, terms: Term[], warnings: string[]): void {
+  const left = new Map<string, number>();
+  const right = new Map<string, number>();
+  let qL = 0;
+  let qR = 0;
+  for (const t of terms) {
+    const into = t.side < 0 ? left : right;
+    for (const [el, c] of Object.entries(t.elements)) into.set(el, (into.get(el) ?? 0) + c * t.coefficient);
+    if (t.side < 0) qL += t.charge * t.coefficient;
+    else qR += t.charge * t.coefficient;
+  }
+  const fmt = (x: number) => String(Number(x.toPrecision(10)));
+  const problems: string[] = [];
+  for (const el of new Set([...left.keys(), ...right.keys()])) {
+    const a = left.get(el) ?? 0;
+    const b = right.get(el) ?? 0;
+    if (Math.abs(a - b) > 1e-9) problems.push(`${el} ${fmt(a)} on the left, ${fmt(b)} on the right`);
+  }
+  if (Math.abs(qL - qR) > 1e-9) {
+    const q = (x: number) => (x > 0 ? `+${fmt(x)}` : fmt(x));
+    problems.push(`charge ${q(qL)} on the left, ${q(qR)} on the right`);
+  }
+  if (problems.length > 0) {
+    const hint = warnings.length > 0 ? ` (${warnings.join('; ')})` : '';
+    throw new ReactionError(src, 'a balanced reaction', `unbalanced ${problems.join('; ')}${hint}`);
+  }
+}
+
+function formatReaction(terms: Term[]): string {
+  const side = (s: -1 | 1) =>
+    terms
+      .filter((t) => t.side === s)
+      .map((t) => `${t.coefficientText === '1' ? '' : t.coefficientText}${t.electron ? 'e-' : t.formula + (t.phase ? `(${t.phase})` : '')}`)
+      .join(' + ');
+  return `${side(-1)} = ${side(1)}`;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Oxidation states
+
+const ALKALI = new Set(['Li', 'Na', 'K', 'Rb', 'Cs', 'Fr']);
+const ALKALINE_EARTH = new Set(['Be', 'Mg', 'Ca', 'Sr', 'Ba', 'Ra']);
+const HALOGENS = new Set(['Cl', 'Br', 'I', 'At']);
+/** Non-metals and metalloids (for the metal-hydride rule). */
+const NON_METALS = new Set(['H', 'He', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Si', 'P', 'S', 'Cl', 'Ar', 'Ge', 'As', 'Se', 'Br', 'Kr', 'Sb', 'Te', 'I', 'Xe', 'At', 'Rn']);
+
+/**
+ * Oxidation state of every element of a species by the usual textbook rules, or undefined when
+ * the rules do not decide it. Rules in order: an element alone has charge/count; F −1; alkali +1;
+ * alkaline-earth +2; H +1 (−1 when every other element is a metal: metal hydrides); O −2, or by
+ * difference when O is the only element left (peroxides H2O2, HO2⁻: −1; superoxides −½);
+ * Cl/Br/I −1 when the species has no O; the one element left (S, N, C, a metal…) by difference
+ * from the charge; if two or more are left and some are halogens, the halogens are taken as −1.
+ * Results outside −4…+8 are rejected as undecided.
+ * Worked examples: H2O → H +1, O −2; MnO4⁻ → Mn +7; H2O2 → O −1; Fe3O4 → Fe +8/3.
+ */
+export function oxidationStates(elements: Record<string, number>, charge: number): Record<string, number> | undefined {
+  const els = Object.keys(elements);
+  if (els.length === 0) return undefined;
+  if (els.length === 1) return { [els[0]!]: charge / elements[els[0]!]! };
+  const st: Record<string, number> = {};
+  const set = (el: string, v: number) => {
+    if (el in elements && st[el] === undefined) st[el] = v;
+  };
+  set('F', -1);
+  for (const el of els) {
+    if (ALKALI.has(el)) set(el, 1);
+    if (ALKALINE_EARTH.has(el)) set(el, 2);
+  }
+  if ('H' in elements) set('H', els.every((e) => e === 'H' || !NON_METALS.has(e)) ? -1 : 1);
+  const open = () => els.filter((e) => st[e] === undefined);
+  const byDifference = (el: string) => {
+    let sum = 0;
+    for (const e of els) if (e !== el) sum += st[e]! * elements[e]!;
+    st[el] = (charge - sum) / elements[el]!;
+  };
+  if ('O' in elements && st.O === undefined) {
+    const rest = open();
+    if (rest.length === 1) byDifference('O');
+    else set('O', -2);
+  }
+  if (!('O' in elements)) for (const el of els) if (HALOGENS.has(el)) set(el, -1);
+  let rest = open();
+  if (rest.length > 1 && rest.some((e) => HALOGENS.has(e))) {
+    for (const el of rest) if (HALOGENS.has(el)) set(el, -1);
+    rest = open();
+  }
+  if (rest.length === 1) byDifference(rest[0]!);
+  else if (rest.length > 1) return undefined;
+  if (Object.values(st).some((v) => !Number.isFinite(v) || v > 8 + 1e-9 || v < -4 - 1e-9)) return undefined;
+  return st;
+}
+
+/**
+ * Electrons transferred in a full reaction: for each element, the amount of oxidation-number
+ * decrease from the left side to the right side, moving atoms as little as possible (so a
+ * disproportionation 2Cu⁺ = Cu + Cu²⁺ counts 1), summed over elements:
+ *   down_el = (W_el + D_el)/2,  W = Σ|CDF_left − CDF_right|·Δs (1-D transport distance),
+ *   D = Σ a_left·s − Σ a_right·s (net decrease).
+ * Returns undefined when an oxidation state cannot be decided. Example: 2H2O = 2H2 + O2 → 4.
+ */
+export function electronsTransferred(terms: readonly { side: -1 | 1; coefficient: number; elements: Record<string, number>; charge: number }[]): number | undefined {
+  const perElement = new Map<string, Map<number, number>>(); // el → state → (left − right) amount
+  for (const t of terms) {
+    const ox = oxidationStates(t.elements, t.charge);
+    if (!ox) return undefined;
+    for (const [el, c] of Object.entries(t.elements)) {
+      const s = Number(ox[el]!.toPrecision(12));
+      const m = perElement.get(el) ?? new Map<number, number>();
+      m.set(s, (m.get(s) ?? 0) - t.side * c * t.coefficient);
+      perElement.set(el, m);
+    }
+  }
+  let n = 0;
+  for (const m of perElement.values()) {
+    const states = [...m.keys()].sort((a, b) => a - b);
+    let cdf = 0;
+    let w = 0;
+    let d = 0;
+    states.forEach((s, k) => {
+      const a = m.get(s)!;
+      d += a * s;
+      cdf += a;
+      if (k + 1 < states.length) w += Math.abs(cdf) * (states[k + 1]! - s);
+    });
+    n += (w + d) / 2;
+  }
+  return Number(n.toPrecision(10));
+}
+
+// ---------------------------------------------------------------------------------------------
+// Energies and potentials
+
+/**
+ * H2(g) at 25 °C, used to complete a half-reaction with the SHE when the resolver has no H2(g):
+ * ΔfG° = ΔfH° = 0, S° = 130.684, Cp° = 28.824 J/(mol·K) — NBS Tables of Chemical Thermodynamic
+ * Properties (Wagman et al., 1982), recalled from memory.
+ */
+const H2_FALLBACK: SpeciesData = {
+  dfG: 0,
+  dfH: 0,
+  S: 130.684,
+  Cp: 28.824,
+  elements: { H: 2 },
+  charge: 0,
+  phase: 'g',
+  source: 'NBS Tables (Wagman et al., 1982), recalled from memory',
+};
+
+export type CellDirection = 'reduction' | 'oxidation' | 'electrolytic' | 'galvanic';
+
+export interface CellResult {
+  reaction: string;
+  kind: 'half' | 'full';
+  temperature: { celsius: number; kelvin: number };
+  n: number;
+  /** How n was found: the electrons written, the oxidation-state count, or given by the user. */
+  nFrom: 'written' | 'oxidation states' | 'given';
+  /** kJ/mol (half-reactions: completed with the SHE, as written). */
+  deltaG: number;
+  deltaH: number | null;
+  /** J/(mol·K). */
+  deltaS: number | null;
+  /** V: electrode potential vs SHE (half) or cell voltage magnitude (full). */
+  equilibriumPotential: number;
+  thermoneutralPotential: number | null;
+  /** V/K: slope of `equilibriumPotential`. */
+  dEdT: number | null;
+  direction: CellDirection;
+  scale: string;
+  convention: string;
+  signed: { equilibriumPotential: number; thermoneutralPotential: number | null; dEdT: number | null };
+  /** Half-reactions with `reference`: the same potentials against that electrode. */
+  reference?: { label: string; offset: number; equilibriumPotential: number; thermoneutralPotential: number | null };
+  species: { formula: string; phase: Phase | null; coefficient: number; source: string }[];
+  warnings: string[];
+}
+
+const HALF_CONVENTION =
+  'Electrode potential of the couple written as a reduction (ox + n e- = red), on the SHE scale at the same temperature: ' +
+  'E = -ΔrG/(nF) with the electrons supplied by the SHE (n/2 H2 = n H+ + n e-); thermoneutral potential -ΔrH/(nF); ' +
+  'dE/dT = ΔrS/(nF). Unit activities, gases at 1 bar.';
+const FULL_CONVENTION =
+  'Cell voltage |ΔrG|/(nF) of the reaction as written: electrolytic when ΔrG > 0 (must be driven), galvanic when ΔrG < 0 ' +
+  '(delivers work); thermoneutral voltage ΔrH/(nF) if electrolytic, -ΔrH/(nF) if galvanic; dEdT is the slope of the reported ' +
+  'voltage; "signed" gives -ΔrG/(nF), -ΔrH/(nF) and ΔrS/(nF). Unit activities, gases at 1 bar.';
+
+interface Resolved {
+  nu: number; // net coefficient, products positive
+  data: SpeciesData;
+  name: string;
+}
+
+interface Prepared {
+  parsed: ParsedReaction;
+  kind: 'half' | 'full';
+  n: number;
+  nFrom: CellResult['nFrom'];
+  /** Sign of the reaction as written relative to the reduction (half-reactions): +1 reduction, −1 oxidation. */
+  sense: 1 | -1;
+  resolved: Resolved[];
+  species: CellResult['species'];
+  warnings: string[];
+}
+
+const isProton = (t: Term) => !t.electron && t.charge === 1 && Object.keys(t.elements).length === 1 && t.elements.H === 1 && (t.phase === undefined || t.phase === 'aq');
+
+/** Parses, balances, counts electrons and resolves species once; evaluate with `evaluateCell`. */
+export function prepareCell(text: string, opts: CellOptions): Prepared {
+  const parsed = parseReaction(text);
+  const warnings = [...parsed.warnings];
+  const src = parsed.text;
+  const nuE = parsed.terms.filter((t) => t.electron).reduce((a, t) => a + t.side * t.coefficient, 0);
+  let kind: 'half' | 'full';
+  let n: number;
+  let nFrom: CellResult['nFrom'];
+  let sense: 1 | -1 = 1;
+  if (opts.electrons !== undefined && !(opts.electrons > 0 && Number.isFinite(opts.electrons))) {
+    throw new ReactionError(src, 'a positive number of electrons', String(opts.electrons));
+  }
+  if (Math.abs(nuE) > 1e-12) {
+    kind = 'half';
+    n = Math.abs(nuE);
+    nFrom = 'written';
+    sense = nuE < 0 ? 1 : -1;
+    if (opts.electrons !== undefined && Math.abs(opts.electrons - n) > 1e-9) {
+      throw new ReactionError(src, `the ${n} electron(s) written in the half-reaction (or no electrons option)`, `${opts.electrons} electrons`);
+    }
+    if (sense < 0) warnings.push('half-reaction written as an oxidation: the potentials given are those of the couple (reduction direction)');
+  } else {
+    kind = 'full';
+    const found = electronsTransferred(parsed.terms.filter((t) => !t.electron));
+    if (opts.electrons !== undefined) {
+      n = opts.electrons;
+      nFrom = 'given';
+      if (found !== undefined && found > 0 && Math.abs(found - n) > 1e-9) {
+        warnings.push(`the oxidation-state count gives n = ${found}; the given n = ${n} is used`);
+      }
+    } else if (found === undefined) {
+      throw new ReactionError(src, 'species whose oxidation states follow from the usual rules', 'an undecided oxidation state; give the number of electrons transferred (--electrons N)');
+    } else if (!(found > 1e-9)) {
+      throw new ReactionError(src, 'a redox reaction (some oxidation state changes)', 'no electron transfer; give --electrons N if one is meant');
+    } else {
+      n = found;
+      nFrom = 'oxidation states';
+    }
+  }
+
+  // Net coefficients by species (electrons replaced by ½H2(g) − H⁺, H⁺ zero on the conventional scale).
+  const net = new Map<string, { term: Term; nu: number }>();
+  const species: CellResult['species'] = [];
+  for (const t of parsed.terms) {
+    if (t.electron || isProton(t)) {
+      species.push({
+        formula: t.electron ? 'e-' : 'H+',
+        phase: t.electron ? null : 'aq',
+        coefficient: t.side * t.coefficient,
+        source: t.electron ? 'SHE at the same temperature (½H2 = H+ + e-)' : 'conventional scale: zero at every temperature',
+      });
+      continue;
+    }
+    const key = `${t.formula}|${t.phase ?? ''}`;
+    const e = net.get(key) ?? { term: t, nu: 0 };
+    e.nu += t.side * t.coefficient;
+    net.set(key, e);
+  }
+  const resolved: Resolved[] = [];
+  for (const { term, nu } of net.values()) {
+    const name = term.formula + (term.phase ? `(${term.phase})` : '');
+    const data = opts.lookup(term.formula, term.phase);
+    if (!data) throw new ReactionError(src, 'species known to the built-in library or the system file', JSON.stringify(name));
+    species.push({ formula: term.formula, phase: data.phase ?? term.phase ?? null, coefficient: nu, source: data.source ?? 'not given' });
+    if (Math.abs(nu) > 1e-12) resolved.push({ nu, data, name });
+  }
+  if (kind === 'half') {
+    const h2 = opts.lookup('H2', 'g') ?? H2_FALLBACK;
+    resolved.push({ nu: nuE / 2, data: h2, name: 'H2(g) (SHE)' });
+    species.push({ formula: 'H2', phase: 'g', coefficient: nuE / 2, source: `SHE completion; ${h2.source ?? 'not given'}` });
+  }
+  return { parsed, kind, n, nFrom, sense, resolved, species, warnings };
+}
+
+/** Evaluates a prepared reaction at `celsius` (see module comment for the formulas). */
+export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH'> = {}): CellResult {
+  if (!Number.isFinite(celsius) || celsius <= -KELVIN) throw new ReactionError(p.parsed.text, 'a temperature in °C above −273.15', String(celsius));
+  const mode = opts.extrapolation ?? 'cp';
+  const T = celsius + KELVIN;
+  const at25 = Math.abs(T - T_REF) < 1e-9;
+  const warnings = [...p.warnings];
+  if (celsius < 0 || celsius > 300) warnings.push(`${celsius} °C is outside 0–300 °C, where the data extrapolation is meant to hold`);
+
+  let dG = 0;
+  let dH: number | null = 0;
+  let dS: number | null = 0;
+  const noS = p.resolved.filter((r) => r.data.S === undefined).map((r) => r.name);
+  const noH = p.resolved.filter((r) => r.data.dfH === undefined).map((r) => r.name);
+  if (noS.length === 0) {
+    for (const { nu, data } of p.resolved) {
+      dG += nu * apparentG(data, T, mode);
+      dS += nu * entropyAt(data, T, mode);
+      if (dH !== null) dH = data.dfH === undefined ? null : dH + nu * apparentH(data, T, mode);
+    }
+  } else {
+    // Reaction-level route when some S° are missing: ΔrS° = (ΔrH° − ΔrG°)/T_r, then constant ΔCp.
+    const G0 = p.resolved.reduce((a, r) => a + r.nu * r.data.dfG, 0);
+    if (noH.length > 0) {
+      if (!at25) {
+        throw new ReactionError(p.parsed.text, 'S° or ΔfH° for every species away from 25 °C', `only ΔfG° for ${noH.filter((x) => noS.includes(x)).join(', ')}`);
+      }
+      dG = G0;
+      dH = null;
+      dS = null;
+    } else {
+      const H0 = p.resolved.reduce((a, r) => a + r.nu * r.data.dfH!, 0);
+      const S0 = ((H0 - G0) * 1000) / T_REF;
+      const dCp = mode === 'cp' ? p.resolved.reduce((a, r) => a + r.nu * (r.data.Cp ?? 0), 0) : 0;
+      dH = H0 + (dCp * (T - T_REF)) / 1000;
+      dS = S0 + dCp * Math.log(T / T_REF);
+      dG = dH - (T * dS) / 1000;
+      if (!at25) warnings.push(`no S° for ${noS.join(', ')}: ΔrS° taken from (ΔrH° − ΔrG°)/298.15 K`);
+    }
+  }
+  if (!at25 && Math.abs(T - T_REF) > 50) {
+    if (mode === 'cp') {
+      const noCp = p.resolved.filter((r) => r.data.Cp === undefined).map((r) => r.name);
+      if (noCp.length > 0) warnings.push(`no Cp° for ${noCp.join(', ')}: taken as 0 at ${celsius} °C, more than 50 K from 25 °C`);
+    } else {
+      warnings.push(`constant ΔrH and ΔrS used ${Math.abs(celsius - 25).toFixed(0)} K from 25 °C: expect errors of some mV`);
+    }
+  }
+
+  const nF = (p.n * F) / 1000; // kJ/(mol·V)
+  const dHv = dH;
+  const dSv = dS;
+  let E: number;
+  let Etn: number | null;
+  let slope: number | null;
+  let signed: CellResult['signed'];
+  let direction: CellDirection;
+  if (p.kind === 'half') {
+    // Reduction direction: ΔG_red = sense·ΔG.
+    E = (-p.sense * dG) / nF;
+    Etn = dHv === null ? null : (-p.sense * dHv) / nF;
+    slope = dSv === null ? null : (p.sense * dSv) / (p.n * F);
+    signed = { equilibriumPotential: E, thermoneutralPotential: Etn, dEdT: slope };
+    direction = p.sense > 0 ? 'reduction' : 'oxidation';
+  } else {
+    direction = dG > 0 ? 'electrolytic' : 'galvanic';
+    const s = direction === 'electrolytic' ? 1 : -1;
+    E = (s * dG) / nF;
+    Etn = dHv === null ? null : (s * dHv) / nF;
+    slope = dSv === null ? null : (-s * dSv) / (p.n * F);
+    signed = {
+      equilibriumPotential: -dG / nF,
+      thermoneutralPotential: dHv === null ? null : -dHv / nF,
+      dEdT: dSv === null ? null : dSv / (p.n * F),
+    };
+  }
+  const result: CellResult = {
+    reaction: p.parsed.text,
+    kind: p.kind,
+    temperature: { celsius, kelvin: T },
+    n: p.n,
+    nFrom: p.nFrom,
+    deltaG: dG,
+    deltaH: dHv,
+    deltaS: dSv,
+    equilibriumPotential: E,
+    thermoneutralPotential: Etn,
+    dEdT: slope,
+    direction,
+    scale: p.kind === 'half' ? 'V vs SHE' : 'V (cell voltage)',
+    convention: p.kind === 'half' ? HALF_CONVENTION : FULL_CONVENTION,
+    signed,
+    species: p.species,
+    warnings,
+  };
+  if (opts.reference !== undefined) {
+    if (p.kind === 'half') {
+      let ref;
+      try {
+        ref = referenceOffset(opts.reference, celsius, opts.pH);
+      } catch (e) {
+        throw new ReactionError(p.parsed.text, 'a known reference electrode (and the pH for RHE)', (e as Error).message);
+      }
+      warnings.push(...ref.warnings);
+      result.reference = {
+        label: ref.label,
+        offset: ref.offset,
+        equilibriumPotential: E - ref.offset,
+        thermoneutralPotential: Etn === null ? null : Etn - ref.offset,
+      };
+    } else {
+      warnings.push('a reference electrode applies to half-reactions only; the cell voltage does not depend on it');
+    }
+  }
+  return result;
+}
+
+/** One reaction at one temperature (default 25 °C); see module comment. */
+export function cellReaction(text: string, opts: CellOptions): CellResult {
+  return evaluateCell(prepareCell(text, opts), opts.celsius ?? 25, opts);
+}
+
+/** Temperatures from `from` to `to` (°C) in steps of `step`, `to` included when reached; at most 1001. */
+export function temperatureSteps(from: number, to: number, step: number): number[] {
+  if (![from, to, step].every(Number.isFinite)) throw new RangeError('temperature range: numbers expected');
+  if (!(step > 0)) throw new RangeError('temperature range: the step must be greater than 0');
+  if (to < from) throw new RangeError('temperature range: the end must not be below the start');
+  const count = Math.floor((to - from) / step + 1e-9) + 1;
+  if (count > 1001) throw new RangeError(`temperature range: ${count} rows, at most 1001`);
+  return Array.from({ length: count }, (_, k) => Number((from + k * step).toPrecision(12)));
+}
+
+/** The reaction over a range of temperatures (°C): one result per row. */
+export function cellTable(text: string, temperatures: readonly number[], opts: CellOptions): CellResult[] {
+  const p = prepareCell(text, opts);
+  return temperatures.map((t) => evaluateCell(p, t, opts));
+}
