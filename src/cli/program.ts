@@ -6,6 +6,20 @@ import { Command, CommanderError } from 'commander';
 import { InputError } from '../system/errors.js';
 import { registerCatalog, registerCore } from './core.js';
 import { registerDemo } from './demo.js';
+import { registerWindow } from './window.js';
+import { registerCell } from './cell.js';
+import { findAllSpecies, loadLibrary } from '../data/library.js';
+import type { SpeciesLookup } from '../report/cell.js';
+
+/** Species for `cell` from the built-in library: by formula and phase (a default phase when none is given). */
+const libraryLookup: SpeciesLookup = (formula, phase) => {
+  const key = phase ? `${formula}(${phase})` : formula;
+  const hits = findAllSpecies(loadLibrary(), key);
+  const pref = ['s', 'l', 'aq', 'g'];
+  const hit = [...hits].sort((a, b) => pref.indexOf(a.phase) - pref.indexOf(b.phase))[0];
+  if (!hit) return undefined;
+  return { dfG: hit.dfG, dfH: hit.dfH, S: hit.S, Cp: hit.Cp, elements: hit.elements, charge: hit.charge, phase: hit.phase, source: hit.sourceText };
+};
 
 export function makeProgram(): Command {
   const program = new Command();
@@ -18,6 +32,8 @@ export function makeProgram(): Command {
   registerCore(program);
   registerDemo(program);
   registerCatalog(program);
+  registerWindow(program);
+  registerCell(program, { lookup: libraryLookup });
   return program;
 }
 

@@ -5,6 +5,7 @@
  */
 import { type Formula, parseFormula, splitPhase } from '../chem/formula.js';
 import { elementEntropy } from '../data/element-entropies.js';
+import { LIGAND_DEFAULTS } from '../data/ligand-sets.js';
 import { type LibrarySpecies, findSpecies, loadLibrary, pickAlternative, speciesFor } from '../data/library.js';
 import type { Phase } from '../model.js';
 import type { LigandInput, SolverInput, SolverSpecies } from '../solve/types.js';
@@ -61,7 +62,7 @@ function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
 
 export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; water: BuiltSystem['water'] } {
   const lib = loadLibrary();
-  const ligandEls = Object.keys(spec.ligands);
+  const ligandEls = Object.values(spec.ligandGroups).flatMap((g) => Object.keys(g));
   let list: ResolvedSpecies[];
   const water: Partial<BuiltSystem['water']> = {};
   if (spec.species) {
@@ -85,6 +86,7 @@ export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; wat
   } else {
     const metaAll = spec.metastable === true;
     list = speciesFor(lib, spec.element, ligandEls, { metastable: metaAll }).map((s) => ({ ...fromLibrary(s, `library ${s.file}: ${s.formula}`), implicit: true }));
+    list = list.filter((s) => keepLigandSpecies(spec, s));
     if (Array.isArray(spec.metastable)) {
       for (const m of spec.metastable) {
         const hit = findSpecies(lib, m);
@@ -122,6 +124,43 @@ export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; wat
   return { main: list, water: water as BuiltSystem['water'] };
 }
 
+/**
+ * Library mode: a ligand's own species (no main element) are its default family unless the system
+ * file says otherwise (data/ligand-sets.ts); species that do not group into whole ligand units
+ * (e.g. CO2 when the ligand is the CN group) are left out.
+ */
+function keepLigandSpecies(spec: SystemSpec, s: ResolvedSpecies): boolean {
+  const grouped = groupElements(s.f.elements, spec.ligandGroups);
+  if (!grouped) return false;
+  if ((s.f.elements[spec.element] ?? 0) > 0) return true;
+  const L = Object.keys(spec.ligandGroups).find((k) => (grouped[k] ?? 0) > 0);
+  if (!L) return true;
+  const choice = spec.ligandSpecies[L];
+  if (choice === 'all') return true;
+  if (Array.isArray(choice)) return choice.some((x) => splitPhase(x).formula === s.formula && (!splitPhase(x).phase || splitPhase(x).phase === s.phase));
+  const def = LIGAND_DEFAULTS[L];
+  return def ? s.phase === 'aq' && def.species.includes(s.formula) : true;
+}
+
+/**
+ * Element counts with each group ligand (e.g. CN → {C: 1, N: 1}) replaced by its own count, or null
+ * when a species holds a group's elements in other proportions (not whole units of the group).
+ */
+export function groupElements(elements: Record<string, number>, groups: Record<string, Record<string, number>>): Record<string, number> | null {
+  const out: Record<string, number> = { ...elements };
+  for (const [key, comp] of Object.entries(groups)) {
+    const els = Object.keys(comp);
+    if (els.length === 1 && els[0] === key) continue;
+    const present = els.filter((e) => (out[e] ?? 0) > 0);
+    if (present.length === 0) continue;
+    const k = (out[els[0]] ?? 0) / comp[els[0]];
+    if (!(k > 0) || !els.every((e) => Math.abs((out[e] ?? 0) - k * comp[e]) < 1e-9)) return null;
+    for (const e of els) delete out[e];
+    out[key] = k;
+  }
+  return out;
+}
+
 /** Carry data to T; S° from ΔfH° where missing; error where neither is there. */
 function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: string[]): number {
   if (Math.abs(spec.temperature - 25) > 1e-9) {
@@ -156,16 +195,26 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
   };
   const ligandEls = Object.keys(spec.ligands);
   const allowed = new Set([spec.element, ...ligandEls, 'H', 'O']);
+  const groupEls = new Set(Object.values(spec.ligandGroups).flatMap((g) => Object.keys(g)));
   const main: SolverSpecies[] = [];
   const ligandSpecies = new Map<string, SolverSpecies[]>(ligandEls.map((L) => [L, []]));
   const sources = new Set<string>();
-  for (const s of resolved) {
+  for (const s0 of resolved) {
+    const grouped = groupElements(s0.f.elements, spec.ligandGroups);
+    if (!grouped) {
+      const g = Object.keys(spec.ligandGroups).find((k) => Object.keys(spec.ligandGroups[k]).some((e) => s0.f.elements[e]));
+      throw new InputError(spec.file, `${s0.field} (${s0.formula})`, `whole units of the ligand group ${g}`);
+    }
+    const s: ResolvedSpecies = { ...s0, f: { ...s0.f, elements: grouped } };
     if (s.implicit && Math.abs(spec.temperature - 25) > 1e-9 && s.S === undefined && s.dfH === undefined) {
       warnings.push(`${s.formula} (${s.phase}) left out at ${spec.temperature} °C: the library has no S° or ΔfH° for it`);
       continue;
     }
     const els = Object.keys(s.f.elements);
     const bad = els.find((e) => !allowed.has(e));
+    if (bad && groupEls.has(bad)) {
+      throw new InputError(spec.file, `${s.field} (${s.formula})`, `whole units of a ligand group (${Object.keys(spec.ligandGroups).filter((k) => spec.ligandGroups[k][bad]).join(', ')})`);
+    }
     if (bad) {
       throw new InputError(spec.file, `${s.field} (${s.formula})`, `only ${[...allowed].join(', ')} (add ${bad} under ligands to use it)`, `element ${bad}`);
     }

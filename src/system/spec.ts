@@ -41,6 +41,10 @@ export interface SystemSpec {
   amount: Amount & { isDefault: boolean };
   ligands: Record<string, number>;
   ligandAmounts: Record<string, Amount>;
+  /** Ligand key → element composition (an element maps to itself; a group such as CN to {C: 1, N: 1}). */
+  ligandGroups: Record<string, Record<string, number>>;
+  /** Per ligand: 'all' or a list of formulas of its own species to use (library mode). */
+  ligandSpecies: Record<string, 'all' | string[]>;
   solution: SolutionSettings;
   pH: [number, number];
   E: [number, number];
@@ -78,6 +82,7 @@ export const TOP_KEYS = [
   'background',
   'activityModel',
   'ionSize',
+  'ligandSpecies',
   'concentration',
   'reference',
   'points',
@@ -117,19 +122,46 @@ export function readSpec(data: unknown, file: string): SystemSpec {
 
   const ligands: Record<string, number> = {};
   const ligandAmounts: Record<string, Amount> = {};
+  const ligandGroups: Record<string, Record<string, number>> = {};
   if (o.ligands !== undefined) {
     if (!o.ligands || typeof o.ligands !== 'object' || Array.isArray(o.ligands)) {
       f.fail('ligands', 'a map of element symbol → total activity, e.g. {S: 1e-3}', o.ligands);
     }
     for (const [k, v] of Object.entries(o.ligands as Record<string, unknown>)) {
-      if (!isElement(k)) f.fail(`ligands.${k}`, 'an element symbol as key (e.g. S, C, Cl, N)', k);
-      if (k === element || k === 'H' || k === 'O') f.fail(`ligands.${k}`, 'a ligand element other than the main element, H and O', k);
+      const what = 'an element symbol (e.g. S, C, Cl, N) or a neutral group formula such as CN as key';
+      let comp: Record<string, number>;
+      if (isElement(k)) comp = { [k]: 1 };
+      else {
+        try {
+          const g = parseFormula(k);
+          if (g.charge !== 0 || Object.keys(g.elements).length < 2) f.fail(`ligands.${k}`, what, k);
+          comp = g.elements;
+        } catch (e) {
+          if (e instanceof FormulaError) f.fail(`ligands.${k}`, what, k);
+          throw e;
+        }
+      }
+      for (const el of Object.keys(comp)) {
+        if (el === element || el === 'H' || el === 'O') f.fail(`ligands.${k}`, 'a ligand without the main element, H or O', k);
+        for (const [other, oc] of Object.entries(ligandGroups)) {
+          if (oc[el]) f.fail(`ligands.${k}`, `ligands that share no element (${el} is already in ${other})`, k);
+        }
+      }
+      ligandGroups[k] = comp;
       const a = readAmount(f, v, `ligands.${k}`);
       ligandAmounts[k] = a;
       ligands[k] = a.value;
     }
   }
 
+  const ligandSpecies: Record<string, 'all' | string[]> = {};
+  if (o.ligandSpecies !== undefined) {
+    if (!o.ligandSpecies || typeof o.ligandSpecies !== 'object' || Array.isArray(o.ligandSpecies)) f.fail('ligandSpecies', 'a map of ligand → "all" or a list of formulas', o.ligandSpecies);
+    for (const [k, v] of Object.entries(o.ligandSpecies as Record<string, unknown>)) {
+      if (!(k in ligandGroups)) f.fail(`ligandSpecies.${k}`, `a ligand named under ligands (${Object.keys(ligandGroups).join(', ') || 'none given'})`, k);
+      ligandSpecies[k] = v === 'all' ? 'all' : f.stringList(v, `ligandSpecies.${k}`);
+    }
+  }
   const pH = f.range(o.pH, 'pH', [0, 14], { min: -3, max: 17, unit: 'pH' });
   const E = f.range(o.E, 'E', [-2, 2], { min: -5, max: 5, unit: 'V vs SHE' });
   const exclude = o.exclude === undefined ? [] : f.stringList(o.exclude, 'exclude');
@@ -173,7 +205,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];
   }
-  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, solution, pH, E, exclude, species, gases, metastable, pick, extrapolation, title, grid, extra, warnings };
+  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, pH, E, exclude, species, gases, metastable, pick, extrapolation, title, grid, extra, warnings };
 }
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {

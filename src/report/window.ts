@@ -1,0 +1,135 @@
+/**
+ * The plating window: pH ranges where a dissolved form of the metal lies directly above the metal
+ * (so the bath holds the metal in solution and deposits it on the cathode), with the deposition
+ * potential (the metal/dissolved boundary) and its margin to the hydrogen line.
+ *
+ * Steps: 1. breakpoints: every polygon vertex pH (topology along a vertical line is constant between
+ *           them); 2. at each interval's midpoint, the E intervals of every region on the vertical line,
+ *           sorted: the region directly above the metal's; 3. runs of intervals where that region is
+ *           dissolved form a window; 4. along a window, E_dep(pH) is the metal's upper edge (exact,
+ *           piecewise linear), margin = E_dep − E_H2(pH); 5. the solid that takes over at each end.
+ */
+import type { DiagramModel, RegionModel } from '../model.js';
+
+export interface WindowResult {
+  element: string;
+  temperature: { celsius: number };
+  windows: PlatingWindow[];
+  /** pH where a solid first replaces the dissolved form above the metal, rising from the window. */
+  firstSolid: { pH: number; species: string } | null;
+  notes: string[];
+}
+
+export interface PlatingWindow {
+  pH: [number, number];
+  /** Dissolved species above the metal across the window (in pH order). */
+  dissolved: string[];
+  /** Deposition potential E_dep (V vs SHE) at the window's breakpoints. */
+  deposition: { pH: number; E: number }[];
+  /** E_dep − E(H2/H+) in V: positive where the metal deposits before hydrogen evolves. */
+  marginToHydrogen: { min: number; max: number; atLowPH: number; atHighPH: number };
+  /** The species that bound the window below and above (null at the diagram edge). */
+  boundedBy: { low: string | null; high: string | null };
+}
+
+/** E intervals of a region on the vertical line pH = x (union over its polygons, holes removed). */
+function intervalsAt(r: RegionModel, x: number): [number, number][] {
+  const out: [number, number][] = [];
+  for (const poly of r.polygons) {
+    const ys: number[] = [];
+    for (const ring of poly) {
+      for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+        const [x1, y1] = ring[j];
+        const [x2, y2] = ring[i];
+        if ((x1 <= x && x < x2) || (x2 <= x && x < x1)) ys.push(y1 + ((x - x1) / (x2 - x1)) * (y2 - y1));
+      }
+    }
+    ys.sort((a, b) => a - b);
+    for (let k = 0; k + 1 < ys.length; k += 2) out.push([ys[k], ys[k + 1]]);
+  }
+  return out;
+}
+
+interface Column {
+  /** Region above the metal (its index), or -1 when no metal region or nothing above it. */
+  above: number;
+  /** Top of the metal's interval. */
+  top: number | null;
+}
+
+function column(model: DiagramModel, x: number): Column {
+  const spans: { k: number; lo: number; hi: number }[] = [];
+  model.regions.forEach((r, k) => {
+    for (const [lo, hi] of intervalsAt(r, x)) spans.push({ k, lo, hi });
+  });
+  spans.sort((a, b) => a.lo - b.lo);
+  // The lowest metal interval: deposition happens at its top.
+  const metal = spans.find((s) => model.regions[s.k].class === 'element');
+  if (!metal) return { above: -1, top: null };
+  const next = spans.find((s) => Math.abs(s.lo - metal.hi) < 1e-9 && s.k !== metal.k);
+  return { above: next ? next.k : -1, top: metal.hi };
+}
+
+export function platingWindow(model: DiagramModel): WindowResult {
+  const [p0, p1] = model.domain.pH;
+  // Step 1: breakpoints.
+  const xs = new Set<number>([p0, p1]);
+  for (const r of model.regions) for (const poly of r.polygons) for (const ring of poly) for (const [x] of ring) if (x > p0 && x < p1) xs.add(x);
+  const bps = [...xs].sort((a, b) => a - b).filter((x, k, a) => k === 0 || x - a[k - 1] > 1e-9);
+  // Step 2: classify each interval.
+  const cols = bps.slice(0, -1).map((a, k) => ({ a, b: bps[k + 1], col: column(model, (a + bps[k + 1]) / 2) }));
+  const isWin = (c: Column) => c.above >= 0 && model.regions[c.above].class === 'dissolved';
+  const sH = model.waterLines.hydrogen.line;
+  const eH2 = (x: number) => sH.intercept! + sH.slope! * x;
+  // Step 4: deposition potential at a pH inside or at the edge of a window interval.
+  const dep = (x: number, inside: number) => {
+    const c = column(model, x === inside ? x : x + (inside - x) * 1e-9);
+    return c.top!;
+  };
+  const windows: PlatingWindow[] = [];
+  let k = 0;
+  while (k < cols.length) {
+    if (!isWin(cols[k].col)) {
+      k++;
+      continue;
+    }
+    // Step 3: a run of window intervals.
+    let j = k;
+    while (j + 1 < cols.length && isWin(cols[j + 1].col)) j++;
+    const a = cols[k].a;
+    const b = cols[j].b;
+    const points: { pH: number; E: number }[] = [];
+    for (let m = k; m <= j; m++) {
+      const mid = (cols[m].a + cols[m].b) / 2;
+      if (m === k) points.push({ pH: a, E: dep(a, mid) });
+      points.push({ pH: cols[m].b, E: dep(cols[m].b, mid) });
+    }
+    const margins = points.map((p) => p.E - eH2(p.pH));
+    const dissolved: string[] = [];
+    for (let m = k; m <= j; m++) {
+      const sp = model.regions[cols[m].col.above].species;
+      if (!dissolved.includes(sp)) dissolved.push(sp);
+    }
+    // Step 5: what bounds it.
+    const nameOf = (c: Column | undefined) => (c && c.above >= 0 ? model.regions[c.above].species : null);
+    windows.push({
+      pH: [a, b],
+      dissolved,
+      deposition: points,
+      marginToHydrogen: { min: Math.min(...margins), max: Math.max(...margins), atLowPH: margins[0], atHighPH: margins[margins.length - 1] },
+      boundedBy: { low: k > 0 ? nameOf(cols[k - 1].col) : null, high: j + 1 < cols.length ? nameOf(cols[j + 1].col) : null },
+    });
+    k = j + 1;
+  }
+  let firstSolid: WindowResult['firstSolid'] = null;
+  if (windows.length) {
+    const w = windows[0];
+    const after = cols.find((c) => c.a >= w.pH[1] - 1e-12 && c.col.above >= 0 && model.regions[c.col.above].class === 'solid');
+    if (after) firstSolid = { pH: after.a, species: model.regions[after.col.above].species };
+  }
+  const notes = [
+    'Window: a dissolved species of the element lies directly above the metal, so the bath keeps the metal in solution and deposits it below E_dep.',
+    'marginToHydrogen > 0: the metal deposits at a potential above the hydrogen line (before hydrogen evolution at equilibrium); overpotentials are not included.',
+  ];
+  return { element: model.element, temperature: { celsius: model.temperature.celsius }, windows, firstSolid, notes };
+}
