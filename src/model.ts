@@ -18,6 +18,8 @@ export interface RegionModel {
   species: string;          // formula exactly as in the input
   phase: Phase;
   class: RegionClass;
+  /** Corrosion verdict of the region (reclassifications applied). */
+  verdict?: 'immunity' | 'passivation' | 'corrosion';
   name?: string;
   polygons: Polygon[];
   /** Area in pH·V. */
@@ -79,6 +81,8 @@ export interface DiagramModel {
   /** Ligand predominance underlay (ligand element → its own regions). */
   ligandRegions?: Record<string, RegionModel[]>;
   water?: Record<string, number | string>;
+  /** The scale potentials are shown in, besides SHE (reference electrode), when one is set. */
+  reference?: { id: string; label: string; offset: number };
   warnings: string[];
   sources: string[];
 }

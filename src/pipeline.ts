@@ -7,6 +7,8 @@ import { solve, type Solution } from './solve/solve.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
 import { readSystemFile } from './system/read.js';
 import { readSpec, type SystemSpec } from './system/spec.js';
+import { InputError } from './system/errors.js';
+import { referenceOffset } from './thermo/reference.js';
 
 export interface Computed {
   spec: SystemSpec;
@@ -28,7 +30,17 @@ export function compute(spec: SystemSpec): Computed {
     sources: built.sources,
     warnings: built.warnings,
     water: waterSummary(built),
+    classes: spec.operating.classes,
   });
+  const ref = spec.operating.reference;
+  if (ref !== undefined && !(typeof ref === 'string' && ref === 'rhe') && !(typeof ref === 'string' && ref === 'she')) {
+    const r = referenceOffset(ref, spec.temperature);
+    model.reference = { id: typeof ref === 'string' ? ref : 'custom', label: r.label, offset: r.offset };
+    model.warnings.push(...r.warnings);
+  }
+  for (const k of Object.keys(spec.operating.classes)) {
+    if (!model.species.some((x) => x.formula === k)) throw new InputError(spec.file, `classes.${k}`, 'a formula of a species in the system', JSON.stringify(k));
+  }
   return { spec, built, solution, model };
 }
 

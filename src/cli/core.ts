@@ -6,7 +6,6 @@ import type { Command } from 'commander';
 import { compute, computeFile, loadSpec } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
-import { probe } from '../report/probe.js';
 import { InputError } from '../system/errors.js';
 import { writeAtomic } from './write.js';
 import { isElement } from '../chem/elements.js';
@@ -61,27 +60,6 @@ export function registerCore(program: Command): void {
     });
 
   program
-    .command('probe')
-    .description('the predominant species at one point, evaluated exactly')
-    .argument('<file>', 'system file')
-    .requiredOption('--ph <pH>', 'pH at the point')
-    .requiredOption('--potential <volts>', 'potential at the point, V vs SHE')
-    .option('--json', 'machine-readable output')
-    .action((file: string, opts: { ph: string; potential: string; json?: boolean }) => {
-      const pH = num(opts.ph, '--ph', 'a pH value (number)');
-      const E = num(opts.potential, '--potential', 'a potential in V (number)');
-      const spec = loadSpec(file);
-      // Evaluate on a domain that contains the point.
-      spec.pH = [Math.min(spec.pH[0], pH - 0.5), Math.max(spec.pH[1], pH + 0.5)];
-      spec.E = [Math.min(spec.E[0], E - 0.1), Math.max(spec.E[1], E + 0.1)];
-      const c = compute(spec);
-      warn(c.model.warnings);
-      const r = probe(c, pH, E);
-      if (opts.json) process.stdout.write(stableJson(r));
-      else process.stdout.write(probeText(r));
-    });
-
-  program
     .command('lines')
     .description('every boundary reaction and line equation')
     .argument('<file>', 'system file')
@@ -107,16 +85,4 @@ export function registerCatalog(program: Command): void {
       if (opts.json) process.stdout.write(stableJson(entries));
       else process.stdout.write(entries.length ? catalogText(entries) : `no species of ${element} in the library\n`);
     });
-}
-
-function probeText(r: ReturnType<typeof probe>): string {
-  const f = (v: number | null, d: number, unit: string) => (v === null ? 'none in range' : `${v >= 0 ? '+' : ''}${v.toFixed(d)} ${unit}`);
-  const lines = [
-    `point: pH ${r.pH}, E ${r.E} V vs SHE, ${r.temperature.celsius} °C`,
-    `predominant: ${r.predominant} (${r.class})`,
-    `runner-up:   ${r.runnerUp ?? 'none'}  (margin ${r.margin.kJPerMol.toFixed(3)} kJ/mol of element${r.margin.potentialV !== null ? `, ${(r.margin.potentialV * 1000).toFixed(1)} mV` : ''})`,
-    `to cross a boundary: E ${f(r.shifts.up, 4, 'V')} / ${f(r.shifts.down, 4, 'V')}; pH ${f(r.shifts.acid, 3, '')} / ${f(r.shifts.alkaline, 3, '')}`,
-  ];
-  if (r.nearestBoundary) lines.push(`nearest boundary: ${r.nearestBoundary.between.join(' / ')}: ${r.nearestBoundary.reaction}  [${r.nearestBoundary.equation}]`);
-  return `${lines.join('\n')}\n`;
 }

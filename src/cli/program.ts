@@ -7,6 +7,7 @@ import { InputError } from '../system/errors.js';
 import { registerCatalog, registerCore } from './core.js';
 import { registerDemo } from './demo.js';
 import { registerWindow } from './window.js';
+import { registerProbe } from './probe.js';
 import { registerCell } from './cell.js';
 import { findAllSpecies, loadLibrary } from '../data/library.js';
 import type { SpeciesLookup } from '../report/cell.js';
@@ -30,6 +31,7 @@ export function makeProgram(): Command {
     .exitOverride()
     .configureOutput({ writeErr: (s) => process.stderr.write(s) });
   registerCore(program);
+  registerProbe(program);
   registerDemo(program);
   registerCatalog(program);
   registerWindow(program);

@@ -6,6 +6,7 @@ import type { Solution } from '../solve/solve.js';
 import type { SolverInput, SolverSpecies } from '../solve/types.js';
 import { KELVIN } from '../thermo/constants.js';
 import { classify } from './classify.js';
+import { type Verdict, verdictOf } from './verdict.js';
 
 export const VERSION = '0.1.0';
 
@@ -34,14 +35,15 @@ function round(v: number, d: number): number {
 export function buildModel(
   input: SolverInput,
   sol: Solution,
-  meta: { activity: number; ligands: Record<string, number>; sources: string[]; warnings: string[]; water?: Record<string, number | string> },
+  meta: { activity: number; ligands: Record<string, number>; sources: string[]; warnings: string[]; water?: Record<string, number | string>; classes?: Record<string, Verdict> },
 ): DiagramModel {
   const regions: RegionModel[] = sol.regions
     .filter((r) => r.area > 0)
     .sort((a, b) => a.index - b.index)
     .map((r) => {
       const sp = input.species[r.index];
-      const m: RegionModel = { species: sp.formula, phase: sp.phase, class: classify(input.element, sp), polygons: r.polygons, area: r.area };
+      const cls = classify(input.element, sp);
+      const m: RegionModel = { species: sp.formula, phase: sp.phase, class: cls, verdict: verdictOf(cls, sp.formula, meta.classes), polygons: r.polygons, area: r.area };
       if (sp.name) m.name = sp.name;
       return m;
     });

@@ -6,6 +6,7 @@ import type { Computed } from '../pipeline.js';
 import { compute } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
+import { referenceOffset } from '../thermo/reference.js';
 
 const SUP: Record<string, string> = { '-': '\u207b', '0': '\u2070', '1': '\u00b9', '2': '\u00b2', '3': '\u00b3', '4': '\u2074', '5': '\u2075', '6': '\u2076', '7': '\u2077', '8': '\u2078', '9': '\u2079' };
 
@@ -60,6 +61,22 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
   const input: FigureInput = { model: c.model, options: fig.options };
   if (fig.options.show.caption) input.caption = captionLines(c);
   if (fig.options.show.neutral && c.model.water) input.neutralPH = Number(c.model.water.neutralPH);
+  const ref = c.spec.operating.reference;
+  const T = c.spec.temperature;
+  const she = (E: number, pH: number) => (ref === undefined ? E : E + referenceOffset(ref, T, pH).offset);
+  const op = c.spec.operating;
+  if (op.points.length) input.points = op.points.map((p) => ({ label: p.label, pH: p.pH, E: she(p.E, p.pH) }));
+  if (op.boxes.length) {
+    input.boxes = op.boxes.map((b) => {
+      const mid = (b.pH[0] + b.pH[1]) / 2;
+      return { label: b.label, pH: b.pH, E: [she(b.E[0], mid), she(b.E[1], mid)] as [number, number] };
+    });
+  }
+  if (op.paths.length) input.paths = op.paths.map((p) => ({ label: p.label, points: p.points.map(([x, y]) => [x, she(y, x)] as [number, number]) }));
+  if (c.model.reference && !fig.options.secondAxis) {
+    fig.options.secondAxis = { label: `E / V vs ${c.model.reference.label}`, offset: c.model.reference.offset };
+    input.options = fig.options;
+  }
   if (fig.families.length) {
     input.families = fig.families.map((a) => ({ activity: a, boundaries: compute({ ...c.spec, activity: a }).model.boundaries }));
   }

@@ -10,6 +10,7 @@ import { FormulaError, formulaWarnings, parseFormula } from '../chem/formula.js'
 import type { Phase } from '../model.js';
 import { Fields } from './fields.js';
 import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
+import { type Operating, readOperating } from './operating.js';
 
 export interface InlineSpecies {
   formula: string;
@@ -56,6 +57,8 @@ export interface SystemSpec {
   extrapolation: 'cp' | 'constant-h-s';
   title?: string;
   grid: number;
+  /** Reference electrode, verdict reclassifications, operating points, envelopes and paths. */
+  operating: Operating;
   /** Everything else the later stages read (figure, points, ...), validated where used. */
   extra: Record<string, unknown>;
   warnings: string[];
@@ -205,7 +208,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];
   }
-  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, pH, E, exclude, species, gases, metastable, pick, extrapolation, title, grid, extra, warnings };
+  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, pick, extrapolation, title, grid, extra, warnings };
 }
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {
