@@ -4,6 +4,7 @@
 import { buildModel } from './diagram/build.js';
 import type { DiagramModel } from './model.js';
 import { solve, type Solution } from './solve/solve.js';
+import { gridMap } from './solve/grid.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
 import { readSystemFile } from './system/read.js';
 import { readSpec, type SystemSpec } from './system/spec.js';
@@ -32,6 +33,13 @@ export function compute(spec: SystemSpec): Computed {
     water: waterSummary(built),
     classes: spec.operating.classes,
   });
+  // Topology cross-check: every species that wins at a node of the grid must have a region.
+  const grid = gridMap(built.input, spec.grid, spec.grid);
+  const seen = new Set<number>();
+  for (let k = 0; k < grid.index.length; k++) seen.add(grid.index[k]);
+  const exact = new Set(solution.regions.filter((r) => r.area > 0).map((r) => r.index));
+  const missing = [...seen].filter((k) => !exact.has(k)).map((k) => built.input.species[k].formula);
+  if (missing.length) model.warnings.push(`grid check: ${missing.join(', ')} won at grid nodes but has no exact region (degenerate geometry?)`);
   const ref = spec.operating.reference;
   if (ref !== undefined && !(typeof ref === 'string' && ref === 'rhe') && !(typeof ref === 'string' && ref === 'she')) {
     const r = referenceOffset(ref, spec.temperature);

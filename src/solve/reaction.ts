@@ -100,9 +100,9 @@ export function balance(
 /** Line coefficients from the reaction plane ΔrG = g + p·pH + e·E (J per reaction as written). */
 export function lineFrom(phi: Plane, phi0: Plane, n: number, m: number, kelvin: number): LineCoefficients {
   if (n !== 0) {
-    return { kind: 'E', intercept: -phi.g / phi.e, slope: -phi.p / phi.e, E0: -phi0.g / phi0.e, n, m };
+    return { kind: 'E', intercept: -phi.g / phi.e || 0, slope: -phi.p / phi.e || 0, E0: -phi0.g / phi0.e || 0, n, m };
   }
-  return { kind: 'pH', value: -phi.g / phi.p, logK: -phi0.g / (R * kelvin * LN10), n, m };
+  return { kind: 'pH', value: -phi.g / phi.p || 0, logK: -phi0.g / (R * kelvin * LN10) || 0, n, m };
 }
 
 export function equationText(line: LineCoefficients): string {

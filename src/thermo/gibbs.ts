@@ -30,7 +30,7 @@ export type Extrapolation = 'cp' | 'constant-h-s';
 /**
  * Apparent G(T) in kJ/mol (see module comment). `S` must be known unless T = T_r.
  * Worked example: H2O(l), ΔfG° = −237.129, S° = 69.91, Cp° = 75.291 at 80 °C (353.15 K):
- *   −237.129 − 0.06991·55 + 0.075291·(55 − 353.15·ln(353.15/298.15)) = −241.262 kJ/mol.
+ *   −237.129 − 0.06991·55 + 0.075291·(55 − 353.15·ln(353.15/298.15)) = −241.334 kJ/mol.
  */
 export function apparentG(d: ThermoData, kelvin: number, mode: Extrapolation = 'cp'): number {
   const dT = kelvin - T_REF;
