@@ -9,6 +9,8 @@ import { registerDemo } from './demo.js';
 import { registerWindow } from './window.js';
 import { registerProbe } from './probe.js';
 import { registerCell } from './cell.js';
+import { registerReport } from './report.js';
+import { registerOverlay } from './overlay.js';
 import { findAllSpecies, loadLibrary } from '../data/library.js';
 import type { SpeciesLookup } from '../report/cell.js';
 
@@ -36,6 +38,8 @@ export function makeProgram(): Command {
   registerCatalog(program);
   registerWindow(program);
   registerCell(program, { lookup: libraryLookup });
+  registerReport(program);
+  registerOverlay(program);
   return program;
 }
 

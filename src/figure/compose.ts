@@ -3,6 +3,7 @@
  * (the same system re-solved at other activities), and the neutral-pH line at T.
  */
 import type { Computed } from '../pipeline.js';
+import type { SystemSpec } from '../system/spec.js';
 import { compute } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
@@ -57,6 +58,11 @@ export function shortSource(s: string): string {
   return `${first}${many ? ' et al.' : ''}${year ? ` ${year}` : ''}`;
 }
 
+/** The same system with every dissolved species of the element at activity a (as an activity, no γ). */
+export function atActivity(spec: SystemSpec, a: number): SystemSpec {
+  return { ...spec, activity: a, amount: { kind: 'activity', value: a, isDefault: false } };
+}
+
 export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
   const input: FigureInput = { model: c.model, options: fig.options };
   if (fig.options.show.caption) input.caption = captionLines(c);
@@ -78,7 +84,7 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
     input.options = fig.options;
   }
   if (fig.families.length) {
-    input.families = fig.families.map((a) => ({ activity: a, boundaries: compute({ ...c.spec, activity: a }).model.boundaries }));
+    input.families = fig.families.map((a) => ({ activity: a, boundaries: compute(atActivity(c.spec, a)).model.boundaries }));
   }
   return input;
 }

@@ -87,3 +87,15 @@ describe('temperature extrapolation choice', () => {
     expect(Math.abs(a.model.waterLines.oxygen.line.E0! - b.model.waterLines.oxygen.line.E0!)).toBeGreaterThan(1e-4);
   });
 });
+
+describe('activity families', () => {
+  it('a family at 1e-4 puts the Fe/Fe+2 line (s/2)·2 = 59.16 mV above the 1e-6 line (Nernst, n = 2)', async () => {
+    const { figureInput } = await import('../../src/figure/compose.js');
+    const { figureSettings } = await import('../../src/figure/options.js');
+    const spec = readSpec({ element: 'Fe', figure: { families: [1e-4] } }, 'fam.yaml');
+    const c = compute(spec);
+    const input = figureInput(c, figureSettings(spec));
+    const line = (bs: typeof c.model.boundaries) => bs.find((b) => b.between.includes('Fe') && b.between.includes('Fe+2'))!.line.intercept!;
+    expect((line(input.families![0].boundaries) - line(c.model.boundaries)) * 1000).toBeCloseTo(59.16, 1);
+  });
+});

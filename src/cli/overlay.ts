@@ -1,0 +1,81 @@
+/**
+ * `ephmap overlay FILE... -o out.svg|pdf|png [--temperatures 25,90,150] [--activities 1e-6,1e-4]`:
+ * several diagrams in one frame (one system at several temperatures/activities, or several systems).
+ */
+import { extname } from 'node:path';
+import type { Command } from 'commander';
+import { type FigureOverrides, figureSettings } from '../figure/options.js';
+import { type FigureFormat, renderFigure } from '../figure/output.js';
+import { loadSpec } from '../pipeline.js';
+import type { FigureInput } from '../render/scene.js';
+import { computeLayers, layerSpecs, overlayFigure } from '../report/overlay.js';
+import { InputError } from '../system/errors.js';
+import { writeAtomic } from './write.js';
+
+/** "25,90,150" → [25, 90, 150]; InputError naming the option for anything that is not a number list. */
+export function numberList(v: string, option: string, what: string): number[] {
+  const parts = v.split(',').map((x) => x.trim());
+  if (parts.length > 20) throw new InputError('command line', option, `at most 20 ${what}`, JSON.stringify(v));
+  return parts.map((x) => {
+    const n = Number(x);
+    if (x === '' || !Number.isFinite(n)) throw new InputError('command line', option, `a comma-separated list of ${what}, e.g. ${option === '--temperatures' ? '25,90,150' : '1e-6,1e-4'}`, JSON.stringify(v));
+    return n;
+  });
+}
+
+const OVERLAY_WIDTH = '160mm';
+
+/** Renders; a figure too small for its plot, legend and caption is a user mistake (exit 2). */
+export async function renderChecked(input: FigureInput, fmt: FigureFormat): Promise<string | Uint8Array> {
+  try {
+    return await renderFigure(input, fmt);
+  } catch (e) {
+    if (e instanceof Error && /too small/.test(e.message)) throw new InputError('command line', '--width/--height', `a larger figure (${e.message})`);
+    throw e;
+  }
+}
+
+interface OverlayOpts extends FigureOverrides {
+  output: string;
+  temperatures?: string;
+  activities?: string;
+}
+
+export function registerOverlay(program: Command): void {
+  program
+    .command('overlay')
+    .description('several diagrams in one figure: one system file at several --temperatures or --activities, or several system files (e.g. Fe, Cr, Ni)')
+    .argument('<files...>', 'system files; the first is the base layer')
+    .requiredOption('-o, --output <path>', 'output file (.svg, .pdf or .png)')
+    .option('--temperatures <list>', 'temperatures in °C, comma-separated, e.g. 25,90,150')
+    .option('--activities <list>', 'activities of the dissolved species, comma-separated, e.g. 1e-6,1e-4')
+    .option('--width <length>', 'figure width: mm, or e.g. "170mm", "800px"')
+    .option('--height <length>', 'figure height')
+    .option('--style <style>', 'color, gray or lines (lines only when the elements differ)')
+    .option('--title <text>', 'figure title')
+    .option('--no-caption', 'leave out the caption block (kept when the elements differ)')
+    .option('--grid', 'draw a light grid')
+    .action(async (files: string[], opts: OverlayOpts) => {
+      const ext = extname(opts.output).toLowerCase().slice(1);
+      if (!['svg', 'pdf', 'png'].includes(ext)) throw new InputError('command line', '--output', 'a file name ending in .svg, .pdf or .png', JSON.stringify(opts.output));
+      const temperatures = opts.temperatures === undefined ? undefined : numberList(opts.temperatures, '--temperatures', 'temperatures in °C');
+      const activities = opts.activities === undefined ? undefined : numberList(opts.activities, '--activities', 'activities');
+      const specs = files.map((f) => loadSpec(f));
+      const layers = computeLayers(layerSpecs({ specs, temperatures, activities }));
+      const figure = layers[0].spec.extra.figure;
+      const fileWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
+      // Overlays carry a longer legend and caption: 160 mm wide unless the file or --width says otherwise.
+      const fig = figureSettings(layers[0].spec, opts.width === undefined && !fileWidth ? { ...opts, width: OVERLAY_WIDTH } : opts);
+      const seen = new Set<string>();
+      for (const l of layers) {
+        for (const w of l.model.warnings) {
+          const msg = `${l.model.element} ${l.model.temperature.celsius} °C: ${w}`;
+          if (!seen.has(msg)) process.stderr.write(`warning: ${msg}\n`);
+          seen.add(msg);
+        }
+      }
+      const { input } = overlayFigure(layers, fig, ext === 'pdf');
+      writeAtomic(opts.output, await renderChecked(input, ext as FigureFormat));
+      process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);
+    });
+}

@@ -1,0 +1,66 @@
+/**
+ * `ephmap report FILE -o report.md|report.html|report.pdf`: one document with the conditions, the
+ * figure, every reaction and line, the operating points with their verdicts, the plating window,
+ * the data sources, warnings and cautions. Markdown writes the figure next to it as `<name>.svg`.
+ * Everything is computed before anything is written; bad input writes nothing (exit 2).
+ */
+import { basename, dirname, extname, join } from 'node:path';
+import type { Command } from 'commander';
+import { captionLines, figureInput } from '../figure/compose.js';
+import { figureSettings } from '../figure/options.js';
+import { compute, loadSpec } from '../pipeline.js';
+import { reportData } from '../report/report-data.js';
+import { reportHtml } from '../report/report-html.js';
+import { reportMarkdown } from '../report/report-md.js';
+import { InputError } from '../system/errors.js';
+import { renderChecked } from './overlay.js';
+import { writeAtomic } from './write.js';
+
+const REPORT_FORMATS = ['md', 'html', 'pdf'] as const;
+type ReportFormat = (typeof REPORT_FORMATS)[number];
+
+/** Report figures default to a 160 mm wide (two-column) figure unless the file sets a width. */
+const REPORT_WIDTH = '160mm';
+
+export function registerReport(program: Command): void {
+  program
+    .command('report')
+    .description('one document (.md with a .svg beside it, self-contained .html, or .pdf): conditions, figure, reactions, operating points with verdicts, plating window, sources, cautions')
+    .argument('<file>', 'system file (.json, .yaml, .yml)')
+    .requiredOption('-o, --output <path>', 'output file (.md, .html or .pdf)')
+    .action(async (file: string, opts: { output: string }) => {
+      const ext = extname(opts.output).toLowerCase().slice(1);
+      if (!(REPORT_FORMATS as readonly string[]).includes(ext) || basename(opts.output, extname(opts.output)) === '') {
+        throw new InputError('command line', '--output', 'a file name ending in .md, .html or .pdf', JSON.stringify(opts.output));
+      }
+      const fmt = ext as ReportFormat;
+      const spec = loadSpec(file);
+      const figure = spec.extra.figure;
+      const hasWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
+      const fig = figureSettings(spec, hasWidth ? {} : { width: REPORT_WIDTH });
+      const c = compute(spec);
+      for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
+      const data = reportData(c);
+      const input = figureInput(c, fig);
+      const caption = captionLines(c);
+      if (fmt === 'md') {
+        const svgName = `${basename(opts.output, extname(opts.output))}.svg`;
+        const svg = (await renderChecked(input, 'svg')) as string;
+        const md = reportMarkdown(data, svgName, caption);
+        const svgPath = join(dirname(opts.output), svgName);
+        writeAtomic(svgPath, svg);
+        writeAtomic(opts.output, md);
+        process.stdout.write(`wrote ${opts.output} and ${svgPath}\n`);
+        return;
+      }
+      if (fmt === 'html') {
+        const svg = (await renderChecked(input, 'svg')) as string;
+        writeAtomic(opts.output, reportHtml(data, svg, caption));
+      } else {
+        const png = (await renderChecked(input, 'png')) as Uint8Array;
+        const { reportPdf } = await import('../report/report-pdf.js');
+        writeAtomic(opts.output, await reportPdf(data, png, { width: fig.options.width, height: fig.options.height }, caption));
+      }
+      process.stdout.write(`wrote ${opts.output}\n`);
+    });
+}

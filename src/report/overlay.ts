@@ -1,0 +1,133 @@
+/**
+ * Overlay figures: several diagrams in one frame. Either one system at several temperatures or
+ * activities, or several systems (e.g. Fe, Cr and Ni for a stainless steel). The first layer is the
+ * base, drawn in full (with its fills when every layer has the same element, as lines only
+ * otherwise); the others are drawn as boundaries only, each in its own dash style, and the legend
+ * and caption name every layer by element, temperature and activity.
+ */
+import { captionLines, figureInput, powerOfTen, shortSource } from '../figure/compose.js';
+import type { FigureSettings } from '../figure/options.js';
+import { compute, type Computed } from '../pipeline.js';
+import type { FigureInput } from '../render/scene.js';
+import { InputError } from '../system/errors.js';
+import { T_RANGE, type SystemSpec } from '../system/spec.js';
+import { fmtAmount, fmtCelsius } from './report-format.js';
+
+/**
+ * Dash styles of the overlay layers, in order (names understood by the renderer's parseDash): the
+ * long dash first because it differs most from the water lines' short dash in the 'lines' style.
+ */
+export const OVERLAY_DASHES = ['longdash', 'dashdot', 'dash', 'dot'] as const;
+
+/** At most the base plus one layer per dash style, so that every layer keeps its own style. */
+export const MAX_LAYERS = 1 + OVERLAY_DASHES.length;
+
+/** The plain statement printed whenever layers of different elements share a frame. */
+export const SEPARATE_ELEMENTS_NOTE =
+  "Each layer is a separate single-element diagram; overlaying them does not describe the alloy's thermodynamics.";
+
+export interface OverlayRequest {
+  specs: SystemSpec[];
+  temperatures?: number[];
+  activities?: number[];
+}
+
+/**
+ * The layer specs, base first: one spec × every temperature × every activity, or several specs
+ * (each with the single temperature/activity when one is given). Every layer is solved on the
+ * base's pH and E range so that all lines cover the frame. Throws InputError for fewer than two
+ * or more than MAX_LAYERS layers, or several values combined with several files.
+ */
+export function layerSpecs(req: OverlayRequest): SystemSpec[] {
+  const { specs } = req;
+  const temps = req.temperatures ?? [];
+  const acts = req.activities ?? [];
+  temps.forEach((t) => {
+    if (!(Number.isFinite(t) && t >= T_RANGE.min && t <= T_RANGE.max)) throw new InputError('command line', '--temperatures', `temperatures from ${T_RANGE.min} to ${T_RANGE.max} °C`, String(t));
+  });
+  acts.forEach((a) => {
+    if (!(Number.isFinite(a) && a > 0 && a <= 100)) throw new InputError('command line', '--activities', 'activities greater than 0 and at most 100', String(a));
+  });
+  if (specs.length > 1 && (temps.length > 1 || acts.length > 1)) {
+    throw new InputError('command line', temps.length > 1 ? '--temperatures' : '--activities', 'one value when several system files are overlaid (several values with one file)');
+  }
+  const withT = (s: SystemSpec, t: number | undefined): SystemSpec => (t === undefined ? s : { ...s, temperature: t });
+  const withA = (s: SystemSpec, a: number | undefined): SystemSpec => (a === undefined ? s : { ...s, activity: a, amount: { kind: 'activity', value: a, isDefault: false } });
+  const out: SystemSpec[] = [];
+  for (const s of specs) {
+    for (const t of temps.length ? temps : [undefined]) for (const a of acts.length ? acts : [undefined]) out.push(withA(withT(s, t), a));
+  }
+  if (out.length < 2) {
+    throw new InputError('command line', 'layers', 'at least two layers: several system files, or --temperatures / --activities with two or more values');
+  }
+  if (out.length > MAX_LAYERS) {
+    throw new InputError('command line', 'layers', `at most ${MAX_LAYERS} layers (a base and ${OVERLAY_DASHES.length} dash styles)`, String(out.length));
+  }
+  const base = out[0];
+  return out.map((s, k) => (k === 0 ? s : { ...s, pH: base.pH, E: base.E }));
+}
+
+/** Label of a layer: "Fe, 90 °C, a = 10⁻⁶" (ASCII "1e-6" where the output font lacks superscripts). */
+export function layerLabel(c: Computed, ascii: boolean): string {
+  const m = c.model;
+  const a = ascii ? fmtAmount(m.activity) : powerOfTen(m.activity);
+  const lig = Object.entries(m.ligands).map(([k, v]) => `${k} ${ascii ? fmtAmount(v) : powerOfTen(v)}`);
+  return `${m.element}, ${fmtCelsius(m.temperature.celsius)} \u00b0C, a = ${a}${lig.length ? `, ${lig.join(', ')}` : ''}`;
+}
+
+export interface OverlayFigure {
+  input: FigureInput;
+  layers: { label: string; dash: string | null; computed: Computed }[];
+  sameElement: boolean;
+}
+
+/**
+ * Composes the figure: the base through figureInput (its operating points, reference axis and
+ * settings), the other layers as FigureInput.overlays, and a caption naming every layer.
+ */
+export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: boolean): OverlayFigure {
+  const base = layers[0];
+  const sameElement = layers.every((l) => l.model.element === base.model.element);
+  if (!sameElement) {
+    // Separate elements: lines only, and the caption (with the plain statement) is always shown.
+    fig.options.style = 'lines';
+    fig.options.show.caption = true;
+  }
+  const labels = layers.map((l) => layerLabel(l, ascii));
+  // Step: identical labels (e.g. two files differing only in ligands or data) get the file name.
+  labels.forEach((lab, k) => {
+    if (labels.filter((x) => x === lab).length > 1) labels[k] = `${lab} (${layers[k].spec.file.split(/[\\/]/).pop()})`;
+  });
+  if (fig.options.title === undefined) {
+    const els = [...new Set(layers.map((l) => l.model.element))];
+    const ts = [...new Set(layers.map((l) => fmtCelsius(l.model.temperature.celsius)))];
+    fig.options.title = sameElement ? `${base.model.element}\u2013{H2O}, ${ts.join(' / ')} \u00b0C` : `${els.join(', ')}: separate single-element diagrams`;
+  }
+  const input = figureInput(base, { options: fig.options, families: [] });
+  input.overlays = layers.slice(1).map((l, k) => ({ label: labels[k + 1], model: l.model, dash: OVERLAY_DASHES[k] }));
+  if (fig.options.show.caption) {
+    // The base's own caption without its first line (conditions, named per layer here) and data line.
+    const own = captionLines(base).slice(1).filter((l) => !l.startsWith('Data: '));
+    const lines = [
+      `Layers: ${labels[0]} (base, solid lines${sameElement && fig.options.style !== 'lines' ? ', filled fields' : ''}); ${layers.slice(1).map((_, k) => `${labels[k + 1]} (${OVERLAY_DASHES[k]}, boundaries only)`).join('; ')}.`,
+      ...own,
+    ];
+    if (layers.some((l) => l.model.temperature.celsius !== base.model.temperature.celsius)) {
+      lines.push(`Water lines are those of the base layer (${fmtCelsius(base.model.temperature.celsius)} \u00b0C).`);
+    }
+    if (!sameElement) lines.push(SEPARATE_ELEMENTS_NOTE);
+    const short = layers.flatMap((l) => l.model.sources.map(shortSource)).filter((s, k, a) => a.indexOf(s) === k);
+    if (short.length) lines.push(`Data: ${short.join('; ')}.`);
+    input.caption = lines;
+  }
+  return {
+    input,
+    layers: layers.map((l, k) => ({ label: labels[k], dash: k === 0 ? null : OVERLAY_DASHES[k - 1], computed: l })),
+    sameElement,
+  };
+}
+
+/** Computes every layer (base first). */
+export function computeLayers(specs: SystemSpec[]): Computed[] {
+  return specs.map((s) => compute(s));
+}

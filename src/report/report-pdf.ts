@@ -1,0 +1,235 @@
+/**
+ * The report as a PDF (pdfkit, A4, the standard Helvetica fonts): text, tables and the figure as a
+ * 300 dpi PNG (the vector drawing of src/render/pdf.ts is not exported for use inside another
+ * document). Reproducible: the creation date is fixed, so the same input gives the same bytes.
+ */
+import { shortSource } from '../figure/compose.js';
+import type { ReportData } from './report-data.js';
+import { crossingTexts } from './report-data.js';
+import { fmtCelsius, fmtNum, fmtSigned } from './report-format.js';
+
+type Doc = PDFKit.PDFDocument;
+
+const SUB = '\u2080\u2081\u2082\u2083\u2084\u2085\u2086\u2087\u2088\u2089';
+const SUP: Record<string, string> = { '\u2070': '0', '\u00b9': '1', '\u00b2': '2', '\u00b3': '3', '\u2074': '4', '\u2075': '5', '\u2076': '6', '\u2077': '7', '\u2078': '8', '\u2079': '9', '\u207b': '-', '\u207a': '+' };
+
+/**
+ * Text for the standard PDF fonts (WinAnsi): subscript digits become digits, superscript runs
+ * "^…", the minus sign a hyphen, a few Greek letters their names; anything else unprintable '?'.
+ */
+export function pdfText(s: string): string {
+  return s
+    .replace(/[\u2080-\u2089]/g, (c) => String(SUB.indexOf(c)))
+    .replace(/[\u2070\u00b9\u00b2\u00b3\u2074-\u207b]*[\u2070\u2074-\u207b][\u2070\u00b9\u00b2\u00b3\u2074-\u207b]*/g, (run) => `^${[...run].map((c) => SUP[c]).join('')}`)
+    .replace(/\u2212/g, '-')
+    .replace(/\u2192/g, '->')
+    .replace(/\u0394/g, 'Delta ')
+    .replace(/[\u03b1-\u03c9]/g, (c) => GREEK[c] ?? c)
+    .replace(/\u2264/g, '<=')
+    .replace(/\u2265/g, '>=')
+    .replace(/[^\u0020-\u007e\u00a0-\u00ff\u2013\u2014\u2018\u2019\u201c\u201d\u2026\u2022\u2020\u2021\u2030\u20ac]/g, '?');
+}
+
+const GREEK: Record<string, string> = {
+  '\u03b1': 'alpha', '\u03b2': 'beta', '\u03b3': 'gamma', '\u03b4': 'delta', '\u03b5': 'epsilon', '\u03b8': 'theta', '\u03ba': 'kappa',
+  '\u03bb': 'lambda', '\u03bc': '\u00b5', '\u03bd': 'nu', '\u03c0': 'pi', '\u03c1': 'rho', '\u03c3': 'sigma', '\u03c4': 'tau', '\u03c6': 'phi', '\u03c8': 'psi', '\u03c9': 'omega',
+};
+
+const MARGIN = 56;
+const BODY = 9;
+const SMALL = 7.5;
+
+class Writer {
+  constructor(private readonly doc: Doc) {}
+
+  get left(): number {
+    return this.doc.page.margins.left;
+  }
+  get width(): number {
+    return this.doc.page.width - this.doc.page.margins.left - this.doc.page.margins.right;
+  }
+  get bottom(): number {
+    return this.doc.page.height - this.doc.page.margins.bottom;
+  }
+
+  /** Starts a new page unless `h` points fit below the current position. */
+  room(h: number): void {
+    if (this.doc.y + h > this.bottom) {
+      this.doc.addPage();
+      this.doc.y = this.doc.page.margins.top;
+    }
+  }
+
+  heading(s: string, size = 13): void {
+    this.room(size * 4);
+    this.doc.moveDown(0.6);
+    this.doc.font('Helvetica-Bold').fontSize(size).fillColor('#000000').text(pdfText(s), this.left, this.doc.y, { width: this.width });
+    this.doc.moveDown(0.3);
+  }
+
+  para(s: string, opts: { bold?: boolean; italic?: boolean; size?: number } = {}): void {
+    const font = opts.bold ? 'Helvetica-Bold' : opts.italic ? 'Helvetica-Oblique' : 'Helvetica';
+    this.doc.font(font).fontSize(opts.size ?? BODY).fillColor('#000000').text(pdfText(s), this.left, this.doc.y, { width: this.width });
+    this.doc.moveDown(0.4);
+  }
+
+  bullets(items: string[]): void {
+    for (const s of items) {
+      this.doc.font('Helvetica').fontSize(BODY).fillColor('#000000').text(pdfText(`\u2022 ${s}`), this.left + 6, this.doc.y, { width: this.width - 6 });
+      this.doc.moveDown(0.15);
+    }
+    this.doc.moveDown(0.3);
+  }
+
+  /** A table with column widths as fractions of the text width; rows break across pages. */
+  table(header: string[], rows: string[][], fractions: number[], size = SMALL): void {
+    const doc = this.doc;
+    const pad = 2.5;
+    const ws = fractions.map((f) => f * this.width);
+    const cellH = (cells: string[], font: string) =>
+      Math.max(...cells.map((c, k) => doc.font(font).fontSize(size).heightOfString(pdfText(c), { width: ws[k] - 2 * pad }))) + 2 * pad;
+    const draw = (cells: string[], font: string, fill: string | null) => {
+      const h = cellH(cells, font);
+      let y = doc.y;
+      if (y + h > this.bottom) {
+        doc.addPage();
+        y = doc.page.margins.top;
+        if (font !== 'Helvetica-Bold') {
+          doc.y = y;
+          draw(header, 'Helvetica-Bold', '#eeeeee');
+          y = doc.y;
+        }
+      }
+      let x = this.left;
+      cells.forEach((c, k) => {
+        if (fill) doc.rect(x, y, ws[k], h).fill(fill);
+        doc.rect(x, y, ws[k], h).lineWidth(0.4).strokeColor('#999999').stroke();
+        doc.font(font).fontSize(size).fillColor('#000000').text(pdfText(c), x + pad, y + pad, { width: ws[k] - 2 * pad });
+        x += ws[k];
+      });
+      doc.y = y + h;
+      doc.x = this.left;
+    };
+    this.room(cellH(header, 'Helvetica-Bold') * 2);
+    draw(header, 'Helvetica-Bold', '#eeeeee');
+    for (const r of rows) draw(r, 'Helvetica', null);
+    doc.moveDown(0.6);
+  }
+}
+
+/**
+ * Renders the report. `png` is the figure at 300 dpi, `figureMm` its physical size; the figure is
+ * scaled down only when wider than the text column.
+ */
+export async function reportPdf(d: ReportData, png: Uint8Array, figureMm: { width: number; height: number }, caption: string[]): Promise<Buffer> {
+  const { default: PDFDocument } = await import('pdfkit');
+  const doc = new PDFDocument({
+    size: 'A4',
+    margins: { top: MARGIN, bottom: MARGIN, left: MARGIN, right: MARGIN },
+    compress: true,
+    info: { Title: pdfText(d.title), Creator: 'ephmap', Producer: 'ephmap', CreationDate: new Date(Date.UTC(2000, 0, 1)) },
+  });
+  const chunks: Buffer[] = [];
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('data', (c: Buffer) => chunks.push(c));
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  const w = new Writer(doc);
+  doc.font('Helvetica-Bold').fontSize(17).text(pdfText(d.title), w.left, MARGIN, { width: w.width });
+  doc.moveDown(0.3);
+  w.para('Equilibrium thermodynamics only: a screening aid. See the cautions at the end.', { italic: true });
+
+  w.heading('Conditions');
+  w.table(['quantity', 'value'], d.conditions.map(([k, v]) => [k, v]), [0.28, 0.72], BODY - 0.5);
+  if (d.activities.length) {
+    w.para('Activities used (a = gamma·m where a concentration m was given):');
+    w.table(['species', 'role', 'm / (mol/kg)', 'log gamma', 'activity a'], d.activities.map((r) => [
+      r.formula,
+      r.role,
+      r.molality === undefined ? 'as given' : fmtNum(r.molality),
+      r.logGamma === undefined ? '0' : r.logGamma.toFixed(4),
+      fmtNum(r.activity),
+    ]), [0.24, 0.14, 0.22, 0.18, 0.22]);
+  }
+
+  const mmToPt = (mm: number) => (mm / 25.4) * 72;
+  const fw = Math.min(w.width, mmToPt(figureMm.width));
+  const fh = fw * (figureMm.height / figureMm.width);
+  // The heading stays with the figure.
+  w.room(fh + 50);
+  w.heading('Diagram');
+  const y = doc.y;
+  doc.image(Buffer.from(png), w.left + (w.width - fw) / 2, y, { width: fw, height: fh });
+  doc.y = y + fh + 6;
+  for (const l of caption) w.para(l, { size: SMALL });
+
+  w.heading('Reactions and lines');
+  w.para(`Each boundary's balanced reaction and its line at ${fmtCelsius(d.celsius)} °C; E in V vs SHE at that temperature.`);
+  w.table(['boundary', 'reaction', 'E° / V or log K', 'line', 'pH range'], d.lines.map((r) => [
+    r.between.join(' / '),
+    r.reaction,
+    r.line.kind === 'E' ? `E° = ${r.line.E0!.toFixed(4)}` : `log K = ${r.line.logK!.toFixed(3)}`,
+    r.equation,
+    `${r.pHRange[0].toFixed(2)}\u2013${r.pHRange[1].toFixed(2)}`,
+  ]), [0.14, 0.34, 0.14, 0.27, 0.11]);
+  w.table(['water line', 'reaction', 'line'], d.waterLines.map((x) => [x.couple, x.reaction, x.equation]), [0.16, 0.44, 0.4]);
+
+  w.heading('Operating points');
+  if (!d.points.length) w.para('The system file names no operating points (key "points").');
+  else {
+    w.para(d.verdictBasis);
+    w.table(['point', 'pH', 'E as given', 'E / V vs SHE', 'predominant', 'verdict', 'E shift to runner-up / mV', 'to line along E / mV', 'along pH'], d.points.map((p) => [
+      p.label,
+      fmtNum(p.pH),
+      `${fmtNum(p.Egiven)} V vs ${p.scale}`,
+      p.Eshe.toFixed(4),
+      p.result.predominant,
+      p.result.verdict.toUpperCase(),
+      p.result.margin.potentialV === null ? '\u2014' : fmtSigned(p.result.margin.potentialV * 1000, 1),
+      p.result.distance.mV === null ? '\u2014' : fmtSigned(p.result.distance.mV, 1),
+      p.result.distance.pH === null ? '\u2014' : fmtSigned(p.result.distance.pH, 3),
+    ]), [0.16, 0.07, 0.13, 0.1, 0.11, 0.12, 0.09, 0.12, 0.1]);
+    w.bullets(d.points.map((p) => {
+      const cr = crossingTexts(p.result);
+      return `${p.label}: ${p.result.advice}${cr.length ? ` Crossings: ${cr.join('; ')}.` : ''}${p.result.nearestBoundary ? ` Nearest boundary: ${p.result.nearestBoundary.reaction} (${p.result.nearestBoundary.equation}).` : ''}`;
+    }));
+  }
+
+  if (d.window) {
+    const win = d.window;
+    w.heading('Plating window');
+    w.table(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep - E(H2) / V', 'bounded by (low / high pH)'], win.windows.map((x) => [
+      `${x.pH[0].toFixed(2)}\u2013${x.pH[1].toFixed(2)}`,
+      x.dissolved.join(', '),
+      `${fmtSigned(x.deposition[0].E, 3)} \u2026 ${fmtSigned(x.deposition[x.deposition.length - 1].E, 3)}`,
+      `${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`,
+      `${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`,
+    ]), [0.14, 0.2, 0.22, 0.2, 0.24]);
+    w.para(win.firstSolid ? `First solid above the window: ${win.firstSolid.species} from pH ${win.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.');
+    w.bullets(win.notes);
+  }
+
+  w.heading('Data sources');
+  w.bullets(d.sources);
+  w.table(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
+    s.formula,
+    s.phase,
+    s.name,
+    s.role,
+    s.origin,
+    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
+    shortSource(s.source),
+  ]), [0.11, 0.07, 0.25, 0.09, 0.12, 0.14, 0.22]);
+  w.para('"Recalled from memory": the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.', { size: SMALL });
+
+  w.heading('Warnings');
+  if (!d.warnings.length) w.para('None.');
+  else w.bullets(d.warnings);
+
+  w.heading('Cautions');
+  for (const c of d.cautions) w.para(c);
+  w.para(d.closing, { bold: true });
+  doc.end();
+  return done;
+}
