@@ -64,6 +64,11 @@ const isLower = (c: string | undefined): boolean => c !== undefined && c >= 'a' 
 /** Counts are kept to 12 significant figures so that decimal arithmetic round-trips. */
 const norm = (x: number): number => Number(x.toPrecision(12));
 
+/** Largest atom count or coefficient a formula may state (keeps totals finite and exact). */
+export const MAX_COUNT = 1e6;
+/** Largest charge number. */
+export const MAX_CHARGE = 100;
+
 const START = 'element symbol, "(" or "["';
 const AFTER_TOP = 'element symbol, "(", "[", hydrate dot, charge sign or end of formula';
 
@@ -110,6 +115,7 @@ class Parser {
         const digits = this.s.slice(dStart, this.i);
         if (digits.startsWith('0')) this.fail('charge number 1 or more (no leading zero)', undefined, dStart);
         mag = Number(digits);
+        if (!(mag <= MAX_CHARGE)) this.fail(`charge number of at most ${MAX_CHARGE}`, undefined, dStart);
       }
       charge = c === '+' ? mag : -mag;
       this.tokens.push({ kind: 'charge', text: this.s.slice(start, this.i), value: charge });
@@ -215,6 +221,7 @@ class Parser {
     }
     const value = Number(this.s.slice(start, this.i));
     if (!(value > 0)) this.fail(alwaysDecimal ? 'positive coefficient' : 'positive count', undefined, start);
+    if (!(value <= MAX_COUNT)) this.fail(`${alwaysDecimal ? 'coefficient' : 'count'} of at most ${MAX_COUNT}`, undefined, start);
     return value;
   }
 }

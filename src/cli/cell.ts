@@ -3,6 +3,7 @@
  * or over a range of temperatures.
  */
 import type { Command } from 'commander';
+import { numberArg } from './args.js';
 import { cellReaction, cellTable, ReactionError, temperatureSteps, type CellResult, type SpeciesLookup } from '../report/cell.js';
 import { cellText } from '../report/cell-format.js';
 import { stableJson } from '../report/json.js';
@@ -28,11 +29,7 @@ interface CellCliOptions {
 
 const CLI = 'command line';
 
-function num(v: string, option: string, what: string): number {
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError(CLI, option, what, JSON.stringify(v));
-  return x;
-}
+const num = numberArg;
 
 export function registerCell(program: Command, deps: CellDeps): void {
   program

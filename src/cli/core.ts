@@ -21,11 +21,6 @@ interface DrawOptions extends FigureOverrides {
   output: string;
 }
 
-function num(v: string, option: string, what: string): number {
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError('command line', option, what, JSON.stringify(v));
-  return x;
-}
 
 function warn(ws: string[]): void {
   for (const w of ws) process.stderr.write(`warning: ${w}\n`);

@@ -4,6 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
+import { numberArg } from './args.js';
 import { compute, type Computed, loadSpec } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { parsePointsCsv, pointsCsv } from '../report/points-csv.js';
@@ -16,11 +17,7 @@ import { referenceOffset } from '../thermo/reference.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { writeAtomic } from './write.js';
 
-function num(v: string, option: string, what: string): number {
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError('command line', option, what, JSON.stringify(v));
-  return x;
-}
+const num = numberArg;
 
 interface ProbeOpts {
   ph?: string;

@@ -38,12 +38,14 @@ export interface MergeResult {
   boundaries: BoundaryEdge[];
 }
 
-const WELD = 1e-9;
+/** Weld tolerance relative to the extent of the pieces (pH and V units are of order 1–10). */
+const WELD_REL = 1e-11;
+let WELD = 1e-9;
 
 class VertexWelder {
   readonly pts: Pt[] = [];
   private readonly grid = new Map<string, number[]>();
-  private readonly cell = WELD * 16;
+  private readonly cell: number = WELD * 16;
 
   id(p: Pt): number {
     const cx = Math.floor(p[0] / this.cell);
@@ -76,7 +78,10 @@ interface DirEdge {
 }
 
 export function mergePieces(pieces: MergeInput[]): MergeResult {
-  // Step 1: weld vertices.
+  // Step 1: weld vertices (tolerance scaled to the extent of the domain).
+  let span = 0;
+  for (const pc of pieces) for (const [x, y] of pc.pts) span = Math.max(span, Math.abs(x), Math.abs(y));
+  WELD = WELD_REL * Math.max(span, 1);
   const welder = new VertexWelder();
   const rings: { owner: number; cell: number; ids: number[] }[] = [];
   for (const pc of pieces) {

@@ -114,7 +114,12 @@ export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; wat
     const k = list.findIndex((s) => s.formula === splitPhase(formula).formula);
     if (k < 0) throw new InputError(spec.file, `pick.${formula}`, 'a formula of a species in the system', JSON.stringify(formula));
     const hit = findSpecies(lib, formula);
-    const alt = hit ? pickAlternative(hit, id) : undefined;
+    let alt: LibrarySpecies | undefined;
+    try {
+      alt = hit ? pickAlternative(hit, id) : undefined;
+    } catch {
+      alt = undefined;
+    }
     if (!alt) {
       const ids = hit?.alternatives?.map((a) => a.id).join(', ') || 'none';
       throw new InputError(spec.file, `pick.${formula}`, `an alternative id of ${formula} (${ids})`, JSON.stringify(id));

@@ -4,6 +4,42 @@
  */
 import { InputError, show } from './errors.js';
 
+/** C0 controls except tab and newline, DEL, C1 controls, unpaired UTF-16 surrogates, U+FFFE/U+FFFF. */
+const BAD_CHAR = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\ufffe\uffff]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
+
+/** The known key nearest to `k` (edit distance ≤ 2, case-insensitive), for "did you mean". */
+export function closest(k: string, keys: readonly string[]): string | undefined {
+  let best: string | undefined;
+  let bestD = 3;
+  const a = k.toLowerCase();
+  for (const key of keys) {
+    const d = editDistance(a, key.toLowerCase(), bestD);
+    if (d < bestD) {
+      bestD = d;
+      best = key;
+    }
+  }
+  return best;
+}
+
+/** Levenshtein distance, giving up (returning `cap`) once it must reach `cap`. */
+function editDistance(a: string, b: string, cap: number): number {
+  if (Math.abs(a.length - b.length) >= cap) return cap;
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    let rowMin = i;
+    for (let j = 1; j <= b.length; j++) {
+      const v = Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + (a[i - 1] === b[j - 1] ? 0 : 1));
+      cur.push(v);
+      rowMin = Math.min(rowMin, v);
+    }
+    if (rowMin >= cap) return cap;
+    prev = cur;
+  }
+  return Math.min(prev[b.length]!, cap);
+}
+
 export class Fields {
   constructor(
     readonly file: string,
@@ -11,7 +47,9 @@ export class Fields {
   ) {}
 
   at(field: string): string {
-    return this.prefix ? `${this.prefix}.${field}` : field;
+    if (!this.prefix) return field;
+    if (!field) return this.prefix;
+    return field.startsWith('[') ? `${this.prefix}${field}` : `${this.prefix}.${field}`;
   }
 
   sub(field: string): Fields {
@@ -28,7 +66,9 @@ export class Fields {
     for (const k of Object.keys(o)) {
       if (!keys.includes(k)) {
         const where = field ? `${field}.${k}` : k;
-        this.fail(where, `one of the known keys (${keys.join(', ')})`, `unknown key ${JSON.stringify(k)}`);
+        const near = closest(k, keys);
+        const hint = near ? `; did you mean ${JSON.stringify(near)}?` : '';
+        throw new InputError(this.file, this.at(where), `one of the known keys (${keys.join(', ')})${hint}`, `unknown key ${show(k)}`);
       }
     }
     return o;
@@ -54,10 +94,19 @@ export class Fields {
     return v === undefined ? def : this.number(v, field, opts);
   }
 
+  /**
+   * A non-empty string of at most maxLen characters, without control characters (other than tab
+   * and newline) or unpaired surrogates: text that later lands in SVG/XML must be representable.
+   */
   string(v: unknown, field: string, what = 'a text string', maxLen = 500): string {
     if (typeof v !== 'string' || v.length === 0) this.fail(field, what, v);
     const s = v as string;
-    if (s.length > maxLen) this.fail(field, `${what} of at most ${maxLen} characters`, `${s.length} characters`);
+    if (s.length > maxLen) throw new InputError(this.file, this.at(field), `${what} of at most ${maxLen} characters`, `${s.length} characters`);
+    const bad = BAD_CHAR.exec(s);
+    if (bad) {
+      const code = bad[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0');
+      throw new InputError(this.file, this.at(field), `${what} without control characters`, `U+${code} at character ${bad.index + 1}`);
+    }
     return s;
   }
 
@@ -71,14 +120,21 @@ export class Fields {
     return v as T;
   }
 
-  range(v: unknown, field: string, def: [number, number], bounds: { min: number; max: number; unit: string }): [number, number] {
+  /**
+   * A range [min, max] within bounds. min < max, and the range at least `minWidth` wide (default
+   * 1e-4 of the bounds' span: 0.002 pH units, 1 mV for ±5 V), so that a nearly empty domain is
+   * refused here rather than giving an empty diagram.
+   */
+  range(v: unknown, field: string, def: [number, number], bounds: { min: number; max: number; unit: string; minWidth?: number }): [number, number] {
     if (v === undefined) return def;
+    const minWidth = bounds.minWidth ?? (bounds.max - bounds.min) * 1e-4;
     const what = `[min, max] with min < max, ${bounds.unit} within ${bounds.min} to ${bounds.max}`;
     if (!Array.isArray(v) || v.length !== 2) this.fail(field, what, v);
     const a = v as unknown[];
     const lo = this.number(a[0], `${field}[0]`, { min: bounds.min, max: bounds.max });
     const hi = this.number(a[1], `${field}[1]`, { min: bounds.min, max: bounds.max });
-    if (!(lo < hi)) this.fail(field, what, `[${lo}, ${hi}] (reversed or empty)`);
+    if (!(lo < hi)) throw new InputError(this.file, this.at(field), what, `[${lo}, ${hi}] (reversed or empty)`);
+    if (hi - lo < minWidth) throw new InputError(this.file, this.at(field), `${what}, at least ${minWidth} wide`, `[${lo}, ${hi}]`);
     return [lo, hi];
   }
 

@@ -58,9 +58,9 @@ export function parseSystemText(text: string, path: string): unknown {
     }
     if (doc.errors.length > 0) {
       const err = doc.errors[0]!;
-      if (/call stack/i.test(err.message)) throw new InputError(path, '', NESTING, 'deeper nesting');
-      const pos = err.linePos?.[0];
-      throw new InputError(path, pos ? `line ${pos.line}` : '', 'valid YAML', err.message.split('\n')[0]);
+      if (/call stack/i.test(err.message)) throw new InputError(path, topKeyAt(text, err.pos?.[0] ?? 0), NESTING, 'deeper nesting');
+      const line = err.linePos?.[0]?.line ?? (err.pos ? text.slice(0, err.pos[0]).split('\n').length : 0);
+      throw new InputError(path, line ? `line ${line}` : '', 'valid YAML', err.message.split('\n')[0]);
     }
     try {
       data = doc.toJS({ maxAliasCount: 50 });
@@ -128,6 +128,13 @@ function duplicateJsonKey(text: string): string | null {
     }
   }
   return null;
+}
+
+/** The top-level YAML key (a line starting in column 0 with `key:`) at or before `offset`. */
+function topKeyAt(text: string, offset: number): string {
+  const before = text.slice(0, Math.max(0, Math.min(offset, text.length)) + 1);
+  const keys = [...before.matchAll(/^([^\s#\-[{][^:\n]*):/gm)];
+  return keys.length ? keys[keys.length - 1]![1]!.trim() : '';
 }
 
 /**

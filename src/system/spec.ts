@@ -213,7 +213,8 @@ export function readSpec(data: unknown, file: string): SystemSpec {
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {
   if (typeof raw === 'string') {
-    return { formula: raw, phase: 'aq', field, fromLibrary: raw };
+    const name = f.string(raw, field, 'a library species formula or name, or an object with formula, phase and dfG', 100);
+    return { formula: name, phase: 'aq', field, fromLibrary: name };
   }
   const o = f.object(raw, field, SPECIES_KEYS);
   const formula = f.string(o.formula, `${field}.formula`, 'a formula such as "Fe+2" or "Fe2O3"', 100);
