@@ -20,7 +20,7 @@ import { gridMap } from '../solve/grid.js';
 import { readSpec } from '../system/spec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
-const cli = join(here, '..', 'cli', 'main.js');
+const cli = join(here, '..', 'cli', 'ephmap.mjs');
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
