@@ -15,7 +15,7 @@ import { figureInput } from '../figure/compose.js';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 
-const DRAW_FORMATS = ['svg', 'pdf', 'png', 'json'];
+const DRAW_FORMATS = ['svg', 'pdf', 'png', 'html', 'json'];
 
 interface DrawOptions extends FigureOverrides {
   output: string;
@@ -29,9 +29,9 @@ function warn(ws: string[]): void {
 export function registerCore(program: Command): void {
   program
     .command('draw')
-    .description('compute the diagram of a system file and write it; format by extension: .svg, .pdf, .png, .json (diagram model)')
+    .description('compute the diagram of a system file and write it; format by extension: .svg, .pdf, .png, .html (interactive), .json (diagram model)')
     .argument('<file>', 'system file (.json, .yaml, .yml)')
-    .requiredOption('-o, --output <path>', 'output file (.svg, .pdf, .png or .json)')
+    .requiredOption('-o, --output <path>', 'output file (.svg, .pdf, .png, .html or .json)')
     .option('--width <length>', 'figure width: mm, or e.g. "170mm", "800px"')
     .option('--height <length>', 'figure height')
     .option('--style <style>', 'color, gray or lines')

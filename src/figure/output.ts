@@ -1,16 +1,20 @@
 /**
- * Render a composed figure to bytes by output format. PDF and PNG libraries load lazily, only
+ * Render a composed figure to bytes by output format. PDF, PNG and HTML modules load lazily, only
  * when asked for, so SVG and JSON runs start fast.
  */
 import { mmToPx } from '../render/options.js';
 import { buildScene, type FigureInput } from '../render/scene.js';
 import { sceneToSvg } from '../render/svg.js';
 
-export type FigureFormat = 'svg' | 'pdf' | 'png';
+export type FigureFormat = 'svg' | 'pdf' | 'png' | 'html';
 
 export async function renderFigure(input: FigureInput, format: FigureFormat): Promise<string | Uint8Array> {
   const scene = buildScene(input);
   if (format === 'svg') return sceneToSvg(scene);
+  if (format === 'html') {
+    const { sceneToHtml } = await import('../render/html.js');
+    return sceneToHtml(scene, input.model, input.options);
+  }
   if (format === 'pdf') {
     const { sceneToPdf } = await import('../render/pdf.js');
     return sceneToPdf(scene);

@@ -1,7 +1,7 @@
 /**
- * Axis ticks: "nice" linear ticks from d3-scale (steps of 1, 2 or 5 × 10ⁿ) inside the given
- * domain, formatted with a fixed number of decimals shared by the whole axis so that output is
- * byte-identical and the labels line up.
+ * Axis ticks: "nice" linear ticks (steps of 1, 2 or 5 × 10ⁿ) inside the given domain, formatted
+ * with a fixed number of decimals shared by the whole axis so that output is byte-identical and
+ * the labels line up. Tick values come from d3-scale.
  */
 import { scaleLinear } from 'd3-scale';
 
@@ -33,7 +33,7 @@ export function formatFixed(value: number, decimals: number): string {
 export function niceTicks(lo: number, hi: number, count: number): Tick[] {
   const a = Math.min(lo, hi);
   const b = Math.max(lo, hi);
-  const values = scaleLinear().domain([a, b]).ticks(Math.max(2, Math.round(count)));
+  const values = linearTicks(a, b, Math.max(2, Math.round(count)));
   const step = values.length > 1 ? values[1]! - values[0]! : 1;
   const d = decimalsFor(Math.abs(step));
   return values.map((v) => {
@@ -41,4 +41,14 @@ export function niceTicks(lo: number, hi: number, count: number): Tick[] {
     const value = Number(v.toFixed(Math.min(12, d + 6)));
     return { value, label: formatFixed(value, d) };
   });
+}
+
+/**
+ * About `count` evenly spaced round values in [a, b] (a < b): d3-scale's linear ticks (steps of
+ * 1, 2 or 5 × 10ⁿ, whole multiples of the step, computed without floating-point noise).
+ */
+export function linearTicks(a: number, b: number, count: number): number[] {
+  if (!(count > 0) || !(b >= a)) return [];
+  if (a === b) return [a];
+  return scaleLinear().domain([a, b]).ticks(count);
 }

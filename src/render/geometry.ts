@@ -50,19 +50,50 @@ export function ringArea(ring: readonly Point[]): number {
  * The function of t is convex and piecewise linear, so its minimum is at an end or a breakpoint.
  */
 export function scaledChebyshev(px: number, py: number, a: Point, b: Point, hx: number, hy: number): number {
-  const a1 = (a[0] - px) / hx;
-  const b1 = (b[0] - a[0]) / hx;
-  const a2 = (a[1] - py) / hy;
-  const b2 = (b[1] - a[1]) / hy;
-  const f = (t: number): number => Math.max(Math.abs(a1 + b1 * t), Math.abs(a2 + b2 * t));
-  let best = Math.min(f(0), f(1));
-  const cand = (t: number): void => {
-    if (t > 0 && t < 1) best = Math.min(best, f(t));
-  };
-  if (b1 !== 0) cand(-a1 / b1);
-  if (b2 !== 0) cand(-a2 / b2);
-  if (b1 - b2 !== 0) cand((a2 - a1) / (b1 - b2));
-  if (b1 + b2 !== 0) cand(-(a1 + a2) / (b1 + b2));
+  return chebyshevToSegment((a[0] - px) / hx, (a[1] - py) / hy, (b[0] - px) / hx, (b[1] - py) / hy);
+}
+
+/**
+ * Plain L∞ distance from the origin to the segment (ax, ay)–(bx, by). No allocation (hot path of
+ * the pole search): the candidates are the ends and the breakpoints t where x(t) = 0, y(t) = 0 or
+ * |x(t)| = |y(t)|.
+ */
+function chebyshevToSegment(ax: number, ay: number, bx: number, by: number): number {
+  const dx = bx - ax;
+  const dy = by - ay;
+  let best = Math.max(Math.abs(ax), Math.abs(ay));
+  const e = Math.max(Math.abs(bx), Math.abs(by));
+  if (e < best) best = e;
+  let t: number;
+  let v: number;
+  if (dx !== 0) {
+    t = -ax / dx;
+    if (t > 0 && t < 1) {
+      v = Math.abs(ay + dy * t);
+      if (v < best) best = v;
+    }
+  }
+  if (dy !== 0) {
+    t = -ay / dy;
+    if (t > 0 && t < 1) {
+      v = Math.abs(ax + dx * t);
+      if (v < best) best = v;
+    }
+  }
+  if (dx !== dy) {
+    t = (ay - ax) / (dx - dy);
+    if (t > 0 && t < 1) {
+      v = Math.abs(ax + dx * t);
+      if (v < best) best = v;
+    }
+  }
+  if (dx !== -dy) {
+    t = -(ax + ay) / (dx + dy);
+    if (t > 0 && t < 1) {
+      v = Math.abs(ax + dx * t);
+      if (v < best) best = v;
+    }
+  }
   return best;
 }
 
@@ -96,21 +127,53 @@ export function segmentsIntersect(p: Point, q: Point, r: Point, s: Point): boole
   return false;
 }
 
-/** Whether a segment meets an axis-aligned rectangle (inside or crossing an edge). */
+/**
+ * Whether a segment meets an axis-aligned rectangle (inside, crossing or touching an edge).
+ * Liang–Barsky parametric clipping, allocation-free (hot path of label layout).
+ */
 export function segmentHitsRect(a: Point, b: Point, r: Rect): boolean {
+  const x0 = r.x;
+  const y0 = r.y;
   const x1 = r.x + r.w;
   const y1 = r.y + r.h;
-  if (Math.max(a[0], b[0]) < r.x || Math.min(a[0], b[0]) > x1 || Math.max(a[1], b[1]) < r.y || Math.min(a[1], b[1]) > y1) return false;
-  const inR = (p: Point): boolean => p[0] >= r.x && p[0] <= x1 && p[1] >= r.y && p[1] <= y1;
-  if (inR(a) || inR(b)) return true;
-  const c: Point[] = [
-    [r.x, r.y],
-    [x1, r.y],
-    [x1, y1],
-    [r.x, y1],
-  ];
-  for (let i = 0; i < 4; i++) if (segmentsIntersect(a, b, c[i]!, c[(i + 1) % 4]!)) return true;
-  return false;
+  const ax = a[0];
+  const ay = a[1];
+  const bx = b[0];
+  const by = b[1];
+  if ((ax < x0 && bx < x0) || (ax > x1 && bx > x1) || (ay < y0 && by < y0) || (ay > y1 && by > y1)) return false;
+  let t0 = 0;
+  let t1 = 1;
+  const dx = bx - ax;
+  const dy = by - ay;
+  if (dx === 0) {
+    if (ax < x0 || ax > x1) return false;
+  } else {
+    let ta = (x0 - ax) / dx;
+    let tb = (x1 - ax) / dx;
+    if (ta > tb) {
+      const t = ta;
+      ta = tb;
+      tb = t;
+    }
+    if (ta > t0) t0 = ta;
+    if (tb < t1) t1 = tb;
+    if (t0 > t1) return false;
+  }
+  if (dy === 0) {
+    if (ay < y0 || ay > y1) return false;
+  } else {
+    let ta = (y0 - ay) / dy;
+    let tb = (y1 - ay) / dy;
+    if (ta > tb) {
+      const t = ta;
+      ta = tb;
+      tb = t;
+    }
+    if (ta > t0) t0 = ta;
+    if (tb < t1) t1 = tb;
+    if (t0 > t1) return false;
+  }
+  return true;
 }
 
 /** Whether two rectangles overlap (with `gap` of clearance required). */
@@ -138,8 +201,36 @@ interface Cell {
   y: number;
   h: number;
   d: number;
+  /** Objective: d with the plateau tie-break. */
+  score: number;
   max: number;
   seq: number;
+}
+
+/** Largest tie-break penalty (scaled units) across a region's box; below the default precision. */
+const CENTRE_BIAS = 0.008;
+/** Largest centring penalty across a region's box when the clearance is capped. */
+const CAPPED_BIAS = 0.15;
+
+/** Area centroid of rings (holes clockwise count negative), in coordinates scaled by 1/hx, 1/hy; null when degenerate. */
+function areaCentroid(rings: readonly (readonly Point[])[], hx: number, hy: number): [number, number] | null {
+  let a = 0;
+  let cx = 0;
+  let cy = 0;
+  for (const ring of rings) {
+    for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+      const xi = ring[i]![0] / hx;
+      const yi = ring[i]![1] / hy;
+      const xj = ring[j]![0] / hx;
+      const yj = ring[j]![1] / hy;
+      const f = xj * yi - xi * yj;
+      a += f;
+      cx += (xj + xi) * f;
+      cy += (yj + yi) * f;
+    }
+  }
+  if (Math.abs(a) < 1e-12) return null;
+  return [cx / (3 * a), cy / (3 * a)];
 }
 
 /** Binary max-heap on `max`, ties broken by insertion order (deterministic). */
@@ -148,42 +239,59 @@ class Heap {
   get size(): number {
     return this.a.length;
   }
-  private less(i: number, j: number): boolean {
-    const x = this.a[i]!;
-    const y = this.a[j]!;
-    return x.max < y.max || (x.max === y.max && x.seq > y.seq);
+  private before(x: Cell, y: Cell): boolean {
+    return x.max > y.max || (x.max === y.max && x.seq < y.seq);
   }
   push(c: Cell): void {
     const a = this.a;
+    let i = a.length;
     a.push(c);
-    let i = a.length - 1;
     while (i > 0) {
       const p = (i - 1) >> 1;
-      if (!this.less(p, i)) break;
-      [a[p], a[i]] = [a[i]!, a[p]!];
+      const parent = a[p]!;
+      if (!this.before(c, parent)) break;
+      a[i] = parent;
       i = p;
     }
+    a[i] = c;
   }
   pop(): Cell {
     const a = this.a;
     const top = a[0]!;
     const last = a.pop()!;
-    if (a.length > 0) {
-      a[0] = last;
+    const n = a.length;
+    if (n > 0) {
       let i = 0;
       for (;;) {
         const l = 2 * i + 1;
+        if (l >= n) break;
         const r = l + 1;
-        let m = i;
-        if (l < a.length && this.less(m, l)) m = l;
-        if (r < a.length && this.less(m, r)) m = r;
-        if (m === i) break;
-        [a[m], a[i]] = [a[i]!, a[m]!];
+        const m = r < n && this.before(a[r]!, a[l]!) ? r : l;
+        if (!this.before(a[m]!, last)) break;
+        a[i] = a[m]!;
         i = m;
       }
+      a[i] = last;
     }
     return top;
   }
+}
+
+export interface PoleOptions {
+  /** Search tolerance in scaled units (default 0.01). */
+  precision?: number;
+  /**
+   * Clearance (scale, > 1) beyond which more does not count: the search then returns the most
+   * central place (nearest the area centroid) among those with at least this clearance, if any.
+   * Between scale 1 and the cap, clearance and centrality are traded smoothly.
+   */
+  cap?: number;
+  /**
+   * Feasibility only: stop as soon as a centre with scale ≥ `need` is found, and skip cells
+   * that cannot exceed it by more than the precision (the same tolerance as the full search). The
+   * returned point is then *a* fitting centre, not the best one.
+   */
+  need?: number;
 }
 
 /**
@@ -192,75 +300,147 @@ class Heap {
  * obstacle segments — i.e. the centre at which the largest copy of the rectangle fits. Returns the
  * point and that distance `scale` (≥ 1 means the full-size rectangle fits; ≤ 0 means outside).
  * Quadtree branch-and-bound after Agafonkin's polylabel (Mapbox, 2016), with the L∞ metric;
- * `precision` is in scaled units.
+ * `precision` (or `opts.precision`) is in scaled units. Segments are kept in one flat array in
+ * scaled coordinates with their bounding boxes, so that a distance query skips every segment
+ * whose box is already farther than the nearest one found (exact: the L∞ distance to a segment is
+ * at least the distance to its box).
  */
 export function rectPole(
   rings: readonly (readonly Point[])[],
   obstacles: readonly Segment[],
   hx: number,
   hy: number,
-  precision = 0.01,
+  precisionOrOpts: number | PoleOptions = 0.01,
 ): { point: Point; scale: number } {
-  const edges = ringSegments(rings);
+  const opts: PoleOptions = typeof precisionOrOpts === 'number' ? { precision: precisionOrOpts } : precisionOrOpts;
+  const precision = opts.precision ?? 0.01;
+  const need = opts.need;
   let minX = Infinity;
   let minY = Infinity;
   let maxX = -Infinity;
   let maxY = -Infinity;
-  for (const ring of rings)
+  let nSeg = obstacles.length;
+  for (const ring of rings) {
+    nSeg += ring.length;
     for (const [x, y] of ring) {
-      minX = Math.min(minX, x);
-      minY = Math.min(minY, y);
-      maxX = Math.max(maxX, x);
-      maxY = Math.max(maxY, y);
+      if (x < minX) minX = x;
+      if (y < minY) minY = y;
+      if (x > maxX) maxX = x;
+      if (y > maxY) maxY = y;
     }
+  }
   if (!(maxX > minX && maxY > minY)) return { point: [minX, minY], scale: 0 };
-  // Work in scaled coordinates so the metric is plain L∞.
-  const sx = (x: number): number => x / hx;
-  const sy = (y: number): number => y / hy;
-  const dist = (x: number, y: number): number => {
-    const px = x * hx;
-    const py = y * hy;
-    let d = Infinity;
-    for (const [a, b] of edges) d = Math.min(d, scaledChebyshev(px, py, a, b, hx, hy));
-    for (const [a, b] of obstacles) d = Math.min(d, scaledChebyshev(px, py, a, b, hx, hy));
-    return insideRings([px, py], rings) ? d : -d;
+  // Work in scaled coordinates so the metric is plain L∞. Per segment: ax, ay, bx, by, then box.
+  const S = new Float64Array(nSeg * 8);
+  let k = 0;
+  const add = (a: Point, b: Point): void => {
+    const ax = a[0] / hx;
+    const ay = a[1] / hy;
+    const bx = b[0] / hx;
+    const by = b[1] / hy;
+    S[k] = ax;
+    S[k + 1] = ay;
+    S[k + 2] = bx;
+    S[k + 3] = by;
+    S[k + 4] = Math.min(ax, bx);
+    S[k + 5] = Math.min(ay, by);
+    S[k + 6] = Math.max(ax, bx);
+    S[k + 7] = Math.max(ay, by);
+    k += 8;
   };
+  for (const ring of rings) for (let i = 0; i < ring.length; i++) add(ring[i]!, ring[(i + 1) % ring.length]!);
+  for (const [a, b] of obstacles) add(a, b);
+  // Ring edges (scaled) for the even–odd inside test: the first entries of S.
+  const nEdge = nSeg - obstacles.length;
+  const inside = (x: number, y: number): boolean => {
+    let c = false;
+    for (let i = 0; i < nEdge * 8; i += 8) {
+      const yi = S[i + 1]!;
+      const yj = S[i + 3]!;
+      if (yi > y !== yj > y) {
+        const xi = S[i]!;
+        if (x < ((S[i + 2]! - xi) * (y - yi)) / (yj - yi) + xi) c = !c;
+      }
+    }
+    return c;
+  };
+  const dist = (x: number, y: number): number => {
+    let d = Infinity;
+    for (let i = 0; i < k; i += 8) {
+      // Lower bound: L∞ distance to the segment's box.
+      const ox = x < S[i + 4]! ? S[i + 4]! - x : x > S[i + 6]! ? x - S[i + 6]! : 0;
+      const oy = y < S[i + 5]! ? S[i + 5]! - y : y > S[i + 7]! ? y - S[i + 7]! : 0;
+      if ((ox > oy ? ox : oy) >= d) continue;
+      const v = chebyshevToSegment(S[i]! - x, S[i + 1]! - y, S[i + 2]! - x, S[i + 3]! - y);
+      if (v < d) d = v;
+    }
+    return inside(x, y) ? d : -d;
+  };
+  const x0 = minX / hx;
+  const y0 = minY / hy;
+  const w = maxX / hx - x0;
+  const hgt = maxY / hy - y0;
+  // Preference for the middle: a penalty for the L∞ distance from the area centroid, at most
+  // CENTRE_BIAS over the box (a mere tie-break on plateaus), or CAPPED_BIAS when the clearance is
+  // capped (then the most central place with that clearance wins).
+  const [mx, my] = areaCentroid(rings, hx, hy) ?? [x0 + w / 2, y0 + hgt / 2];
+  const cap = opts.cap ?? Infinity;
+  const bias = need !== undefined ? 0 : (opts.cap === undefined ? CENTRE_BIAS : CAPPED_BIAS) / Math.max(w, hgt);
   let seq = 0;
+  let reached: Cell | null = null;
   const cell = (x: number, y: number, h: number): Cell => {
     const d = dist(x, y);
-    return { x, y, h, d, max: d + h, seq: seq++ };
+    const ox = Math.abs(x - mx);
+    const oy = Math.abs(y - my);
+    // In L∞ the distance changes at most by h (the cell's half-size) inside the cell.
+    const off = ox > oy ? ox : oy;
+    // With a cap, the centring weight grows from 0 at scale 1 (a label that barely fits keeps all
+    // its clearance) to full at the cap, so the score is continuous.
+    const weight = (t: number): number => (cap === Infinity ? 1 : Math.min(1, Math.max(0, (t - 1) / (cap - 1))));
+    // Upper bound of the score inside the cell: d grows by at most h and the offset shrinks by at
+    // most h; the score increases with d (slope ≥ 1 − CAPPED_BIAS/(cap − 1) > 0), so the bound is
+    // the score at d + h with the smallest offset.
+    const hi = Math.min(d + h, cap) - bias * weight(d + h) * Math.max(0, off - h);
+    const c: Cell = { x, y, h, d, score: Math.min(d, cap) - bias * weight(d) * off, max: hi, seq: seq++ };
+    if (need !== undefined && d >= need && !reached) reached = c;
+    return c;
   };
-  const x0 = sx(minX);
-  const y0 = sy(minY);
-  const w = sx(maxX) - x0;
-  const hgt = sy(maxY) - y0;
   const size = Math.min(w, hgt);
   const heap = new Heap();
   const h0 = size / 2;
-  for (let x = x0; x < x0 + w; x += size) for (let y = y0; y < y0 + hgt; y += size) heap.push(cell(x + h0, y + h0, h0));
   // Start from the centroid of the vertices and the bbox centre, whichever is better.
-  let best = cell(x0 + w / 2, y0 + hgt / 2, 0);
+  let best = cell(mx, my, 0);
   let cx = 0;
   let cy = 0;
   let n = 0;
   for (const ring of rings)
     for (const [x, y] of ring) {
-      cx += sx(x);
-      cy += sy(y);
+      cx += x / hx;
+      cy += y / hy;
       n++;
     }
   const centroid = cell(cx / n, cy / n, 0);
-  if (centroid.d > best.d) best = centroid;
+  if (centroid.score > best.score) best = centroid;
+  if (!reached) {
+    for (let x = x0; x < x0 + w; x += size) for (let y = y0; y < y0 + hgt; y += size) heap.push(cell(x + h0, y + h0, h0));
+  }
   let guard = 0;
-  while (heap.size > 0 && guard++ < 200000) {
+  while (heap.size > 0 && guard++ < 200000 && !reached) {
     const c = heap.pop();
-    if (c.d > best.d) best = c;
-    if (c.max - best.d <= precision) continue;
+    if (c.score > best.score) best = c;
+    if (c.max - best.score <= precision) continue;
+    // The heap is ordered by bound: nothing left can reach `need` by more than the tolerance.
+    if (need !== undefined && c.max < need + precision) break;
     const h = c.h / 2;
     heap.push(cell(c.x - h, c.y - h, h));
     heap.push(cell(c.x + h, c.y - h, h));
     heap.push(cell(c.x - h, c.y + h, h));
     heap.push(cell(c.x + h, c.y + h, h));
+  }
+  if (reached) {
+    // Feasibility answer: the first centre found that reaches `need`.
+    const r: Cell = reached;
+    return { point: [r.x * hx, r.y * hy], scale: r.d };
   }
   return { point: [best.x * hx, best.y * hy], scale: best.d };
 }

@@ -3,8 +3,9 @@ export { DEFAULT_FIGURE, parseLength, resolveOptions, validateOptions, mmToPt, p
 export type { FigureOptions } from './options.js';
 export { buildScene, CAUTION, parseDash, wrapText } from './scene.js';
 export type { FigureInput } from './scene.js';
-export type { Scene, SceneItem, ScenePath, SceneText, SceneCircle, SceneGroup, TextRun, Rect, Point } from './scene-types.js';
+export type { Scene, SceneItem, ScenePath, SceneText, SceneCircle, SceneGroup, TextRun, Rect, Point, PlotFrame } from './scene-types.js';
 export { sceneToSvg } from './svg.js';
 export { sceneToPdf } from './pdf.js';
+export { sceneToHtml } from './html.js';
 export { svgToPng, pngWidthFor, PNG_FALLBACK_FONT } from './png.js';
-export { formulaRuns, runsText } from './typeset.js';
+export { formulaRuns, runsText, runsUnicode, scriptRuns } from './typeset.js';

@@ -82,6 +82,21 @@ export interface SceneGroup {
 
 export type SceneItem = ScenePath | SceneText | SceneCircle | SceneGroup;
 
+/**
+ * The plot's data ↔ figure mapping (figure units, pt; y down). x0 ↔ pH[0], x1 ↔ pH[1],
+ * y0 ↔ E[0] (the bottom edge), y1 ↔ E[1] (the top edge); both axes are linear:
+ * x = x0 + (pH − pH[0])·(x1 − x0)/(pH[1] − pH[0]), y = y0 + (E − E[0])·(y1 − y0)/(E[1] − E[0]).
+ * E is in V vs SHE.
+ */
+export interface PlotFrame {
+  x0: number;
+  x1: number;
+  y0: number;
+  y1: number;
+  pH: [number, number];
+  E: [number, number];
+}
+
 export interface Scene {
   widthPt: number;
   heightPt: number;
@@ -91,6 +106,8 @@ export interface Scene {
   background: string;
   /** Plot area (inside the axes frame). */
   plot: Rect;
+  /** Data ↔ figure mapping of the plot area. */
+  frame: PlotFrame;
   items: SceneItem[];
   /** Title for document metadata. */
   title: string;

@@ -8,6 +8,7 @@ import {
   clipPolyline,
   clipRing,
   inflate,
+  insideRings,
   pointAlong,
   polylineLength,
   polylineSegments,
@@ -32,9 +33,9 @@ import { CAP_HEIGHT, FONT_SAFETY, runsExtent, runsWidth, stringWidth } from './m
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
 import { assignFills, CLASS_NAMES, CLASS_TINTS, inks, toGray } from './palette.js';
 import type { Point, Rect, Scene, SceneCircle, SceneGroup, SceneItem, ScenePath, SceneText, TextRun } from './scene-types.js';
-import { formulaRuns, plainRuns, powerOfTenRuns, quantityRuns, richRuns, runsText } from './typeset.js';
+import { expandScripts, formulaRuns, plainRuns, powerOfTenRuns, quantityRuns, richRuns, runsUnicode } from './typeset.js';
 
-export type { Scene, SceneItem, ScenePath, SceneText, SceneCircle, SceneGroup, TextRun, Rect, Point } from './scene-types.js';
+export type { Scene, SceneItem, ScenePath, SceneText, SceneCircle, SceneGroup, TextRun, Rect, Point, PlotFrame } from './scene-types.js';
 
 export interface FigureInput {
   model: DiagramModel;
@@ -105,7 +106,7 @@ const text = (
   anchor: SceneText['anchor'],
   fill: string,
   extra: Partial<SceneText> = {},
-): SceneText => ({ type: 'text', role, x, y, size, anchor, rotate: 0, runs, fill, ...extra });
+): SceneText => ({ type: 'text', role, x, y, size, anchor, rotate: 0, runs: expandScripts(runs), fill, ...extra });
 
 const line = (role: string, pieces: Point[][], stroke: string, width: number, dash: number[] | null, extra: Partial<ScenePath> = {}): ScenePath => ({
   type: 'path',
@@ -258,11 +259,13 @@ export function buildScene(input: FigureInput): Scene {
   const layout = new Layout(plot, { x: 0, y: 0, w: W, h: H });
 
   // ---- Region fills -------------------------------------------------------------------------
-  const regionRings: Point[][][] = model.regions.map((r) =>
-    r.polygons.flatMap((poly) =>
-      poly.map((ring) => simplifyCollinear(clipRing(ring.map((p) => fr.toFig(p)), plot), true)).filter((ring) => ring.length >= 3),
-    ),
+  // Per region, per polygon (outer ring and holes), clipped to the plot.
+  const regionPolys: Point[][][][] = model.regions.map((r) =>
+    r.polygons
+      .map((poly) => poly.map((ring) => simplifyCollinear(clipRing(ring.map((p) => fr.toFig(p)), plot), true)).filter((ring) => ring.length >= 3))
+      .filter((rings) => rings.length > 0),
   );
+  const regionRings: Point[][][] = regionPolys.map((polys) => polys.flat());
   const speciesIndex = new Map<string, number[]>();
   model.regions.forEach((r, i) => speciesIndex.set(r.species, [...(speciesIndex.get(r.species) ?? []), i]));
   const neighbours: Set<number>[] = model.regions.map(() => new Set());
@@ -461,36 +464,58 @@ export function buildScene(input: FigureInput): Scene {
   }
 
   // ---- Region labels --------------------------------------------------------------------------
-  const order = model.regions
-    .map((r, i) => ({ i, area: regionRings[i]!.reduce((s, ring) => s + Math.abs(ringArea(ring)), 0) }))
-    .filter((e) => e.area > 0)
-    .sort((a, b) => b.area - a.area || a.i - b.i);
-  const requests: RegionLabelRequest[] = order.map(({ i }) => ({ key: String(i), runs: formulaRuns(model.regions[i]!.species), rings: regionRings[i]! }));
+  // One label per region, in its largest piece; the other pieces of a region in several pieces
+  // get a label too where it fits inside them (no leaders for those).
+  const polyArea = (rings: Point[][]): number => rings.reduce((s, ring) => s + Math.abs(ringArea(ring)), 0);
+  const pieces: { i: number; k: number; area: number; main: boolean }[] = [];
+  model.regions.forEach((_, i) => {
+    const areas = regionPolys[i]!.map(polyArea);
+    const mainK = areas.indexOf(Math.max(...areas));
+    areas.forEach((area, k) => {
+      if (area > 0) pieces.push({ i, k, area, main: k === mainK });
+    });
+  });
+  pieces.sort((a, b) => Number(b.main) - Number(a.main) || b.area - a.area || a.i - b.i || a.k - b.k);
+  const requests: RegionLabelRequest[] = pieces.map(({ i, k, main }) => ({
+    key: `${i}:${k}`,
+    runs: formulaRuns(model.regions[i]!.species),
+    rings: regionPolys[i]![k]!,
+    ...(main ? {} : { optional: true }),
+  }));
   const minLabel = Math.max(MIN_FONT_PT, 0.7 * fs);
   const placements = placeRegionLabels(layout, requests, fs, minLabel);
   const labelItems: SceneItem[] = [];
+  /** Fill of the region under a point (for knock-outs), white where there is none. */
+  const fillAt = (p: Point): string => {
+    for (let i = 0; i < regionRings.length; i++) if (insideRings(p, regionRings[i]!)) return fills[i] ?? '#ffffff';
+    return '#ffffff';
+  };
   for (const pl of placements) {
-    const r = model.regions[Number(pl.key)]!;
-    const base = baselineForCentre(pl.runs, pl.size, pl.cy);
+    if (!pl) continue;
+    const ri = Number(pl.key.split(':')[0]);
+    const r = model.regions[ri]!;
     if (layout.hits(pl.box, layout.soft) > 0) {
-      // A soft line (water, family, …) runs under the label: knock it out with the region's fill.
+      // A soft line (water, family, …) runs under the label: knock it out with the fill under it.
       const kb = inflate(pl.box, 0.08 * pl.size);
       labelItems.push({
         type: 'path',
         role: 'label-knockout',
         subpaths: [{ points: [[kb.x, kb.y], [kb.x + kb.w, kb.y], [kb.x + kb.w, kb.y + kb.h], [kb.x, kb.y + kb.h]], closed: true }],
-        fill: pl.leader ? '#ffffff' : (fills[Number(pl.key)] ?? '#ffffff'),
+        fill: pl.leader ? fillAt([pl.cx, pl.cy]) : (fills[ri] ?? '#ffffff'),
         stroke: null,
         strokeWidth: 0,
         dash: null,
       });
     }
-    labelItems.push(
-      text('region-label', pl.runs, pl.cx, base, pl.size, 'middle', ink.text, {
-        box: pl.box,
-        data: { species: r.species, placement: pl.leader ? 'outside' : 'inside' },
-      }),
-    );
+    const data = { species: r.species, placement: pl.leader ? 'outside' : 'inside' };
+    if (pl.angle === 0) {
+      const base = baselineForCentre(pl.runs, pl.size, pl.cy);
+      labelItems.push(text('region-label', pl.runs, pl.cx, base, pl.size, 'middle', ink.text, { box: pl.box, data }));
+    } else {
+      // Reading upwards: the baseline is a vertical line right of the ink centre.
+      const { top, bottom } = runsExtent(pl.runs, pl.size);
+      labelItems.push(text('region-label', pl.runs, pl.cx - (top + bottom) / 2, pl.cy, pl.size, 'middle', ink.text, { rotate: -90, data }));
+    }
     if (pl.leader) {
       labelItems.push(line('leader', [[pl.leader[0], pl.leader[1]]], ink.text, Math.max(0.3, 0.4 * lw), null, { lineCap: 'round', data: { species: r.species } }));
       labelItems.push({ type: 'circle', role: 'leader-dot', cx: pl.leader[0][0], cy: pl.leader[0][1], r: Math.max(0.5, 0.55 * lw), fill: ink.text, stroke: null, strokeWidth: 0 });
@@ -781,8 +806,9 @@ export function buildScene(input: FigureInput): Scene {
     fontFamily: o.fontFamily,
     background: '#ffffff',
     plot,
+    frame: { x0: plot.x, x1: plot.x + plot.w, y0: plot.y + plot.h, y1: plot.y, pH: [pH0, pH1], E: [E0, E1] },
     items,
-    title: runsText(titleRuns),
+    title: runsUnicode(titleRuns),
   };
 }
 

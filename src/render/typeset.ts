@@ -47,9 +47,74 @@ export function formulaRuns(text: string): TextRun[] {
   return runs;
 }
 
-/** Plain text as a single run. */
+/** Unicode superscript characters → the plain character set as a superscript run (minus as U+2212). */
+const SUPERSCRIPTS: Record<string, string> = {
+  '\u2070': '0', '\u00b9': '1', '\u00b2': '2', '\u00b3': '3', '\u2074': '4', '\u2075': '5', '\u2076': '6',
+  '\u2077': '7', '\u2078': '8', '\u2079': '9', '\u207a': '+', '\u207b': '\u2212', '\u207d': '(', '\u207e': ')',
+};
+/** Unicode subscript characters → the plain character as a subscript run. */
+const SUBSCRIPTS: Record<string, string> = {
+  '\u2080': '0', '\u2081': '1', '\u2082': '2', '\u2083': '3', '\u2084': '4', '\u2085': '5', '\u2086': '6',
+  '\u2087': '7', '\u2088': '8', '\u2089': '9', '\u208a': '+', '\u208b': '\u2212', '\u208d': '(', '\u208e': ')',
+};
+
+/**
+ * Splits the Unicode super- and subscript characters of a text (⁰…⁹ ⁺ ⁻ and ₀…₉ ₊ ₋) into
+ * sup/sub runs of ordinary characters, so that every backend typesets them the same way — the
+ * standard PDF font has no glyphs for most of them: "10⁻⁶" → "10", sup "−6"; "H₂O" → "H", sub "2", "O".
+ */
+export function scriptRuns(text: string, italic = false): TextRun[] {
+  const runs: TextRun[] = [];
+  for (const ch of text) {
+    const sup = SUPERSCRIPTS[ch];
+    const sub = SUBSCRIPTS[ch];
+    if (sup !== undefined) push(runs, sup, 'sup', italic);
+    else if (sub !== undefined) push(runs, sub, 'sub', italic);
+    else push(runs, ch, 'normal', italic);
+  }
+  return runs;
+}
+
+/** Runs with any Unicode super/subscript characters of normal runs split out (see scriptRuns). */
+export function expandScripts(runs: readonly TextRun[]): TextRun[] {
+  if (!runs.some((r) => r.shift === 'normal' && /[\u00b2\u00b3\u00b9\u2070-\u208e]/.test(r.text))) return [...runs];
+  const out: TextRun[] = [];
+  for (const r of runs) {
+    if (r.shift !== 'normal') push(out, r.text, r.shift, r.italic ?? false);
+    else for (const q of scriptRuns(r.text, r.italic ?? false)) push(out, q.text, q.shift, q.italic ?? false);
+  }
+  return out;
+}
+
+/** Plain text as runs: one run, unless it holds Unicode super/subscript characters (see scriptRuns). */
 export function plainRuns(text: string, italic = false): TextRun[] {
+  if (/[\u00b2\u00b3\u00b9\u2070-\u208e]/.test(text)) return scriptRuns(text, italic);
   return italic ? [{ text, shift: 'normal', italic }] : [{ text, shift: 'normal' }];
+}
+
+const TO_SUP: Record<string, string> = {
+  '0': '\u2070', '1': '\u00b9', '2': '\u00b2', '3': '\u00b3', '4': '\u2074', '5': '\u2075', '6': '\u2076', '7': '\u2077',
+  '8': '\u2078', '9': '\u2079', '+': '\u207a', '-': '\u207b', '\u2212': '\u207b', '(': '\u207d', ')': '\u207e',
+};
+const TO_SUB: Record<string, string> = {
+  '0': '\u2080', '1': '\u2081', '2': '\u2082', '3': '\u2083', '4': '\u2084', '5': '\u2085', '6': '\u2086', '7': '\u2087',
+  '8': '\u2088', '9': '\u2089', '+': '\u208a', '-': '\u208b', '\u2212': '\u208b', '(': '\u208d', ')': '\u208e',
+};
+
+/**
+ * Runs as one line of plain Unicode text, scripts written with the Unicode super/subscript
+ * characters where they exist (for HTML read-outs and tooltips): Fe, sup "2+" → "Fe²⁺".
+ */
+export function runsUnicode(runs: readonly TextRun[]): string {
+  let s = '';
+  for (const r of runs) {
+    if (r.shift === 'normal') s += r.text;
+    else {
+      const map = r.shift === 'sup' ? TO_SUP : TO_SUB;
+      for (const ch of r.text) s += map[ch] ?? ch;
+    }
+  }
+  return s;
 }
 
 /** Replaces an ASCII hyphen-minus used as a sign by U+2212 minus. */
@@ -99,11 +164,11 @@ export function richRuns(text: string): TextRun[] {
   let at = 0;
   let m: RegExpExecArray | null;
   while ((m = re.exec(text)) !== null) {
-    push(runs, text.slice(at, m.index), 'normal');
+    for (const r of plainRuns(text.slice(at, m.index))) push(runs, r.text, r.shift);
     for (const r of formulaRuns(m[1]!)) push(runs, r.text, r.shift, r.italic);
     at = m.index + m[0].length;
   }
-  push(runs, text.slice(at), 'normal');
+  for (const r of plainRuns(text.slice(at))) push(runs, r.text, r.shift);
   return runs;
 }
 

@@ -60,17 +60,40 @@ export function gridMap(input: SolverInput, nx: number, ny: number): GridMap {
   const [e0, e1] = input.E;
   const dp = nx > 1 ? (p1 - p0) / (nx - 1) : 0;
   const de = ny > 1 ? (e1 - e0) / (ny - 1) : 0;
-  // Step 2: rows.
+  // Step 2: rows. Along a row E is fixed, so g + e·E is folded into one constant per species.
+  const rowBase = new Float64Array(N);
+  const ligBase = lig.map((L) => new Float64Array(L.n));
   for (let j = 0; j < ny; j++) {
     const E = e0 + j * de;
     const row = j * nx;
+    for (let k = 0; k < N; k++) rowBase[k] = mg[k] + me[k] * E;
+    for (let m = 0; m < nL; m++) for (let k = 0; k < lig[m].n; k++) ligBase[m][k] = lig[m].g[k] + lig[m].e[k] * E;
+    if (nL === 0) {
+      // No ligands: a plain minimum over planes.
+      for (let i = 0; i < nx; i++) {
+        const pH = p0 + i * dp;
+        let best = Infinity;
+        let arg = 0;
+        for (let k = 0; k < N; k++) {
+          const v = rowBase[k] + mp[k] * pH;
+          if (v < best) {
+            best = v;
+            arg = k;
+          }
+        }
+        index[row + i] = arg;
+      }
+      continue;
+    }
     for (let i = 0; i < nx; i++) {
       const pH = p0 + i * dp;
+      // Each ligand's μ_L at this node, in solving order.
       for (let m = 0; m < nL; m++) {
         const L = lig[m];
+        const base = ligBase[m];
         let best = Infinity;
         for (let k = 0; k < L.n; k++) {
-          let v = L.g[k] + L.p[k] * pH + L.e[k] * E;
+          let v = base[k] + L.p[k] * pH;
           for (let q = 0; q < m; q++) v -= L.kPrev[k * m + q] * mu[q];
           if (v < best) best = v;
         }
@@ -79,7 +102,7 @@ export function gridMap(input: SolverInput, nx: number, ny: number): GridMap {
       let best = Infinity;
       let arg = 0;
       for (let k = 0; k < N; k++) {
-        let v = mg[k] + mp[k] * pH + me[k] * E;
+        let v = rowBase[k] + mp[k] * pH;
         for (let m = 0; m < nL; m++) v -= mk[k * nL + m] * mu[m];
         if (v < best) {
           best = v;
