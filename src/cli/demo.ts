@@ -28,6 +28,7 @@ export function registerDemo(program: Command): void {
       for (const d of DEMO_SYSTEMS) {
         const spec = readSpec(d.data, `demo ${d.name}`);
         const c = compute(spec);
+        for (const w of c.model.warnings) process.stderr.write(`warning (${d.name}): ${w}\n`);
         const fig = figureSettings(spec);
         const input = figureInput(c, fig);
         const written: string[] = [];
