@@ -14,6 +14,7 @@ import { reportHtml } from '../report/report-html.js';
 import { reportMarkdown } from '../report/report-md.js';
 import { InputError } from '../system/errors.js';
 import { renderChecked } from './overlay.js';
+import { buildScene } from '../render/scene.js';
 import { writeAtomic } from './write.js';
 
 const REPORT_FORMATS = ['md', 'html', 'pdf'] as const;
@@ -57,9 +58,17 @@ export function registerReport(program: Command): void {
         const svg = (await renderChecked(input, 'svg')) as string;
         writeAtomic(opts.output, reportHtml(data, svg, caption));
       } else {
-        const png = (await renderChecked(input, 'png')) as Uint8Array;
+        // Vector figure; its caption is printed under it by the report, so the figure omits its own.
+        const noCaption = { ...input, options: { ...input.options, show: { ...input.options.show, caption: false } } };
+        let scene;
+        try {
+          scene = buildScene(noCaption);
+        } catch (e) {
+          if (e instanceof Error && /too small/.test(e.message)) throw new InputError('command line', '--width/--height', `a larger figure (${e.message})`);
+          throw e;
+        }
         const { reportPdf } = await import('../report/report-pdf.js');
-        writeAtomic(opts.output, await reportPdf(data, png, { width: fig.options.width, height: fig.options.height }, caption));
+        writeAtomic(opts.output, await reportPdf(data, scene, { width: fig.options.width, height: fig.options.height }, caption));
       }
       process.stdout.write(`wrote ${opts.output}\n`);
     });

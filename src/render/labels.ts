@@ -452,3 +452,166 @@ export function firstFree(layout: Layout, candidates: readonly OrientedBox[], ga
   for (let i = 0; i < candidates.length; i++) if (layout.orientedFree(candidates[i]!, gap, soft, extra)) return i;
   return -1;
 }
+
+export interface MarkLabelPlacement {
+  /** Centre of the text ink box. */
+  cx: number;
+  cy: number;
+  box: Rect;
+  /** From the mark's edge to the label box, when the label had to move away from its mark. */
+  leader?: [Point, Point];
+  /** Whether a soft line (water line, family, overlay, …) runs under the label (knock it out). */
+  overSoft: boolean;
+}
+
+/**
+ * Places the label of an operating mark: a point (`kind` 'point', `mark` the marker's square) or a
+ * box or path end ('box', `mark` its rectangle). Same rules as region labels: never over a
+ * boundary or another label, off soft lines when possible, inside the plot. Tried in order:
+ * (1) the usual places beside the mark (points: the four diagonals, then above, below, right,
+ * left; boxes: above and below aligned with either edge, then beside, then centred) at two
+ * distances, clear of everything; (2) the nearest free place around the mark (16
+ * directions, growing radius) with a leader line from the mark's edge (also where a boundary runs
+ * between the mark and a place beside it), clear of soft lines, then
+ * allowing them at a cost; (3) a place beside the mark over soft lines; (4) the first place beside
+ * the mark regardless. `own` are segments of the mark itself to keep off (e.g. a path). Adds the
+ * box (and leader, as a hard line) to the layout.
+ */
+export function placeMarkLabel(
+  layout: Layout,
+  runs: readonly TextRun[],
+  size: number,
+  mark: Rect,
+  kind: 'point' | 'box',
+  role: string,
+  own: readonly Segment[] = [],
+): MarkLabelPlacement {
+  const w = runsWidth(runs, size) * FONT_SAFETY;
+  const { top, bottom } = runsExtent(runs, size);
+  const h = bottom - top;
+  const hw = w / 2;
+  const hh = h / 2;
+  const gap = 0.12 * size;
+  const mx0 = mark.x;
+  const my0 = mark.y;
+  const mx1 = mark.x + mark.w;
+  const my1 = mark.y + mark.h;
+  const near = (g: number): OrientedBox[] => {
+    const at = (cx: number, cy: number): OrientedBox => ({ cx, cy, hx: hw, hy: hh, angle: 0 });
+    if (kind === 'point') {
+      const d = 0.5 * g;
+      return [
+        at(mx1 + d + hw, my0 - d - hh),
+        at(mx1 + d + hw, my1 + d + hh),
+        at(mx0 - d - hw, my0 - d - hh),
+        at(mx0 - d - hw, my1 + d + hh),
+        at((mx0 + mx1) / 2, my0 - g - hh),
+        at((mx0 + mx1) / 2, my1 + g + hh),
+        at(mx1 + g + hw, (my0 + my1) / 2),
+        at(mx0 - g - hw, (my0 + my1) / 2),
+      ];
+    }
+    return [
+      at(mx0 + hw, my0 - g - hh),
+      at(mx1 - hw, my0 - g - hh),
+      at(mx0 + hw, my1 + g + hh),
+      at(mx1 - hw, my1 + g + hh),
+      at(mx1 + g + hw, my0 + hh),
+      at(mx0 - g - hw, my0 + hh),
+      at(mx1 + g + hw, my1 - hh),
+      at(mx0 - g - hw, my1 - hh),
+      at((mx0 + mx1) / 2, my0 - g - hh),
+      at((mx0 + mx1) / 2, my1 + g + hh),
+      at(mx1 + g + hw, (my0 + my1) / 2),
+      at(mx0 - g - hw, (my0 + my1) / 2),
+    ];
+  };
+  const g0 = 0.3 * size;
+  const first = near(g0);
+  const commit = (ob: OrientedBox, leader?: [Point, Point]): MarkLabelPlacement => {
+    const box = { x: ob.cx - hw, y: ob.cy - hh, w, h };
+    layout.addBox(box, role);
+    if (leader) {
+      layout.leaders.push(leader);
+      layout.hard.push(leader);
+    }
+    const overSoft = layout.anyHit(box, layout.soft);
+    return { cx: ob.cx, cy: ob.cy, box, ...(leader ? { leader } : {}), overSoft };
+  };
+  // (1) Beside the mark, clear of everything, with no boundary between mark and label.
+  const separated = (ob: OrientedBox): boolean => {
+    const a = nearestOnRect([ob.cx, ob.cy], mark);
+    const b = nearestOnRect(a, { x: ob.cx - hw, y: ob.cy - hh, w, h });
+    return countCrossings(a, b, layout.hard) > 0;
+  };
+  for (const g of [g0, g0 + 0.6 * size]) {
+    for (const ob of g === g0 ? first : near(g)) if (layout.orientedFree(ob, gap, true, own) && !separated(ob)) return commit(ob);
+  }
+  // (2) Further away with a leader.
+  for (const allowSoft of [false, true]) {
+    const r = leaderPlace(layout, w, h, mark, size, allowSoft, own);
+    if (r) return commit({ cx: r.cx, cy: r.cy, hx: hw, hy: hh, angle: 0 }, r.leader);
+  }
+  // (3) Beside the mark over soft lines; (4) the first place regardless.
+  const idx = firstFree(layout, first, gap, false);
+  return commit(first[Math.max(0, idx)]!);
+}
+
+/** Leader placement for placeMarkLabel: nearest free box around the mark, cost = distance + penalties. */
+function leaderPlace(
+  layout: Layout,
+  w: number,
+  h: number,
+  mark: Rect,
+  size: number,
+  allowSoft: boolean,
+  own: readonly Segment[],
+): { cx: number; cy: number; leader: [Point, Point] } | null {
+  const mc: Point = [mark.x + mark.w / 2, mark.y + mark.h / 2];
+  const step = 0.6 * size;
+  const pad = 0.2 * size;
+  let best: { cost: number; cx: number; cy: number; leader: [Point, Point] } | null = null;
+  for (let k = 1; k <= 16; k++) {
+    const r = 0.9 * size + k * step;
+    for (const [dx, dy] of DIRECTIONS) {
+      const cx = mc[0] + dx * (r + (mark.w / 2) * Math.abs(dx) + (w / 2) * Math.abs(dx));
+      const cy = mc[1] + dy * (r + (mark.h / 2) * Math.abs(dy) + (h / 2) * Math.abs(dy));
+      const box = { x: cx - w / 2, y: cy - h / 2, w, h };
+      const padded = inflate(box, pad);
+      if (!rectInside(padded, layout.plot)) continue;
+      if (!layout.boxFree(padded, 0)) continue;
+      if (layout.anyHit(padded, layout.hard) || layout.anyHit(padded, own)) continue;
+      const soft = layout.hits(padded, layout.soft);
+      if (soft > 0 && !allowSoft) continue;
+      const start = nearestOnRect([cx, cy], mark);
+      const end = nearestOnRect(start, box);
+      let blocked = false;
+      for (const b of layout.boxes) {
+        if (rectsOverlap(b.rect, mark, -1e-6)) continue; // the mark's own box
+        if (segmentHitsRect(start, end, b.rect)) {
+          blocked = true;
+          break;
+        }
+      }
+      if (!blocked) {
+        for (const [p, q] of layout.leaders) {
+          if (segmentCross(start, end, p, q)) {
+            blocked = true;
+            break;
+          }
+        }
+      }
+      if (blocked) continue;
+      const cost = r + 4 * size * soft + 3 * size * countCrossings(start, end, layout.hard);
+      if (!best || cost < best.cost - 1e-9) best = { cost, cx, cy, leader: [start, end] };
+    }
+    if (best && best.cost <= r) break;
+  }
+  if (!best) return null;
+  // Stop the leader just short of the text.
+  const [s, e] = best.leader;
+  const len = Math.hypot(e[0] - s[0], e[1] - s[1]);
+  const trim = Math.min(len * 0.5, 0.15 * size);
+  const tip: Point = len > 0 ? [e[0] - ((e[0] - s[0]) / len) * trim, e[1] - ((e[1] - s[1]) / len) * trim] : e;
+  return { cx: best.cx, cy: best.cy, leader: [s, tip] };
+}

@@ -1,24 +1,28 @@
 /**
- * Region fills. Each class has two tints whose CIE L* (lightness) differ; the classes sit at
- * separate lightness bands (element darkest, dissolved lightest) so that a grayscale copy or a
- * reader with a red–green colour-vision deficiency still tells classes and neighbours apart:
+ * Region fills. Each class has three tints whose CIE L* (lightness) differ; the first two tints of
+ * the classes sit at separate lightness bands (element darkest, dissolved lightest) so that a
+ * grayscale copy or a reader with a red–green colour-vision deficiency still tells classes and
+ * neighbours apart:
  *
- *   element   (immunity)     blue-grey     L* ≈ 65 / 71
- *   solid     (passivation)  teal / olive  L* ≈ 76.5 / 82.5
- *   gas                      mauve         L* ≈ 87.5 / 58 (second tint only for gas next to gas)
- *   dissolved (corrosion)    cream / peach L* ≈ 97.5 / 92.5
+ *   element   (immunity)     blue-grey     L* ≈ 65 / 71 / 59
+ *   solid     (passivation)  teal / olive / sage   L* ≈ 76.5 / 82.5 / 71
+ *   gas                      mauve         L* ≈ 87.5 / 58 / 73
+ *   dissolved (corrosion)    cream / peach / rose  L* ≈ 97 / 92 / 87
  *
+ * The third tint is only needed where three regions of one class touch each other (e.g. FeS, FeS₂
+ * and Fe₃O₄ in iron–sulfur), and sits ≥ 4.5 L* from the other two of its class.
  * Chroma is low (C* 12–18) so that black text and lines keep full contrast.
  *
- * Neighbouring regions of the same class get different tints (greedy colouring in a fixed order).
+ * Neighbouring regions of the same class get different tints: a proper colouring of the
+ * same-class adjacency graph (depth-first search in a fixed order), see assignFills.
  */
 import type { RegionClass } from '../model.js';
 
 export const CLASS_TINTS: Record<RegionClass, readonly string[]> = {
-  element: ['#89a1b6', '#96b2bf'],
-  solid: ['#a0c5b5', '#c9d1b3'],
-  dissolved: ['#fff6dd', '#ffe4c9'],
-  gas: ['#e7d6ea', '#90889f'],
+  element: ['#89a1b6', '#96b2bf', '#7b91a1'],
+  solid: ['#a0c5b5', '#c9d1b3', '#a1b399'],
+  dissolved: ['#fff6dd', '#ffe4c9', '#f6d1d1'],
+  gas: ['#e7d6ea', '#90889f', '#beaec1'],
 };
 
 /** Words for the class legend (trade terms for the usual reading of a region class). */
@@ -81,18 +85,28 @@ export function normColor(color: string): string {
   return /^#[0-9a-f]{3,6}$/i.test(c) ? c.toLowerCase() : c;
 }
 
+/** L* difference from every neighbour beyond which a tint counts as contrasting enough. */
+const ENOUGH_CONTRAST = 10;
+
 export interface FillRequest {
   species: string;
   class: RegionClass;
   /** Indices of neighbouring regions (sharing a boundary). */
   neighbours: number[];
+  /** Area (any unit): larger regions are coloured first and so get the first tints. */
+  area?: number;
 }
 
 /**
- * Assigns a fill to every region: a per-species override wins; otherwise the tint of its class
- * that differs most in L* from the neighbours coloured so far (ties → first tint). Regions are
- * visited in the given order, so the result is deterministic. In 'gray' style the tints are
- * converted to grays of equal L*; in 'lines' style there is no fill (null).
+ * Assigns a fill to every region: a per-species override wins; otherwise a tint of its class such
+ * that no two neighbouring regions get the same colour (a proper colouring of the adjacency graph,
+ * found by depth-first search with backtracking, largest region first, else in the given order). At each
+ * region the class's first two tints are tried before its third, each group in order of decreasing
+ * L* difference from the neighbours coloured so far (differences of ENOUGH_CONTRAST or more count
+ * as equal; ties → the earlier tint), so the third tint appears only where needed. When no proper colouring exists with the class's tints
+ * (or the search exceeds its step budget), the remaining regions are coloured greedily with the
+ * fewest same-colour neighbours. Deterministic. In 'gray' style the tints are converted to grays of
+ * equal L*; in 'lines' style there is no fill (null).
  */
 export function assignFills(
   regions: readonly FillRequest[],
@@ -101,33 +115,100 @@ export function assignFills(
 ): (string | null)[] {
   const out: (string | null)[] = regions.map(() => null);
   if (style === 'lines') return out;
-  const chosen: (string | null)[] = regions.map(() => null);
-  regions.forEach((r, i) => {
-    const override = overrides[r.species];
-    if (override !== undefined) {
-      chosen[i] = normColor(override);
-      return;
+  const chosen: (string | null)[] = regions.map((r) => {
+    const o = overrides[r.species];
+    return o === undefined ? null : normColor(o);
+  });
+  // Symmetric neighbour lists (a request may list a neighbour only on one side).
+  const nb: Set<number>[] = regions.map(() => new Set<number>());
+  regions.forEach((r, i) =>
+    r.neighbours.forEach((j) => {
+      if (j !== i && j >= 0 && j < regions.length) {
+        nb[i]!.add(j);
+        nb[j]!.add(i);
+      }
+    }),
+  );
+  // Largest regions first (they get the class's first tint, the one shown in the legend); ties and
+  // regions without an area keep the given order.
+  const order = regions
+    .map((_, i) => i)
+    .filter((i) => chosen[i] === null)
+    .sort((a, b) => (regions[b]!.area ?? 0) - (regions[a]!.area ?? 0) || a - b);
+  const Lcache = new Map<string, number>();
+  const L = (c: string): number => {
+    let v = Lcache.get(c);
+    if (v === undefined) {
+      v = c.startsWith('#') ? lightness(c) : NaN;
+      Lcache.set(c, v);
     }
-    const tints = CLASS_TINTS[r.class] ?? CLASS_TINTS.solid;
-    let best = tints[0]!;
-    let bestScore = -Infinity;
-    for (const t of tints) {
+    return v;
+  };
+  /** Tints of region i not used by a coloured neighbour, most contrast first. */
+  const candidates = (i: number): string[] => {
+    const tints = CLASS_TINTS[regions[i]!.class] ?? CLASS_TINTS.solid;
+    const scored: { t: string; k: number; score: number }[] = [];
+    tints.forEach((t, k) => {
       let score = Infinity;
-      let sameTint = false;
-      for (const n of r.neighbours) {
+      for (const n of nb[i]!) {
         const c = chosen[n];
         if (c === null || c === undefined) continue;
-        if (c === t) sameTint = true;
-        if (c.startsWith('#')) score = Math.min(score, Math.abs(lightness(c) - lightness(t)));
+        if (c === t) return;
+        const d = Math.abs(L(c) - L(t));
+        if (Number.isFinite(d)) score = Math.min(score, d);
       }
-      if (sameTint) score = -1;
-      if (score > bestScore + 1e-9) {
-        best = t;
-        bestScore = score;
-      }
+      scored.push({ t, k, score });
+    });
+    // The first two tints before the third (kept for where three regions of a class meet); then
+    // more contrast, counting ENOUGH_CONTRAST L* or more as equal; ties → the earlier tint.
+    const key = (x: { k: number; score: number }): [number, number] => [x.k >= 2 ? 1 : 0, Math.min(x.score, ENOUGH_CONTRAST)];
+    scored.sort((a, b) => {
+      const [ta, sa] = key(a);
+      const [tb, sb] = key(b);
+      if (ta !== tb) return ta - tb;
+      if (Math.abs(sa - sb) > 1e-9) return sb - sa;
+      return a.k - b.k;
+    });
+    return scored.map((s) => s.t);
+  };
+  let steps = 0;
+  const BUDGET = 20000;
+  const search = (pos: number): boolean => {
+    if (pos === order.length) return true;
+    if (++steps > BUDGET) return false;
+    const i = order[pos]!;
+    for (const t of candidates(i)) {
+      chosen[i] = t;
+      if (search(pos + 1)) return true;
     }
-    chosen[i] = best;
-  });
+    chosen[i] = null;
+    return false;
+  };
+  if (!search(0)) {
+    // No proper colouring within the tints: greedy, fewest same-colour neighbours, then contrast.
+    for (const i of order) {
+      if (chosen[i] !== null) continue;
+      const tints = CLASS_TINTS[regions[i]!.class] ?? CLASS_TINTS.solid;
+      let best = tints[0]!;
+      let bestKey: [number, number] = [Infinity, -Infinity];
+      for (const t of tints) {
+        let same = 0;
+        let score = Infinity;
+        for (const n of nb[i]!) {
+          const c = chosen[n];
+          if (c === null || c === undefined) continue;
+          if (c === t) same++;
+          const d = Math.abs(L(c) - L(t));
+          if (Number.isFinite(d)) score = Math.min(score, d);
+        }
+        if (same < bestKey[0] || (same === bestKey[0] && score > bestKey[1] + 1e-9)) {
+          best = t;
+          bestKey = [same, score];
+        }
+      }
+      chosen[i] = best;
+    }
+  }
   chosen.forEach((c, i) => {
     out[i] = c === null ? null : style === 'gray' && c.startsWith('#') ? toGray(c) : c;
   });

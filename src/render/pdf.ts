@@ -154,6 +154,31 @@ function drawItems(doc: Doc, items: readonly SceneItem[]): void {
 }
 
 /**
+ * Draws a scene as vector graphics into an existing pdfkit document on its current page: the
+ * scene's top left corner at (x, y) in the page's points (origin top left, y down), scaled to
+ * `width` pt (default: the scene's own width; the height follows the aspect ratio). The figure's
+ * background is painted and everything is clipped to the figure's rectangle. The graphics state
+ * is saved and restored around the drawing; pdfkit's text cursor (doc.x, doc.y) is put back too.
+ * Returns the drawn size in pt.
+ */
+export function drawSceneOnPdf(doc: Doc, scene: Scene, at: { x: number; y: number; width?: number }): { width: number; height: number } {
+  const width = at.width ?? scene.widthPt;
+  if (!(width > 0) || !Number.isFinite(width)) throw new Error(`figure width on the page must be positive, got ${width} pt`);
+  const s = width / scene.widthPt;
+  const cursor = { x: doc.x, y: doc.y };
+  doc.save();
+  doc.translate(at.x, at.y);
+  doc.scale(s);
+  doc.rect(0, 0, scene.widthPt, scene.heightPt).clip();
+  doc.rect(0, 0, scene.widthPt, scene.heightPt).fill(scene.background);
+  drawItems(doc, scene.items);
+  doc.restore();
+  doc.x = cursor.x;
+  doc.y = cursor.y;
+  return { width, height: scene.heightPt * s };
+}
+
+/**
  * Renders a scene to a one-page vector PDF of the scene's physical size.
  * `creationDate` defaults to a fixed date so that the same scene gives the same bytes.
  */

@@ -24,6 +24,7 @@ import {
   firstFree,
   Layout,
   orientedBounds,
+  placeMarkLabel,
   placeRegionLabels,
   textBox,
   type OrientedBox,
@@ -54,6 +55,11 @@ export interface FigureInput {
   boxes?: { label: string; pH: [number, number]; E: [number, number] }[];
   /** Extra layers: boundaries only, in their own dash style, named in the legend. */
   overlays?: { label: string; model: DiagramModel; dash: string }[];
+  /**
+   * Legend name of the base layer's boundaries when there are overlays or families, e.g.
+   * "Fe, 25 °C, a = 10⁻⁶ (filled)"; default "boundaries, a = 10⁻⁶". Rich text ({H2O}, ^…^) allowed.
+   */
+  baseLabel?: string;
 }
 
 /** The caution printed with every caption. */
@@ -80,6 +86,16 @@ export function parseDash(dash: string, lineWidth: number): number[] | null {
     throw new Error(`dash "${dash}": use solid, dash, dot, dashdot, longdash or lengths in pt such as "4 2"`);
   }
   return nums.length % 2 === 1 ? [...nums, ...nums] : nums;
+}
+
+/**
+ * Stroke settings for a dash pattern: patterns with dots (a dash shorter than 0.1 pt) need round
+ * caps, or the dots have no length and vanish. A round cap adds half the line width at each end of
+ * every dash, so the gaps are widened by the line width to keep the pattern's look.
+ */
+export function dashStroke(dash: number[] | null, width: number): { dash: number[] | null; lineCap: 'butt' | 'round' } {
+  if (!dash || !dash.some((d, k) => k % 2 === 0 && d < 0.1)) return { dash, lineCap: 'butt' };
+  return { dash: dash.map((d, k) => (k % 2 === 1 ? d + width : d)), lineCap: 'round' };
 }
 
 interface Frame {
@@ -206,7 +222,11 @@ export function buildScene(input: FigureInput): Scene {
       }
     }
     if ((input.families?.length ?? 0) > 0 || (input.overlays?.length ?? 0) > 0) {
-      legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs: [...plainRuns('boundaries, '), { text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...powerOfTenRuns(model.activity)] });
+      const runs: TextRun[] =
+        input.baseLabel !== undefined
+          ? richRuns(input.baseLabel)
+          : [...plainRuns('boundaries, '), { text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...powerOfTenRuns(model.activity)];
+      legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
     }
     if ((input.families?.length ?? 0) > 0) {
       legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs: plainRuns('other activities') });
@@ -279,7 +299,7 @@ export function buildScene(input: FigureInput): Scene {
       }
   }
   const fills = assignFills(
-    model.regions.map((r, i) => ({ species: r.species, class: r.class, neighbours: [...neighbours[i]!].sort((a, b) => a - b) })),
+    model.regions.map((r, i) => ({ species: r.species, class: r.class, neighbours: [...neighbours[i]!].sort((a, b) => a - b), area: regionPolys[i]!.flat().reduce((sum, ring) => sum + Math.abs(ringArea(ring)), 0) })),
     o.style,
     o.colors,
   );
@@ -371,7 +391,8 @@ export function buildScene(input: FigureInput): Scene {
   (input.overlays ?? []).forEach((ov, i) => {
     const pieces = ov.model.boundaries.flatMap((b) => figLine(b.points));
     if (!pieces.length) return;
-    overlayItems.push(line('overlay', pieces, ink.overlay[i % ink.overlay.length]!, 0.8 * lw, parseDash(ov.dash, lw), { data: { label: ov.label } }));
+    const st = dashStroke(parseDash(ov.dash, lw), 0.8 * lw);
+    overlayItems.push(line('overlay', pieces, ink.overlay[i % ink.overlay.length]!, 0.8 * lw, st.dash, { lineCap: st.lineCap, lineJoin: 'round', data: { label: ov.label } }));
     layout.soft.push(...segsOf(pieces));
   });
 
@@ -425,19 +446,30 @@ export function buildScene(input: FigureInput): Scene {
     layout.soft.push(...ringSegments([[[rect.x, rect.y], [rect.x + rect.w, rect.y], [rect.x + rect.w, rect.y + rect.h], [rect.x, rect.y + rect.h]]]));
     boxJobs.push({ rect, label: bx.label });
   }
-  const pathJobs: { start: Point; label: string }[] = [];
+  const pathJobs: { start: Point; label: string; segs: Segment[] }[] = [];
+  const arrowTips: Rect[] = [];
   for (const p of input.paths ?? []) {
     if (p.points.length < 2) continue;
     const pieces = figLine(p.points);
     if (!pieces.length) continue;
-    markItems.push(line('path', pieces, ink.mark, markW, null, { lineJoin: 'round', lineCap: 'round', data: { label: p.label } }));
     const last = pieces[pieces.length - 1]!;
-    const tip = last[last.length - 1]!;
+    let tip = last[last.length - 1]!;
     const prev = last[last.length - 2]!;
     const len = Math.hypot(tip[0] - prev[0], tip[1] - prev[1]) || 1;
     const ux = (tip[0] - prev[0]) / len;
     const uy = (tip[1] - prev[1]) / len;
     const al = 2.6 * markW + 2.2;
+    // A path that ends on an operating point stops at the marker's edge, so the arrowhead stays visible.
+    const pointR = 1.1 * markW + 1.0;
+    const onPoint = (input.points ?? []).some((q) => {
+      const [qx, qy] = fr.toFig([q.pH, q.E]);
+      return Math.hypot(qx - tip[0], qy - tip[1]) < pointR;
+    });
+    if (onPoint && len > al + pointR + 0.5) {
+      tip = [tip[0] - ux * (pointR + 0.5), tip[1] - uy * (pointR + 0.5)];
+      last[last.length - 1] = tip;
+    }
+    markItems.push(line('path', pieces, ink.mark, markW, null, { lineJoin: 'round', lineCap: 'round', data: { label: p.label } }));
     const aw = 0.45 * al;
     markItems.push({
       type: 'path',
@@ -449,13 +481,15 @@ export function buildScene(input: FigureInput): Scene {
       dash: null,
     });
     layout.soft.push(...segsOf(pieces));
-    pathJobs.push({ start: pieces[0]![0]!, label: p.label });
+    arrowTips.push(inflate({ x: tip[0] - ux * al * 0.5, y: tip[1] - uy * al * 0.5, w: 0, h: 0 }, al * 0.5));
+    pathJobs.push({ start: pieces[0]![0]!, label: p.label, segs: segsOf(pieces) });
   }
   const pointJobs: { at: Point; label: string; r: number }[] = [];
+  const pointR0 = 1.1 * markW + 1.0;
   for (const p of input.points ?? []) {
     const at = fr.toFig([p.pH, p.E]);
     if (at[0] < plot.x || at[0] > plot.x + plot.w || at[1] < plot.y || at[1] > plot.y + plot.h) continue;
-    const r = 1.1 * markW + 1.0;
+    const r = pointR0;
     markItems.push({ type: 'circle', role: 'point', cx: at[0], cy: at[1], r, fill: ink.mark, stroke: '#ffffff', strokeWidth: 0.5, data: { label: p.label } });
     // Keep region labels off the marker.
     const q = r + 0.5;
@@ -522,6 +556,32 @@ export function buildScene(input: FigureInput): Scene {
     }
   }
   for (const pj of pointJobs) layout.addBox(inflate({ x: pj.at[0], y: pj.at[1], w: 0, h: 0 }, pj.r + 0.3), 'point');
+
+  // ---- Operating labels (before the water and family labels: the user's own marks come first) ----
+  for (const bj of boxJobs) layout.addBox(bj.rect, 'box');
+  for (const tip of arrowTips) layout.addBox(tip, 'arrow');
+  const markLabel = (role: string, label: string, mark: Rect, kind: 'point' | 'box', own: Segment[] = []): void => {
+    const runs = richRuns(label);
+    const pl = placeMarkLabel(layout, runs, small, mark, kind, role, own);
+    if (pl.overSoft) {
+      const kb = inflate(pl.box, 0.08 * small);
+      labelItems.push({
+        type: 'path',
+        role: 'label-knockout',
+        subpaths: [{ points: [[kb.x, kb.y], [kb.x + kb.w, kb.y], [kb.x + kb.w, kb.y + kb.h], [kb.x, kb.y + kb.h]], closed: true }],
+        fill: fillAt([pl.cx, pl.cy]),
+        stroke: null,
+        strokeWidth: 0,
+        dash: null,
+      });
+    }
+    labelItems.push(text(role, runs, pl.cx, baselineForCentre(runs, small, pl.cy), small, 'middle', ink.text, { box: pl.box, data: { label } }));
+    if (pl.leader) labelItems.push(line('leader', [[pl.leader[0], pl.leader[1]]], ink.mark, Math.max(0.3, 0.4 * lw), null, { lineCap: 'round', data: { label } }));
+  };
+  // Boxes first (their labels have the fewest good places), then points, then paths.
+  for (const bj of boxJobs) markLabel('box-label', bj.label, bj.rect, 'box');
+  for (const pj of pointJobs) markLabel('point-label', pj.label, inflate({ x: pj.at[0], y: pj.at[1], w: 0, h: 0 }, pj.r + 0.3), 'point');
+  for (const pj of pathJobs) markLabel('path-label', pj.label, inflate({ x: pj.start[0], y: pj.start[1], w: 0, h: 0 }, markW + 1), 'point', pj.segs);
 
   // ---- Water labels ---------------------------------------------------------------------------
   const gapLine = 0.28 * fs;
@@ -639,60 +699,6 @@ export function buildScene(input: FigureInput): Scene {
     }
   }
 
-  // ---- Operating labels ----------------------------------------------------------------------
-  const around = (at: Point, r: number, runs: TextRun[], size: number): OrientedBox[] => {
-    const w = (runsWidth(runs, size) * FONT_SAFETY) / 2;
-    const { top, bottom } = runsExtent(runs, size);
-    const h = (bottom - top) / 2;
-    const g = r + 0.3 * size;
-    const c: [number, number][] = [
-      [g + w, -(g * 0.5 + h)],
-      [g + w, g * 0.5 + h],
-      [-(g + w), -(g * 0.5 + h)],
-      [-(g + w), g * 0.5 + h],
-      [0, -(g + h)],
-      [0, g + h],
-      [g + w, 0],
-      [-(g + w), 0],
-    ];
-    const out: OrientedBox[] = [];
-    for (const m of [1, 1.8, 2.8]) for (const [dx, dy] of c) out.push({ cx: at[0] + dx * m, cy: at[1] + dy * m, hx: w, hy: h, angle: 0 });
-    return out;
-  };
-  const placeMarkLabel = (role: string, at: Point, r: number, label: string): void => {
-    const runs = richRuns(label);
-    const cands = around(at, r, runs, small);
-    let idx = firstFree(layout, cands, 0.1 * fs, true);
-    if (idx < 0) idx = firstFree(layout, cands, 0.05 * fs, false);
-    if (idx < 0) idx = 0;
-    const ob = cands[idx]!;
-    labelItems.push(smallLabel(role, runs, small, ob, { label }));
-    layout.addBox(orientedBounds(ob), role);
-  };
-  for (const pj of pointJobs) placeMarkLabel('point-label', pj.at, pj.r, pj.label);
-  for (const pj of pathJobs) placeMarkLabel('path-label', pj.start, markW + 1, pj.label);
-  for (const bj of boxJobs) {
-    const runs = richRuns(bj.label);
-    const w = (runsWidth(runs, small) * FONT_SAFETY) / 2;
-    const { top, bottom } = runsExtent(runs, small);
-    const h = (bottom - top) / 2;
-    const g = 0.3 * small;
-    const r = bj.rect;
-    const cands: OrientedBox[] = [
-      { cx: r.x + w, cy: r.y - g - h, hx: w, hy: h, angle: 0 },
-      { cx: r.x + r.w - w, cy: r.y - g - h, hx: w, hy: h, angle: 0 },
-      { cx: r.x + w, cy: r.y + r.h + g + h, hx: w, hy: h, angle: 0 },
-      { cx: r.x + r.w + g + w, cy: r.y + h, hx: w, hy: h, angle: 0 },
-      { cx: r.x - g - w, cy: r.y + h, hx: w, hy: h, angle: 0 },
-    ];
-    let idx = firstFree(layout, cands, 0.1 * fs, true);
-    if (idx < 0) idx = firstFree(layout, cands, 0.05 * fs, false);
-    if (idx < 0) idx = 0;
-    const ob = cands[idx]!;
-    labelItems.push(smallLabel('box-label', runs, small, ob, { label: bj.label }));
-    layout.addBox(orientedBounds(ob), 'box-label');
-  }
-
   // ---- Ligand labels (only where they fit cleanly) -------------------------------------------
   for (const lj of ligandLabelReqs) {
     const size = famSize;
@@ -773,7 +779,10 @@ export function buildScene(input: FigureInput): Scene {
           dash: null,
         });
       } else {
-        outerItems.push(line('legend-line', [[[x, cy], [x + sw, cy]]], e.stroke!, e.width!, e.dash ?? null, { lineCap: e.dash && e.dash[0]! < 0.1 ? 'round' : 'butt' }));
+        const st = dashStroke(e.dash ?? null, e.width!);
+        // A dotted sample starts and ends inside the swatch width (round caps reach half a width out).
+        const inset = st.lineCap === 'round' ? e.width! / 2 : 0;
+        outerItems.push(line('legend-line', [[[x + inset, cy], [x + sw - inset, cy]]], e.stroke!, e.width!, st.dash, { lineCap: st.lineCap }));
       }
       const tx = x + sw + 0.4 * legSize;
       outerItems.push(text('legend-label', e.runs, tx, baselineForCentre(e.runs, legSize, cy), legSize, 'start', ink.text, { box: textBox(e.runs, legSize, tx, baselineForCentre(e.runs, legSize, cy), 'start') }));

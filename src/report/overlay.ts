@@ -105,6 +105,8 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
   }
   const input = figureInput(base, { options: fig.options, families: [] });
   input.overlays = layers.slice(1).map((l, k) => ({ label: labels[k + 1], model: l.model, dash: OVERLAY_DASHES[k] }));
+  // The base layer is named in the legend like the others (its fields are filled when the elements agree).
+  input.baseLabel = `${labels[0]}${sameElement && fig.options.style !== 'lines' ? ' (filled)' : ''}`;
   if (fig.options.show.caption) {
     // The base's own caption without its first line (conditions, named per layer here) and data line.
     const own = captionLines(base).slice(1).filter((l) => !l.startsWith('Data: '));

@@ -1,9 +1,12 @@
 /**
- * The report as a PDF (pdfkit, A4, the standard Helvetica fonts): text, tables and the figure as a
- * 300 dpi PNG (the vector drawing of src/render/pdf.ts is not exported for use inside another
- * document). Reproducible: the creation date is fixed, so the same input gives the same bytes.
+ * The report as a PDF (pdfkit, A4, the standard Helvetica fonts): text, tables and the figure,
+ * drawn as vector graphics from its scene (src/render/pdf.ts drawSceneOnPdf); a PNG is still
+ * accepted in its place. Reproducible: the creation date is fixed, so the same input gives the
+ * same bytes.
  */
 import { shortSource } from '../figure/compose.js';
+import { drawSceneOnPdf } from '../render/pdf.js';
+import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts } from './report-data.js';
 import { fmtCelsius, fmtNum, fmtSigned } from './report-format.js';
@@ -117,11 +120,16 @@ class Writer {
   }
 }
 
+/** Whether the figure argument is a scene (vector) rather than PNG bytes. */
+function isScene(f: Scene | Uint8Array): f is Scene {
+  return !(f instanceof Uint8Array) && typeof (f as Scene).widthPt === 'number' && Array.isArray((f as Scene).items);
+}
+
 /**
- * Renders the report. `png` is the figure at 300 dpi, `figureMm` its physical size; the figure is
- * scaled down only when wider than the text column.
+ * Renders the report. `figure` is the figure's scene (drawn as vectors; preferred) or a PNG of it;
+ * `figureMm` its physical size. The figure is scaled down only when wider than the text column.
  */
-export async function reportPdf(d: ReportData, png: Uint8Array, figureMm: { width: number; height: number }, caption: string[]): Promise<Buffer> {
+export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figureMm: { width: number; height: number }, caption: string[]): Promise<Buffer> {
   const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({
     size: 'A4',
@@ -160,7 +168,8 @@ export async function reportPdf(d: ReportData, png: Uint8Array, figureMm: { widt
   w.room(fh + 50);
   w.heading('Diagram');
   const y = doc.y;
-  doc.image(Buffer.from(png), w.left + (w.width - fw) / 2, y, { width: fw, height: fh });
+  if (isScene(figure)) drawSceneOnPdf(doc, figure, { x: w.left + (w.width - fw) / 2, y, width: fw });
+  else doc.image(Buffer.from(figure), w.left + (w.width - fw) / 2, y, { width: fw, height: fh });
   doc.y = y + fh + 6;
   for (const l of caption) w.para(l, { size: SMALL });
 

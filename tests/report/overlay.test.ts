@@ -46,8 +46,10 @@ describe('overlay: one system at several temperatures', () => {
     expect(f.overlays.map((o) => o.label)).toEqual(['Fe, 90 °C, a = 10⁻⁶', 'Fe, 150 °C, a = 10⁻⁶']);
     expect(new Set(f.overlays.map((o) => o.dash)).size).toBe(2);
     // Three layers → three line entries in the legend: the base boundaries and the two overlays.
-    const layerEntries = f.legend.filter((l) => l.startsWith('boundaries, a = ') || /^Fe, \d+ °C/.test(l));
+    const layerEntries = f.legend.filter((l) => /^Fe, \d+ °C/.test(l));
     expect(layerEntries).toHaveLength(3);
+    // The base layer is named in the legend, as filled.
+    expect(layerEntries[0]).toMatch(/^Fe, 25 °C, a = 10(⁻⁶|−6) \(filled\)$/);
     expect(f.caption).toMatch(/Layers: Fe, 25 °C, a = 10(⁻⁶|−6) \(base, solid lines, filled fields\); Fe, 90 °C/);
     expect(f.caption).toContain('Water lines are those of the base layer (25 °C).');
   });
@@ -92,7 +94,8 @@ describe('overlay: several elements', () => {
     expect(f.regions.every((fill) => fill === 'none')).toBe(true);
     expect(f.overlays.map((o) => o.label)).toEqual(['Cr, 25 °C, a = 10⁻⁶', 'Ni, 25 °C, a = 10⁻⁶']);
     expect(new Set(f.overlays.map((o) => o.dash)).size).toBe(2);
-    expect(f.legend.filter((l) => l.startsWith('boundaries, a = ') || /^(Cr|Ni), 25 °C/.test(l))).toHaveLength(3);
+    // The base is named like the other layers, without "(filled)": every layer is lines only.
+    expect(f.legend.filter((l) => /^(Fe|Cr|Ni), 25 °C, a = 10(⁻⁶|−6)$/.test(l))).toHaveLength(3);
     expect(f.caption.replace(/\s+/g, ' ')).toContain(SEPARATE_ELEMENTS_NOTE);
     expect(f.caption).toContain("overlaying them does not describe the alloy's thermodynamics");
   });
