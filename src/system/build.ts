@@ -172,7 +172,11 @@ function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: str
     let S = s.S;
     if (S === undefined) {
       if (s.dfH === undefined) {
-        throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C`);
+        if (constantG(spec, s.formula)) {
+          warnings.push(`${CONST_G_WARN}${s.formula}`);
+          return s.dfG;
+        }
+        throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C (or list it under assumeConstantG)`);
       }
       S = entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy);
     }
@@ -211,7 +215,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
       throw new InputError(spec.file, `${s0.field} (${s0.formula})`, `whole units of the ligand group ${g}`);
     }
     const s: ResolvedSpecies = { ...s0, f: { ...s0.f, elements: grouped } };
-    if (s.implicit && Math.abs(spec.temperature - 25) > 1e-9 && s.S === undefined && s.dfH === undefined) {
+    if (s.implicit && Math.abs(spec.temperature - 25) > 1e-9 && s.S === undefined && s.dfH === undefined && !constantG(spec, s.formula)) {
       warnings.push(`${s.formula} (${s.phase}) left out at ${spec.temperature} °C: the library has no S° or ΔfH° for it`);
       continue;
     }
@@ -295,11 +299,19 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
 }
 
 const CP_WARN = 'no Cp: ';
+const CONST_G_WARN = 'constant G: ';
+
+/** The user's explicit override: take ΔfG° as constant with T for this species (no S°, no ΔfH°). */
+function constantG(spec: SystemSpec, formula: string): boolean {
+  return spec.assumeConstantG === true || (Array.isArray(spec.assumeConstantG) && spec.assumeConstantG.includes(formula));
+}
 
 /** One warning for all species used without Cp far from 25 °C. */
 function collapseCpWarnings(ws: string[]): string[] {
   const cp = ws.filter((w) => w.startsWith(CP_WARN)).map((w) => w.slice(CP_WARN.length));
-  const rest = ws.filter((w) => !w.startsWith(CP_WARN));
+  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN));
+  const cg = ws.filter((w) => w.startsWith(CONST_G_WARN)).map((w) => w.slice(CONST_G_WARN.length));
+  if (cg.length) rest.push(`ΔfG° taken as constant with temperature (assumeConstantG; no S° or ΔfH°, a rough assumption): ${[...new Set(cg)].join(', ')}`);
   if (cp.length) rest.push(`species without Cp° used more than 50 K from 25 °C (constant ΔH and ΔS for them): ${[...new Set(cp)].join(', ')}`);
   return rest;
 }

@@ -53,6 +53,8 @@ export interface SystemSpec {
   species?: InlineSpecies[];
   gases: { H2: number; O2: number };
   metastable: boolean | string[];
+  /** Species (or all, true) whose ΔfG° is taken as constant with T when S° and ΔfH° are missing. */
+  assumeConstantG: boolean | string[];
   pick: Record<string, string>;
   extrapolation: 'cp' | 'constant-h-s';
   title?: string;
@@ -86,6 +88,7 @@ export const TOP_KEYS = [
   'activityModel',
   'ionSize',
   'ligandSpecies',
+  'assumeConstantG',
   'concentration',
   'reference',
   'points',
@@ -195,6 +198,10 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   if (o.metastable !== undefined) {
     metastable = typeof o.metastable === 'boolean' ? o.metastable : f.stringList(o.metastable, 'metastable');
   }
+  let assumeConstantG: boolean | string[] = false;
+  if (o.assumeConstantG !== undefined) {
+    assumeConstantG = typeof o.assumeConstantG === 'boolean' ? o.assumeConstantG : f.stringList(o.assumeConstantG, 'assumeConstantG');
+  }
   const pick: Record<string, string> = {};
   if (o.pick !== undefined) {
     if (!o.pick || typeof o.pick !== 'object' || Array.isArray(o.pick)) f.fail('pick', 'a map of formula → alternative id', o.pick);
@@ -208,7 +215,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];
   }
-  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, pick, extrapolation, title, grid, extra, warnings };
+  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, assumeConstantG, pick, extrapolation, title, grid, extra, warnings };
 }
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {

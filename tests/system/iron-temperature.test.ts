@@ -110,3 +110,13 @@ describe('temperature without entropy data', () => {
     expect(() => computeFile(f)).toThrow(/species\[1\] \(HFeO2-\).*S .*or dfH/);
   });
 });
+
+describe('explicit override for species with ΔfG° only', () => {
+  it('assumeConstantG keeps HFeO2- at 150 °C with its 25 °C ΔfG° and says so', () => {
+    const dir = tmpDir();
+    const f = writeTmp(dir, 'y.json', JSON.stringify({ element: 'Fe', temperature: 150, assumeConstantG: ['HFeO2-'], species: [{ formula: 'Fe', phase: 's', dfG: 0, S: 27.28 }, { formula: 'HFeO2-', phase: 'aq', dfG: -377.7 }] }));
+    const c = computeFile(f);
+    expect(c.built.input.species.find((s) => s.formula === 'HFeO2-')!.G).toBe(-377.7);
+    expect(c.model.warnings.join(' ')).toMatch(/constant with temperature.*HFeO2-/);
+  });
+});
