@@ -67,6 +67,7 @@ export interface SystemSpec {
 }
 
 export const TOP_KEYS = [
+  '$schema',
   'element',
   'temperature',
   'pressure',
