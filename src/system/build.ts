@@ -216,7 +216,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
     }
     const s: ResolvedSpecies = { ...s0, f: { ...s0.f, elements: grouped } };
     if (s.implicit && Math.abs(spec.temperature - 25) > 1e-9 && s.S === undefined && s.dfH === undefined && !constantG(spec, s.formula)) {
-      warnings.push(`${s.formula} (${s.phase}) left out at ${spec.temperature} °C: the library has no S° or ΔfH° for it`);
+      warnings.push(`${LEFT_OUT_WARN}${s.formula}`);
       continue;
     }
     const els = Object.keys(s.f.elements);
@@ -300,6 +300,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
 
 const CP_WARN = 'no Cp: ';
 const CONST_G_WARN = 'constant G: ';
+const LEFT_OUT_WARN = 'left out: ';
 
 /** The user's explicit override: take ΔfG° as constant with T for this species (no S°, no ΔfH°). */
 function constantG(spec: SystemSpec, formula: string): boolean {
@@ -309,7 +310,9 @@ function constantG(spec: SystemSpec, formula: string): boolean {
 /** One warning for all species used without Cp far from 25 °C. */
 function collapseCpWarnings(ws: string[]): string[] {
   const cp = ws.filter((w) => w.startsWith(CP_WARN)).map((w) => w.slice(CP_WARN.length));
-  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN));
+  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN) && !w.startsWith(LEFT_OUT_WARN));
+  const out = ws.filter((w) => w.startsWith(LEFT_OUT_WARN)).map((w) => w.slice(LEFT_OUT_WARN.length));
+  if (out.length) rest.push(`left out away from 25 °C (the library has no S° or ΔfH° for them; see assumeConstantG): ${[...new Set(out)].join(', ')}`);
   const cg = ws.filter((w) => w.startsWith(CONST_G_WARN)).map((w) => w.slice(CONST_G_WARN.length));
   if (cg.length) rest.push(`ΔfG° taken as constant with temperature (assumeConstantG; no S° or ΔfH°, a rough assumption): ${[...new Set(cg)].join(', ')}`);
   if (cp.length) rest.push(`species without Cp° used more than 50 K from 25 °C (constant ΔH and ΔS for them): ${[...new Set(cp)].join(', ')}`);
