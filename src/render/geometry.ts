@@ -141,39 +141,21 @@ export function segmentHitsRect(a: Point, b: Point, r: Rect): boolean {
   const bx = b[0];
   const by = b[1];
   if ((ax < x0 && bx < x0) || (ax > x1 && bx > x1) || (ay < y0 && by < y0) || (ay > y1 && by > y1)) return false;
-  let t0 = 0;
-  let t1 = 1;
-  const dx = bx - ax;
-  const dy = by - ay;
-  if (dx === 0) {
-    if (ax < x0 || ax > x1) return false;
-  } else {
-    let ta = (x0 - ax) / dx;
-    let tb = (x1 - ax) / dx;
-    if (ta > tb) {
-      const t = ta;
-      ta = tb;
-      tb = t;
-    }
-    if (ta > t0) t0 = ta;
-    if (tb < t1) t1 = tb;
-    if (t0 > t1) return false;
-  }
-  if (dy === 0) {
-    if (ay < y0 || ay > y1) return false;
-  } else {
-    let ta = (y0 - ay) / dy;
-    let tb = (y1 - ay) / dy;
-    if (ta > tb) {
-      const t = ta;
-      ta = tb;
-      tb = t;
-    }
-    if (ta > t0) t0 = ta;
-    if (tb < t1) t1 = tb;
-    if (t0 > t1) return false;
-  }
-  return true;
+  // Liang–Barsky: narrow the parameter interval [0, 1] by the x slab, then the y slab.
+  const tx = slab(ax, bx - ax, x0, x1, 0, 1);
+  if (!tx) return false;
+  return slab(ay, by - ay, y0, y1, tx[0], tx[1]) !== null;
+}
+
+/** The part [t0, t1] of a + t·d (t in the given interval) inside [lo, hi], or null if none. */
+function slab(a: number, d: number, lo: number, hi: number, t0: number, t1: number): [number, number] | null {
+  if (d === 0) return a < lo || a > hi ? null : [t0, t1];
+  let ta = (lo - a) / d;
+  let tb = (hi - a) / d;
+  if (ta > tb) [ta, tb] = [tb, ta];
+  if (ta > t0) t0 = ta;
+  if (tb < t1) t1 = tb;
+  return t0 > t1 ? null : [t0, t1];
 }
 
 /** Whether two rectangles overlap (with `gap` of clearance required). */

@@ -292,6 +292,12 @@ function permutations(xs: number[]): number[][] {
 
 /** Whether the rings' bounding box is at least twice as tall as wide (a candidate for upright text). */
 function tallNarrow(rings: readonly (readonly Point[])[]): boolean {
+  const [x0, y0, x1, y1] = ringsBox(rings);
+  return y1 - y0 >= 2 * (x1 - x0);
+}
+
+/** Bounding box [x0, y0, x1, y1] of a set of rings. */
+function ringsBox(rings: readonly (readonly Point[])[]): [number, number, number, number] {
   let x0 = Infinity;
   let y0 = Infinity;
   let x1 = -Infinity;
@@ -303,22 +309,12 @@ function tallNarrow(rings: readonly (readonly Point[])[]): boolean {
       x1 = Math.max(x1, x);
       y1 = Math.max(y1, y);
     }
-  return y1 - y0 >= 2 * (x1 - x0);
+  return [x0, y0, x1, y1];
 }
 
 /** Filter for segments whose bounding box meets the rings' bounding box (any other cannot limit a label inside). */
 function nearSegments(rings: readonly (readonly Point[])[]): (segs: readonly Segment[]) => Segment[] {
-  let x0 = Infinity;
-  let y0 = Infinity;
-  let x1 = -Infinity;
-  let y1 = -Infinity;
-  for (const r of rings)
-    for (const [x, y] of r) {
-      x0 = Math.min(x0, x);
-      y0 = Math.min(y0, y);
-      x1 = Math.max(x1, x);
-      y1 = Math.max(y1, y);
-    }
+  const [x0, y0, x1, y1] = ringsBox(rings);
   return (segs) =>
     segs.filter(
       ([a, b]) => Math.max(a[0], b[0]) >= x0 && Math.min(a[0], b[0]) <= x1 && Math.max(a[1], b[1]) >= y0 && Math.min(a[1], b[1]) <= y1,
