@@ -40,6 +40,9 @@ export function registerCore(program: Command): void {
     .option('--title <text>', 'figure title')
     .option('--no-caption', 'leave out the caption block')
     .option('--grid', 'draw a light grid')
+    .option('--line-width <pt>', 'width of boundary lines in pt')
+    .option('--show <list>', 'decorations to show, comma-separated: water, grid, caption, neutral, triplePoints, ligands, legend, title')
+    .option('--hide <list>', 'decorations to hide, same names')
     .action(async (file: string, opts: DrawOptions) => {
       const ext = extname(opts.output).toLowerCase().slice(1);
       if (!DRAW_FORMATS.includes(ext)) {

@@ -27,6 +27,10 @@ export interface FigureOverrides {
   title?: string;
   caption?: boolean;
   grid?: boolean;
+  lineWidth?: string;
+  /** Comma-separated decorations to switch on / off (water, grid, caption, neutral, triplePoints, ligands, legend, title). */
+  show?: string;
+  hide?: string;
 }
 
 const COLOR_RE = /^(#[0-9a-fA-F]{3}|#[0-9a-fA-F]{6}|[a-zA-Z]{3,20}|rgb\(\s*\d{1,3}\s*,\s*\d{1,3}\s*,\s*\d{1,3}\s*\))$/;
@@ -88,6 +92,14 @@ export function figureSettings(spec: SystemSpec, cli: FigureOverrides = {}): Fig
   if (cli.title !== undefined) {
     opt.title = c.string(cli.title, '--title', 'a title text', 200);
     opt.show.title = true;
+  }
+  if (cli.lineWidth !== undefined) opt.lineWidth = c.number(Number(cli.lineWidth), '--line-width', { min: 0.1, max: 5 });
+  for (const [flag, list, on] of [['--show', cli.show, true], ['--hide', cli.hide, false]] as const) {
+    if (list === undefined) continue;
+    for (const item of list.split(',').map((x) => x.trim()).filter(Boolean)) {
+      const key = c.oneOf(item, flag, SHOW_KEYS);
+      opt.show[key] = on;
+    }
   }
   if (cli.caption === false) opt.show.caption = false;
   if (cli.grid === true) opt.show.grid = true;

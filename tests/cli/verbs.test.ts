@@ -97,3 +97,17 @@ describe('bad input: exit 2, a message naming file and field, nothing written', 
     expect(existsSync(out)).toBe(false);
   });
 });
+
+describe('draw figure options on the command line', () => {
+  it('--show ligands draws the ligand underlay; --hide with an unknown name is exit 2', async () => {
+    const cus = writeTmp(dir, 'cus.yaml', 'element: Cu\nligands: {S: 1.0e-3}\n');
+    const out = join(dir, 'cus.svg');
+    expect((await runCli(['draw', cus, '-o', out, '--show', 'ligands', '--hide', 'legend', '--line-width', '0.7'])).code).toBe(0);
+    const svg = readFileSync(out, 'utf8');
+    expect(svg).toMatch(/HS/); // a ligand species label of the underlay
+    const bad = await runCli(['draw', cus, '-o', join(dir, 'bad.svg'), '--hide', 'bogus']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/--hide/);
+    expect(existsSync(join(dir, 'bad.svg'))).toBe(false);
+  });
+});
