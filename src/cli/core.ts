@@ -8,6 +8,9 @@ import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
 import { writeAtomic } from './write.js';
+import { Fields } from '../system/fields.js';
+import { readReference } from '../system/operating.js';
+import { referenceOffset } from '../thermo/reference.js';
 import { isElement } from '../chem/elements.js';
 import { loadLibrary } from '../data/library.js';
 import { catalogEntries, catalogText } from '../report/catalog.js';
@@ -19,6 +22,7 @@ const DRAW_FORMATS = ['svg', 'pdf', 'png', 'html', 'json'];
 
 interface DrawOptions extends FigureOverrides {
   output: string;
+  ref?: string;
 }
 
 
@@ -43,6 +47,7 @@ export function registerCore(program: Command): void {
     .option('--line-width <pt>', 'width of boundary lines in pt')
     .option('--show <list>', 'decorations to show, comma-separated: water, grid, caption, neutral, triplePoints, ligands, legend, title')
     .option('--hide <list>', 'decorations to hide, same names')
+    .option('--ref <name>', 'second potential axis against this reference electrode (sce, agcl-sat, cse, ...)')
     .action(async (file: string, opts: DrawOptions) => {
       const ext = extname(opts.output).toLowerCase().slice(1);
       if (!DRAW_FORMATS.includes(ext)) {
@@ -51,6 +56,12 @@ export function registerCore(program: Command): void {
       const spec = loadSpec(file);
       const fig = figureSettings(spec, opts);
       const c = compute(spec);
+      if (opts.ref !== undefined) {
+        const r = displayReference(opts.ref, spec.temperature);
+        fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
+        c.model.reference = { id: r.id, label: r.label, offset: r.offset };
+        c.model.warnings.push(...r.warnings);
+      }
       warn(c.model.warnings);
       const data = ext === 'json' ? stableJson(c.model) : await renderFigure(figureInput(c, fig), ext as FigureFormat);
       writeAtomic(opts.output, data);
@@ -62,13 +73,24 @@ export function registerCore(program: Command): void {
     .description('every boundary reaction and line equation')
     .argument('<file>', 'system file')
     .option('--json', 'machine-readable output')
-    .action((file: string, opts: { json?: boolean }) => {
+    .option('--ref <name>', 'also give each line against this reference electrode (sce, agcl-sat, cse, ...)')
+    .action((file: string, opts: { json?: boolean; ref?: string }) => {
       const c = computeFile(file);
-      warn(c.model.warnings);
+      const ref = opts.ref === undefined ? undefined : displayReference(opts.ref, c.spec.temperature);
+      warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
+      const rows = lineRows(c.model, ref);
       if (opts.json) {
-        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, lines: lineRows(c.model), waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water }));
-      } else process.stdout.write(linesText(c.model));
+        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, ...(ref ? { reference: { id: ref.id, label: ref.label, offset: ref.offset } } : {}), lines: rows, waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water }));
+      } else process.stdout.write(linesText(c.model, ref));
     });
+}
+
+/** A reference electrode for display (axis or equations): a constant offset at T (not the RHE). */
+function displayReference(name: string, celsius: number): { id: string; label: string; offset: number; warnings: string[] } {
+  const ref = readReference(new Fields('command line'), name, '--ref');
+  if (ref === 'rhe') throw new InputError('command line', '--ref', 'an electrode with a fixed potential (the RHE moves with pH; use probe --ref rhe)', 'rhe');
+  const r = referenceOffset(ref, celsius);
+  return { id: typeof ref === 'string' ? ref : 'custom', label: r.label, offset: r.offset, warnings: r.warnings };
 }
 
 export function registerCatalog(program: Command): void {

@@ -13,10 +13,27 @@ export interface LineRow {
   /** Extent of the segment(s) in the diagram: pH and E ranges. */
   pHRange: [number, number];
   ERange: [number, number];
+  /** The same line against a reference electrode, when one is asked for. */
+  equationRef?: string;
+}
+
+/** A reference electrode for display: E_ref = E_SHE − offset. */
+export interface DisplayReference {
+  label: string;
+  offset: number;
+}
+
+/** The line equation against a reference electrode (no-electron pH lines are unchanged). */
+export function equationAgainst(line: BoundaryModel['line'], ref: DisplayReference): string {
+  if (line.kind === 'pH') return `pH = ${line.value!.toFixed(3)}`;
+  const a = line.intercept! - ref.offset;
+  const sl = line.slope!;
+  const t = (v: number, d: number) => (Math.abs(v) < 0.5 * 10 ** -d ? (0).toFixed(d) : v.toFixed(d));
+  return Math.abs(sl) < 5e-9 ? `E = ${t(a, 4)} V vs ${ref.label}` : `E = ${t(a, 4)} ${sl < 0 ? '-' : '+'} ${t(Math.abs(sl), 4)} pH V vs ${ref.label}`;
 }
 
 /** One row per distinct reaction; runs of the same reaction are combined. */
-export function lineRows(model: DiagramModel): LineRow[] {
+export function lineRows(model: DiagramModel, ref?: DisplayReference): LineRow[] {
   const rows = new Map<string, LineRow>();
   for (const b of model.boundaries) {
     const key = `${b.between.join('|')}|${b.reaction}`;
@@ -35,25 +52,27 @@ export function lineRows(model: DiagramModel): LineRow[] {
         line: b.line,
         pHRange: [Math.min(...xs), Math.max(...xs)],
         ERange: [Math.min(...ys), Math.max(...ys)],
+        ...(ref ? { equationRef: equationAgainst(b.line, ref) } : {}),
       });
     }
   }
   return [...rows.values()];
 }
 
-export function linesText(model: DiagramModel): string {
-  const rows = lineRows(model);
+export function linesText(model: DiagramModel, ref?: DisplayReference): string {
+  const rows = lineRows(model, ref);
   const corrected = model.species.some((x) => x.role === 'main' && x.molality !== undefined);
   const head = `${model.element} at ${model.temperature.celsius} °C; dissolved ${model.element} ${corrected ? 'molality' : 'activity'} ${fmtA(model.activity)}${corrected ? ' mol/kg (activities below)' : ''}` +
     (Object.keys(model.ligands).length ? `; ligands ${Object.entries(model.ligands).map(([k, v]) => `${k} ${fmtA(v)}`).join(', ')}` : '') +
     '\nPotentials in V vs SHE at the diagram temperature.';
   const body = table(
-    ['boundary', 'reaction', 'E°/V or log K', 'line', 'pH range'],
+    ['boundary', 'reaction', 'E°/V or log K', 'line', ...(ref ? [`line vs ${ref.label}`] : []), 'pH range'],
     rows.map((r) => [
       r.between.join(' / '),
       r.reaction,
       r.line.kind === 'E' ? `E° = ${r.line.E0!.toFixed(4)}` : `log K = ${r.line.logK!.toFixed(3)}`,
       r.equation,
+      ...(ref ? [r.equationRef!] : []),
       `${r.pHRange[0].toFixed(2)}–${r.pHRange[1].toFixed(2)}`,
     ]),
   );

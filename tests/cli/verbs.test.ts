@@ -111,3 +111,20 @@ describe('draw figure options on the command line', () => {
     expect(existsSync(join(dir, 'bad.svg'))).toBe(false);
   });
 });
+
+describe('reference electrodes in outputs', () => {
+  it('lines --ref sce shifts every E line by −0.241 V (SCE vs SHE at 25 °C, reference-electrodes table)', async () => {
+    const j = JSON.parse((await runCli(['lines', fe, '--ref', 'sce', '--json'])).stdout);
+    const row = j.lines.find((r: { between: string[] }) => r.between.includes('Fe') && r.between.includes('Fe+2'));
+    const sce = Number(/E = (-?[\d.]+) V vs SCE/.exec(row.equationRef)![1]);
+    expect(sce - row.line.intercept).toBeCloseTo(-0.241, 2);
+  });
+
+  it('draw --ref cse adds a second axis labelled with the electrode; the RHE is refused for an axis', async () => {
+    const out = join(dir, 'cse.svg');
+    expect((await runCli(['draw', fe, '-o', out, '--ref', 'cse'])).code).toBe(0);
+    expect(readFileSync(out, 'utf8')).toMatch(/V vs Cu\/CuSO/);
+    const r = await runCli(['draw', fe, '-o', join(dir, 'rhe.svg'), '--ref', 'rhe']);
+    expect(r.code).toBe(2);
+  });
+});
