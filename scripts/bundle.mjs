@@ -11,5 +11,7 @@ await build({
   target: 'node20',
   external: ['pdfkit', '@resvg/resvg-js', 'svgdom', 'playwright-core'],
   banner: { js: "import { createRequire as __ephmapRequire } from 'node:module';\nconst require = __ephmapRequire(import.meta.url);" },
+  minifyWhitespace: true,
+  minifySyntax: true,
   logLevel: 'warning',
 });

@@ -91,8 +91,16 @@ async function main(): Promise<void> {
 
     // 3. CLI draw vs bare node start-up.
     const svg = join(dir, 'iron.svg');
-    const tNode = timeIt(() => execFileSync(process.execPath, ['-e', '0']), 7);
-    const tDraw = timeIt(() => execFileSync(process.execPath, [cli, 'draw', fe, '-o', svg]), 7);
+    // Interleaved runs after a warm-up, medians of 15 each, so that machine load affects both alike.
+    execFileSync(process.execPath, [cli, 'draw', fe, '-o', svg]);
+    const nodeRuns: number[] = [];
+    const drawRuns: number[] = [];
+    for (let k = 0; k < 15; k++) {
+      nodeRuns.push(timeIt(() => execFileSync(process.execPath, ['-e', '0']), 1));
+      drawRuns.push(timeIt(() => execFileSync(process.execPath, [cli, 'draw', fe, '-o', svg]), 1));
+    }
+    const tNode = median(nodeRuns);
+    const tDraw = median(drawRuns);
     console.log(`draw/node-startup ratio: ${(tDraw / tNode).toFixed(2)}`);
     console.log(`solver/bare-loop ratio: ${(tBare / tGrid).toFixed(2)}`);
 
