@@ -89,8 +89,8 @@ export function balance(
     phi = addScaled(phi, q.p.phi, nus[k]);
     phi0 = addScaled(phi0, q.p.phi0, nus[k]);
   });
-  const n = -electrons;
-  const m = -protons;
+  const n = -electrons || 0;
+  const m = -protons || 0;
   const line = lineFrom(phi, phi0, n, m, kelvin);
   const terms = parts.map((q, k) => ({ formula: q.p.sp.formula, phase: q.p.sp.phase, nu: nus[k] }));
   const text = reactionText(terms, water, protons, electrons);
