@@ -3,7 +3,8 @@
  */
 import { extname } from 'node:path';
 import type { Command } from 'commander';
-import { compute, computeFile, loadSpec } from '../pipeline.js';
+import { compute } from '../pipeline.js';
+import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
@@ -20,7 +21,7 @@ import { type FigureFormat, renderFigure } from '../figure/output.js';
 
 const DRAW_FORMATS = ['svg', 'pdf', 'png', 'html', 'json'];
 
-interface DrawOptions extends FigureOverrides {
+interface DrawOptions extends FigureOverrides, SpecOverrides {
   output: string;
   ref?: string;
 }
@@ -31,8 +32,8 @@ function warn(ws: string[]): void {
 }
 
 export function registerCore(program: Command): void {
-  program
-    .command('draw')
+  withSpecOptions(program
+    .command('draw'))
     .description('compute the diagram of a system file and write it; format by extension: .svg, .pdf, .png, .html (interactive), .json (diagram model)')
     .argument('<file>', 'system file (.json, .yaml, .yml)')
     .requiredOption('-o, --output <path>', 'output file (.svg, .pdf, .png, .html or .json)')
@@ -53,7 +54,7 @@ export function registerCore(program: Command): void {
       if (!DRAW_FORMATS.includes(ext)) {
         throw new InputError('command line', '--output', `a file name ending in ${DRAW_FORMATS.map((x) => `.${x}`).join(', ')}`, JSON.stringify(opts.output));
       }
-      const spec = loadSpec(file);
+      const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
       const c = compute(spec);
       if (opts.ref !== undefined) {
@@ -68,14 +69,14 @@ export function registerCore(program: Command): void {
       process.stdout.write(`wrote ${opts.output}\n`);
     });
 
-  program
-    .command('lines')
+  withSpecOptions(program
+    .command('lines'))
     .description('every boundary reaction and line equation')
     .argument('<file>', 'system file')
     .option('--json', 'machine-readable output')
     .option('--ref <name>', 'also give each line against this reference electrode (sce, agcl-sat, cse, ...)')
-    .action((file: string, opts: { json?: boolean; ref?: string }) => {
-      const c = computeFile(file);
+    .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
+      const c = compute(loadSpecWith(file, opts));
       const ref = opts.ref === undefined ? undefined : displayReference(opts.ref, c.spec.temperature);
       warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
       const rows = lineRows(c.model, ref);

@@ -4,8 +4,9 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
+import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { numberArg } from './args.js';
-import { compute, type Computed, loadSpec } from '../pipeline.js';
+import { compute, type Computed } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { parsePointsCsv, pointsCsv } from '../report/points-csv.js';
 import { probe, type ProbeResult } from '../report/probe.js';
@@ -19,7 +20,7 @@ import { writeAtomic } from './write.js';
 
 const num = numberArg;
 
-interface ProbeOpts {
+interface ProbeOpts extends SpecOverrides {
   ph?: string;
   potential?: string;
   ref?: string;
@@ -57,8 +58,8 @@ function toSHE(ref: string | CustomReference | undefined, E: number, celsius: nu
 }
 
 export function registerProbe(program: Command): void {
-  program
-    .command('probe')
+  withSpecOptions(program
+    .command('probe'))
     .description('the verdict and predominant species at an operating point (or every row of a logged CSV), evaluated exactly')
     .argument('<file>', 'system file')
     .option('--ph <pH>', 'pH at the point')
@@ -68,7 +69,7 @@ export function registerProbe(program: Command): void {
     .option('-o, --output <csv>', 'with --points: write the results CSV here (default: standard output)')
     .option('--json', 'machine-readable output')
     .action((file: string, opts: ProbeOpts) => {
-      const spec = loadSpec(file);
+      const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
       const at = computer(spec);

@@ -6,9 +6,10 @@
  */
 import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
+import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { captionLines, figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
-import { compute, loadSpec } from '../pipeline.js';
+import { compute } from '../pipeline.js';
 import { reportData } from '../report/report-data.js';
 import { reportHtml } from '../report/report-html.js';
 import { reportMarkdown } from '../report/report-md.js';
@@ -24,18 +25,18 @@ type ReportFormat = (typeof REPORT_FORMATS)[number];
 const REPORT_WIDTH = '160mm';
 
 export function registerReport(program: Command): void {
-  program
-    .command('report')
+  withSpecOptions(program
+    .command('report'))
     .description('one document (.md with a .svg beside it, self-contained .html, or .pdf): conditions, figure, reactions, operating points with verdicts, plating window, sources, cautions')
     .argument('<file>', 'system file (.json, .yaml, .yml)')
     .requiredOption('-o, --output <path>', 'output file (.md, .html or .pdf)')
-    .action(async (file: string, opts: { output: string }) => {
+    .action(async (file: string, opts: { output: string } & SpecOverrides) => {
       const ext = extname(opts.output).toLowerCase().slice(1);
       if (!(REPORT_FORMATS as readonly string[]).includes(ext) || basename(opts.output, extname(opts.output)) === '') {
         throw new InputError('command line', '--output', 'a file name ending in .md, .html or .pdf', JSON.stringify(opts.output));
       }
       const fmt = ext as ReportFormat;
-      const spec = loadSpec(file);
+      const spec = loadSpecWith(file, opts);
       const figure = spec.extra.figure;
       const hasWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
       const fig = figureSettings(spec, hasWidth ? {} : { width: REPORT_WIDTH });

@@ -3,10 +3,11 @@
  */
 import { extname } from 'node:path';
 import type { Command } from 'commander';
+import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
-import { compute, loadSpec } from '../pipeline.js';
+import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { table } from '../report/table.js';
 import { platingWindow, type WindowResult } from '../report/window.js';
@@ -29,20 +30,20 @@ export function windowText(r: WindowResult, head: string): string {
 }
 
 export function registerWindow(program: Command): void {
-  program
-    .command('window')
+  withSpecOptions(program
+    .command('window'))
     .description('plating pH window: where the metal stays dissolved, its deposition potential and margin to hydrogen evolution')
     .argument('<file>', 'bath system file')
     .option('--json', 'machine-readable output')
     .option('-o, --output <path>', 'also draw the diagram with the window highlighted (.svg, .pdf, .png)')
-    .action(async (file: string, opts: { json?: boolean; output?: string }) => {
+    .action(async (file: string, opts: { json?: boolean; output?: string } & SpecOverrides) => {
       let fmt: FigureFormat | undefined;
       if (opts.output) {
         const ext = extname(opts.output).toLowerCase().slice(1);
         if (!['svg', 'pdf', 'png'].includes(ext)) throw new InputError('command line', '--output', 'a file name ending in .svg, .pdf or .png', JSON.stringify(opts.output));
         fmt = ext as FigureFormat;
       }
-      const spec = loadSpec(file);
+      const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec);
       const c = compute(spec);
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);

@@ -128,3 +128,18 @@ describe('reference electrodes in outputs', () => {
     expect(r.code).toBe(2);
   });
 });
+
+describe('what-if options on the command line', () => {
+  it('--temperature and --activity override the file; out-of-range values name the option', async () => {
+    const a = JSON.parse((await runCli(['lines', fe, '--json', '--activity', '1e-4'])).stdout);
+    const b = JSON.parse((await runCli(['lines', fe, '--json'])).stdout);
+    const line = (j: { lines: { between: string[]; line: { intercept: number } }[] }) => j.lines.find((r) => r.between.includes('Fe') && r.between.includes('Fe+2'))!.line.intercept;
+    // Nernst, n = 2: two decades of activity move the Fe+2/Fe line by 59.16 mV at 25 °C.
+    expect((line(a) - line(b)) * 1000).toBeCloseTo(59.16, 1);
+    const hot = JSON.parse((await runCli(['probe', fe, '--ph', '7', '--potential', '0', '--json', '--temperature', '150'])).stdout);
+    expect(hot.temperature.celsius).toBe(150);
+    const bad = await runCli(['draw', fe, '-o', join(dir, 'hot.svg'), '--temperature', '500']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/--temperature/);
+  });
+});
