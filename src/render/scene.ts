@@ -33,7 +33,7 @@ import {
 import { CAP_HEIGHT, FONT_SAFETY, runsExtent, runsWidth, stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
 import { assignFills, CLASS_NAMES, CLASS_TINTS, inks, toGray } from './palette.js';
-import type { Point, Rect, Scene, SceneCircle, SceneGroup, SceneItem, ScenePath, SceneText, TextRun } from './scene-types.js';
+import type { Point, Rect, Scene, SceneGroup, SceneItem, ScenePath, SceneText, TextRun } from './scene-types.js';
 import { expandScripts, formulaRuns, plainRuns, powerOfTenRuns, quantityRuns, richRuns, runsUnicode } from './typeset.js';
 
 export type { Scene, SceneItem, ScenePath, SceneText, SceneCircle, SceneGroup, TextRun, Rect, Point, PlotFrame } from './scene-types.js';
