@@ -9,6 +9,9 @@ import { cellText } from '../report/cell-format.js';
 import { stableJson } from '../report/json.js';
 import { InputError } from '../system/errors.js';
 import { listReferences } from '../thermo/reference.js';
+import { parseFormula } from '../chem/formula.js';
+import { readSystemFile } from '../system/read.js';
+import { readSpec } from '../system/spec.js';
 import type { Extrapolation } from '../thermo/gibbs.js';
 
 export interface CellDeps {
@@ -25,6 +28,19 @@ interface CellCliOptions {
   reference?: string;
   ph?: string;
   json?: boolean;
+  species?: string;
+}
+
+/** Species of a system file's inline list (with data) first, then the fallback lookup. */
+function fileLookup(path: string, fallback: SpeciesLookup): SpeciesLookup {
+  const spec = readSpec(readSystemFile(path), path);
+  const inline = (spec.species ?? []).filter((x) => !x.fromLibrary && x.dfG !== undefined);
+  return (formula, phase) => {
+    const hit = inline.find((x) => x.formula === formula && (phase === undefined || x.phase === phase));
+    if (!hit) return fallback(formula, phase);
+    const f = parseFormula(hit.formula);
+    return { dfG: hit.dfG!, dfH: hit.dfH, S: hit.S, Cp: hit.Cp, elements: f.elements, charge: f.charge, phase: hit.phase, source: hit.source ?? path };
+  };
 }
 
 const CLI = 'command line';
@@ -45,6 +61,7 @@ export function registerCell(program: Command, deps: CellDeps): void {
     .option('--extrapolation <mode>', 'cp (constant Cp°) or constant-h-s (ΔH − TΔS)', 'cp')
     .option('--reference <name>', 'also give half-reaction potentials against a reference electrode')
     .option('--ph <pH>', 'pH, for --reference rhe')
+    .option('--species <file>', 'a system file whose inline species are used first (then the built-in library)')
     .option('--json', 'machine-readable output')
     .addHelpText('after', `\nReference electrodes:\n${listReferences().map((l) => `  ${l}`).join('\n')}\n`)
     .action((reaction: string, opts: CellCliOptions) => {
@@ -71,7 +88,8 @@ export function registerCell(program: Command, deps: CellDeps): void {
         temperatures = [num(opts.temperature ?? '25', '--temperature', 'a temperature in °C (number)')];
       }
       if (temperatures.some((t) => t <= -273.15)) throw new InputError(CLI, opts.range ? '--range' : '--temperature', 'temperatures above −273.15 °C', opts.range ?? opts.temperature);
-      const cellOpts = { lookup: deps.lookup, electrons, extrapolation, reference: opts.reference, pH };
+      const lookup = opts.species === undefined ? deps.lookup : fileLookup(opts.species, deps.lookup);
+      const cellOpts = { lookup, electrons, extrapolation, reference: opts.reference, pH };
       let rows: CellResult[];
       try {
         rows = temperatures.length === 1 && opts.range === undefined

@@ -143,3 +143,14 @@ describe('what-if options on the command line', () => {
     expect(bad.stderr).toMatch(/--temperature/);
   });
 });
+
+describe('cell with species from a file', () => {
+  it('uses the inline species of a system file before the library (Cu+2/Cu with ΔfG° 65.0 kJ/mol → 0.3368 V)', async () => {
+    const f = writeTmp(dir, 'cu.yaml', 'element: Cu\nspecies:\n  - {formula: Cu, phase: s, dfG: 0}\n  - {formula: Cu+2, phase: aq, dfG: 65.0}\n');
+    const lib = JSON.parse((await runCli(['cell', 'Cu+2 + 2e- = Cu(s)', '--json'])).stdout);
+    const own = JSON.parse((await runCli(['cell', 'Cu+2 + 2e- = Cu(s)', '--json', '--species', f])).stdout);
+    // E = ΔfG°(Cu+2)/(2F), F = 96485.33212 C/mol (CODATA 2018)
+    expect(own.equilibriumPotential).toBeCloseTo(65000 / (2 * 96485.33212), 6);
+    expect(lib.equilibriumPotential).not.toBeCloseTo(own.equilibriumPotential, 4);
+  });
+});
