@@ -60,7 +60,7 @@ function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
   };
 }
 
-export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; water: BuiltSystem['water'] } {
+export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { main: ResolvedSpecies[]; water: BuiltSystem['water'] } {
   const lib = loadLibrary();
   const ligandEls = Object.values(spec.ligandGroups).flatMap((g) => Object.keys(g));
   let list: ResolvedSpecies[];
@@ -107,7 +107,18 @@ export function resolveSpecies(spec: SystemSpec): { main: ResolvedSpecies[]; wat
     const { formula, phase } = splitPhase(ex);
     const before = list.length;
     list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
-    if (list.length === before) throw new InputError(spec.file, 'exclude', 'formulas of species in the system', JSON.stringify(ex));
+    if (list.length === before) {
+      // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
+      // a name that matches nothing anywhere is most likely a typing error.
+      let known: LibrarySpecies | undefined;
+      try {
+        known = findSpecies(lib, ex);
+      } catch {
+        known = undefined;
+      }
+      if (!known) throw new InputError(spec.file, 'exclude', 'formulas or names of species in the system or the library', JSON.stringify(ex));
+      warnings.push(`exclude: ${ex} is not in this system; nothing left out`);
+    }
   }
   // Alternatives from other compilations.
   for (const [formula, id] of Object.entries(spec.pick)) {
@@ -191,7 +202,7 @@ function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: str
 export function buildSystem(spec: SystemSpec): BuiltSystem {
   const warnings = [...spec.warnings];
   const kelvin = spec.temperature + KELVIN;
-  const { main: resolved, water } = resolveSpecies(spec);
+  const { main: resolved, water } = resolveSpecies(spec, warnings);
   const sol = solutionAt(spec.file, spec.temperature, spec.pressure, spec.solution);
   warnings.push(...sol.warnings);
   const corrected = spec.solution.ionicStrength > 0 && spec.solution.model !== 'ideal';
