@@ -124,7 +124,19 @@ function scriptJson(v: unknown): string {
     .replace(/\u2029/g, '\\u2029');
 }
 
-const STYLE = `
+/** Width (rem) from which the read-out sits in a panel beside the figure; below it, at the bottom of the window. */
+const WIDE_REM = 52;
+
+/**
+ * The page's style sheet. The figure is sized to fit the window's height (`ratio` = its width /
+ * height), so that on a laptop screen the whole plot and the read-out are in view together: on
+ * wide windows the read-out is a panel beside the figure (sticky at the top), on narrow ones a
+ * compact bar stuck to the bottom of the window while the figure is on screen (the help text is
+ * then visually hidden but still read by assistive technology). Print shows the figure alone.
+ */
+function pageStyle(ratio: number): string {
+  const r = Number(ratio.toFixed(4));
+  return `
 :root { color-scheme: light; }
 body { margin: 0; padding: 1rem; background: #fff; color: #111;
   font-family: system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif; line-height: 1.4; }
@@ -135,11 +147,28 @@ figure.ephmap { margin: 0; }
 .ephmap-plot:focus { outline: 3px solid #1a5fb4; outline-offset: 3px; }
 .ephmap-plot:focus:not(:focus-visible) { outline: none; }
 .ephmap-controls { margin-top: 0.5rem; }
-.ephmap-help { margin: 0 0 0.4rem; color: #444; font-size: 0.9rem; }
+.ephmap-help { margin: 0.5rem 0 0; color: #444; font-size: 0.9rem; }
 .ephmap-readout { min-height: 4.6em; padding: 0.3rem 0.75rem; border-left: 3px solid #1a5fb4; background: #f4f6f8;
   font-variant-numeric: tabular-nums; }
 .ephmap-readout p { margin: 0.1rem 0; }
 .ephmap-species { font-weight: 600; }
+@media screen {
+  .ephmap-plot { width: min(100%, max(18rem, calc((100vh - 10rem) * ${r}))); margin: 0 auto; }
+}
+@media screen and (min-width: ${WIDE_REM}rem) {
+  main { max-width: 84rem; }
+  figure.ephmap { display: flex; gap: 1rem; align-items: flex-start; justify-content: center; }
+  .ephmap-plot { flex: 0 1 max(18rem, calc((100vh - 2rem) * ${r})); width: auto; min-width: 0; margin: 0; }
+  .ephmap-controls { flex: 0 0 18rem; margin-top: 0; position: sticky; top: 1rem; max-height: calc(100vh - 2rem); overflow-y: auto; }
+  .ephmap-readout { min-height: 9em; font-size: 0.95rem; }
+}
+@media screen and (max-width: ${WIDE_REM - 0.01}rem) {
+  .ephmap-controls { position: sticky; bottom: 0; z-index: 1; margin-top: 0.4rem; padding: 0.4rem 0 0.2rem; background: #fff;
+    box-shadow: 0 -1px 0 #d0d4d8; }
+  .ephmap-help { position: absolute; width: 1px; height: 1px; margin: -1px; padding: 0; overflow: hidden;
+    clip: rect(0 0 0 0); white-space: nowrap; border: 0; }
+  .ephmap-readout { min-height: 0; font-size: 0.85rem; }
+}
 @media print {
   body { padding: 0; }
   main { max-width: none; }
@@ -148,6 +177,7 @@ figure.ephmap { margin: 0; }
   .ephmap-plot svg { width: 100%; }
 }
 `;
+}
 
 const SCRIPT = `
 (function () {
@@ -295,7 +325,8 @@ export function sceneToHtml(scene: Scene, model: DiagramModel, options: Pick<Fig
     .replace(/^<svg /, '<svg aria-hidden="true" focusable="false" ')
     .replace(/<\/svg>\n$/, `${overlaySvg(scene)}\n</svg>`);
   const data = pageData(scene, model, options);
-  const csp = `default-src 'none'; script-src ${cspHash(SCRIPT)}; style-src ${cspHash(STYLE)}; base-uri 'none'; form-action 'none'`;
+  const style = pageStyle(scene.widthPt / scene.heightPt);
+  const csp = `default-src 'none'; script-src ${cspHash(SCRIPT)}; style-src ${cspHash(style)}; base-uri 'none'; form-action 'none'`;
   const title = esc(scene.title);
   const ref = data.second ? ` and ${esc(data.second.name)}` : '';
   return [
@@ -307,7 +338,7 @@ export function sceneToHtml(scene: Scene, model: DiagramModel, options: Pick<Fig
     `<meta http-equiv="Content-Security-Policy" content="${csp}">`,
     '<meta name="generator" content="ephmap">',
     `<title>${title}</title>`,
-    `<style>${STYLE}</style>`,
+    `<style>${style}</style>`,
     '</head>',
     '<body>',
     '<main>',
@@ -316,12 +347,12 @@ export function sceneToHtml(scene: Scene, model: DiagramModel, options: Pick<Fig
     svg,
     '</div>',
     '<div class="ephmap-controls">',
-    `<p class="ephmap-help" id="ephmap-help">Point at the diagram or tap it to read pH, potential (V vs SHE${ref}), the predominant species and the nearest boundary. With the keyboard, focus the diagram and use the arrow keys: 0.1 pH or 10 mV per step, ten times more with Shift.</p>`,
     '<div class="ephmap-readout" id="ephmap-readout" role="status" aria-live="polite" aria-atomic="true">',
-    '<p class="ephmap-point" id="ephmap-point">No point chosen yet.</p>',
+    '<p class="ephmap-point" id="ephmap-point">No point chosen yet: point at or tap the diagram, or focus it and use the arrow keys.</p>',
     '<p class="ephmap-species" id="ephmap-species"></p>',
     '<p class="ephmap-line" id="ephmap-line"></p>',
     '</div>',
+    `<p class="ephmap-help" id="ephmap-help">Point at the diagram or tap it to read pH, potential (V vs SHE${ref}), the predominant species and the nearest boundary. With the keyboard, focus the diagram and use the arrow keys: 0.1 pH or 10 mV per step, ten times more with Shift.</p>`,
     '</div>',
     '</figure>',
     '</main>',

@@ -611,3 +611,80 @@ function leaderPlace(
   const tip: Point = len > 0 ? [e[0] - ((e[0] - s[0]) / len) * trim, e[1] - ((e[1] - s[1]) / len) * trim] : e;
   return { cx: best.cx, cy: best.cy, leader: [s, tip] };
 }
+
+export interface LayerLabelRequest {
+  key: string;
+  /** What the label names (e.g. the species): a field already named the same is not labelled again. */
+  name: string;
+  runs: TextRun[];
+  /** Pieces of the region in figure coordinates (clipped to the plot), tried in the given order. */
+  pieces: Point[][][];
+}
+
+export interface LayerLabelPlacement {
+  key: string;
+  /** Centre of the text ink box. */
+  cx: number;
+  cy: number;
+  box: Rect;
+}
+
+/**
+ * Places the small labels of an overlay layer's regions, in the given order: each goes inside
+ * its region (the first piece where it fits), at the most central place (nearest the piece's
+ * centroid) where the padded label could grow by half again, else at the place of largest
+ * clearance. Unlike a base region label it never shrinks, turns or moves out with a leader: it
+ * must keep clear of every line (hard and soft: base boundaries, water lines, every overlay, the
+ * marks) and every placed box, or it is left out (null) — a missing small label is better than a
+ * crowded figure. A region is also left unlabelled when a label of the same name already lies
+ * inside it (`named`: the points of the labels placed so far, e.g. the base's; e.g. Fe₂O₃ at
+ * 150 °C over the 25 °C Fe₂O₃ field, whose label names both). Adds each placed box to the layout
+ * (role 'overlay-label') and its centre to `named`.
+ */
+export function placeLayerLabels(
+  layout: Layout,
+  requests: readonly LayerLabelRequest[],
+  size: number,
+  gap: number,
+  named: { name: string; at: Point }[] = [],
+): (LayerLabelPlacement | null)[] {
+  const padX = 0.25 * size;
+  const padY = 0.2 * size;
+  return requests.map((req) => {
+    if (named.some((n) => n.name === req.name && req.pieces.some((rings) => insideRings(n.at, rings)))) return null;
+    const w = runsWidth(req.runs, size) * FONT_SAFETY;
+    const { top, bottom } = runsExtent(req.runs, size);
+    const h = bottom - top;
+    const hx = w / 2 + padX;
+    const hy = h / 2 + padY;
+    for (const rings of req.pieces) {
+      const near = nearSegments(rings);
+      const boxSegs = layout.boxes.flatMap((b) => boxSegments(inflate(b.rect, gap)));
+      const obstacles = [...near(layout.hard), ...near(layout.soft), ...near(boxSegs)];
+      const middle = rectPole(rings, obstacles, hx, hy, { cap: LABEL_ROOM });
+      const at = middle.scale >= 1 ? middle : rectPole(rings, obstacles, hx, hy);
+      if (at.scale < 1) continue;
+      const [cx, cy] = at.point;
+      const box = centredBox(req.runs, size, cx, cy);
+      if (!rectInside(box, layout.plot) || !layout.boxFree(box, gap)) continue;
+      layout.addBox(box, 'overlay-label');
+      named.push({ name: req.name, at: [cx, cy] });
+      return { key: req.key, cx, cy, box };
+    }
+    return null;
+  });
+}
+
+/** The four edges of a rectangle. */
+function boxSegments(r: Rect): Segment[] {
+  const a: Point = [r.x, r.y];
+  const b: Point = [r.x + r.w, r.y];
+  const c: Point = [r.x + r.w, r.y + r.h];
+  const d: Point = [r.x, r.y + r.h];
+  return [
+    [a, b],
+    [b, c],
+    [c, d],
+    [d, a],
+  ];
+}

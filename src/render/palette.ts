@@ -252,3 +252,49 @@ export function inks(style: 'color' | 'gray' | 'lines'): {
     ligand: '#808080',
   };
 }
+
+/**
+ * Line inks of overlaid layers of different elements ('color' style), base first: black, then
+ * blue, vermillion, bluish green and reddish purple from the Okabe–Ito palette (Okabe & Ito,
+ * "Color Universal Design", 2008), chosen to stay apart for readers with protan, deutan or tritan
+ * colour-vision deficiencies. Each layer also has its own dash pattern, so a gray copy still tells
+ * them apart.
+ */
+export const LAYER_INKS: readonly string[] = ['#000000', '#0072b2', '#d55e00', '#009e73', '#cc79a7'];
+
+/** Plain names of LAYER_INKS, in the same order (for captions). */
+export const LAYER_INK_NAMES: readonly string[] = ['black', 'blue', 'vermillion', 'bluish green', 'reddish purple'];
+
+/**
+ * WCAG 2 contrast ratio of two sRGB colours: (Y₁ + 0.05) / (Y₂ + 0.05) with Y₁ ≥ Y₂ their relative
+ * luminances (W3C, Web Content Accessibility Guidelines 2.1, "contrast ratio"). Ranges 1…21;
+ * 4.5 is the minimum for normal-size text (success criterion 1.4.3). Example: #767676 on white ≈ 4.54.
+ */
+export function contrastRatio(a: string, b: string): number {
+  const ya = luminance(a);
+  const yb = luminance(b);
+  return (Math.max(ya, yb) + 0.05) / (Math.min(ya, yb) + 0.05);
+}
+
+/**
+ * Ink for text in a line's colour: the colour itself when it has at least `min` contrast on white
+ * (WCAG 2 ratio, default 4.5), else the same chromaticity darkened (linear RGB channels scaled by
+ * one factor) to relative luminance Y = 1.05 / min − 0.05, i.e. exactly `min` on white. Colours
+ * that are not hex (named CSS colours) are returned unchanged.
+ */
+export function textInk(color: string, min = 4.5): string {
+  if (!/^#([0-9a-f]{3}|[0-9a-f]{6})$/i.test(color.trim())) return color;
+  const y = luminance(color);
+  const target = 1.05 / min - 0.05;
+  if (y <= target) return normColor(color);
+  const rgb = parseHex(color).map(toLinear);
+  const shade = (k: number): string => `#${rgb.map((c) => fromLinear(c * k).toString(16).padStart(2, '0')).join('')}`;
+  // Rounding to 8 bits may land a hair above the target luminance: step down until it passes.
+  let k = target / y;
+  let out = shade(k);
+  while (contrastRatio(out, '#ffffff') < min && k > 0) {
+    k -= 0.002;
+    out = shade(Math.max(0, k));
+  }
+  return out;
+}

@@ -24,15 +24,17 @@ import {
   firstFree,
   Layout,
   orientedBounds,
+  placeLayerLabels,
   placeMarkLabel,
   placeRegionLabels,
+  type LayerLabelRequest,
   textBox,
   type OrientedBox,
   type RegionLabelRequest,
 } from './labels.js';
 import { CAP_HEIGHT, FONT_SAFETY, runsExtent, runsWidth, stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
-import { assignFills, CLASS_NAMES, CLASS_TINTS, inks, toGray } from './palette.js';
+import { assignFills, CLASS_NAMES, CLASS_TINTS, inks, normColor, textInk, toGray } from './palette.js';
 import type { Point, Rect, Scene, SceneGroup, SceneItem, ScenePath, SceneText, TextRun } from './scene-types.js';
 import { expandScripts, formulaRuns, plainRuns, powerOfTenRuns, quantityRuns, richRuns, runsUnicode } from './typeset.js';
 
@@ -53,8 +55,12 @@ export interface FigureInput {
   paths?: { label: string; points: [number, number][] }[];
   /** Operating envelopes (hatched box). */
   boxes?: { label: string; pH: [number, number]; E: [number, number] }[];
-  /** Extra layers: boundaries only, in their own dash style, named in the legend. */
-  overlays?: { label: string; model: DiagramModel; dash: string }[];
+  /**
+   * Extra layers: boundaries in their own dash style, named in the legend, with small labels of
+   * their regions in the layer's ink (where they fit clear of every line and label). `color` sets
+   * the layer's ink (default: the style's overlay inks in turn).
+   */
+  overlays?: { label: string; model: DiagramModel; dash: string; color?: string }[];
   /**
    * Legend name of the base layer's boundaries when there are overlays or families, e.g.
    * "Fe, 25 °C, a = 10⁻⁶ (filled)"; default "boundaries, a = 10⁻⁶". Rich text ({H2O}, ^…^) allowed.
@@ -180,6 +186,7 @@ export function buildScene(input: FigureInput): Scene {
   const lw = o.lineWidth;
   const thin = Math.max(0.3, 0.55 * lw);
   const ink = inks(o.style);
+  const overlayInk = (ov: { color?: string }, i: number): string => (ov.color !== undefined ? normColor(ov.color) : ink.overlay[i % ink.overlay.length]!);
   const pad = 0.4 * fs;
   const tickLen = 0.4 * fs;
   const tickGap = 0.3 * fs;
@@ -233,7 +240,7 @@ export function buildScene(input: FigureInput): Scene {
     }
     if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: waterDash, runs: richRuns('water stability limits') });
     (input.overlays ?? []).forEach((ov, i) => {
-      legend.push({ kind: 'line', stroke: ink.overlay[i % ink.overlay.length]!, width: 0.8 * lw, dash: parseDash(ov.dash, lw), runs: richRuns(ov.label) });
+      legend.push({ kind: 'line', stroke: overlayInk(ov, i), width: 0.8 * lw, dash: parseDash(ov.dash, lw), runs: richRuns(ov.label) });
     });
   }
   const legSize = small;
@@ -392,7 +399,7 @@ export function buildScene(input: FigureInput): Scene {
     const pieces = ov.model.boundaries.flatMap((b) => figLine(b.points));
     if (!pieces.length) return;
     const st = dashStroke(parseDash(ov.dash, lw), 0.8 * lw);
-    overlayItems.push(line('overlay', pieces, ink.overlay[i % ink.overlay.length]!, 0.8 * lw, st.dash, { lineCap: st.lineCap, lineJoin: 'round', data: { label: ov.label } }));
+    overlayItems.push(line('overlay', pieces, overlayInk(ov, i), 0.8 * lw, st.dash, { lineCap: st.lineCap, lineJoin: 'round', data: { label: ov.label } }));
     layout.soft.push(...segsOf(pieces));
   });
 
@@ -657,6 +664,38 @@ export function buildScene(input: FigureInput): Scene {
         layout.addBox(orientedBounds(ob), 'water-label');
       }
     }
+  }
+
+  // ---- Overlay layer labels ----------------------------------------------------------------
+  // Small formulas in each layer's ink, largest regions first over all layers (ties: earlier
+  // layer), so that every layer gets its main fields named before any gets its small ones.
+  {
+    const size = Math.max(MIN_FONT_PT, fs * 0.75);
+    const jobs: { req: LayerLabelRequest; area: number; layer: number; region: number; species: string }[] = [];
+    (input.overlays ?? []).forEach((ov, li) => {
+      // The layer is drawn in the base's frame (its points mapped with the base's scales).
+      ov.model.regions.forEach((r, ri) => {
+        const pieces = r.polygons
+          .map((poly) => poly.map((ring) => simplifyCollinear(clipRing(ring.map((p) => fr.toFig(p)), plot), true)).filter((ring) => ring.length >= 3))
+          .filter((rings) => rings.length > 0)
+          .map((rings) => ({ rings, area: polyArea(rings) }))
+          .filter((pc) => pc.area > 0)
+          .sort((a, b) => b.area - a.area);
+        if (!pieces.length) return;
+        jobs.push({ req: { key: `${li}:${ri}`, name: r.species, runs: formulaRuns(r.species), pieces: pieces.map((pc) => pc.rings) }, area: pieces[0]!.area, layer: li, region: ri, species: r.species });
+      });
+    });
+    jobs.sort((a, b) => b.area - a.area || a.layer - b.layer || a.region - b.region);
+    // Fields of the same species that hold the base's label are named by it already.
+    const named = placements.flatMap((pl) => (pl ? [{ name: model.regions[Number(pl.key.split(':')[0])]!.species, at: pl.leader ? pl.leader[0] : ([pl.cx, pl.cy] as Point) }] : []));
+    const placed = placeLayerLabels(layout, jobs.map((j) => j.req), size, 0.15 * fs, named);
+    placed.forEach((pl, k) => {
+      if (!pl) return;
+      const j = jobs[k]!;
+      const ov = input.overlays![j.layer]!;
+      const runs = j.req.runs;
+      labelItems.push(text('overlay-label', runs, pl.cx, baselineForCentre(runs, size, pl.cy), size, 'middle', textInk(overlayInk(ov, j.layer)), { box: pl.box, data: { species: j.species, layer: ov.label } }));
+    });
   }
 
   // ---- Family labels ------------------------------------------------------------------------

@@ -2,12 +2,15 @@
  * Overlay figures: several diagrams in one frame. Either one system at several temperatures or
  * activities, or several systems (e.g. Fe, Cr and Ni for a stainless steel). The first layer is the
  * base, drawn in full (with its fills when every layer has the same element, as lines only
- * otherwise); the others are drawn as boundaries only, each in its own dash style, and the legend
- * and caption name every layer by element, temperature and activity.
+ * otherwise); the others are drawn as boundaries only, each in its own dash style, with small
+ * labels of their fields in the layer's ink, and the legend and caption name every layer by
+ * element, temperature and activity. Layers of different elements in the 'color' style also get
+ * their own colour-blind-safe line colours (LAYER_INKS).
  */
 import { captionLines, figureInput, powerOfTen, shortSource } from '../figure/compose.js';
 import type { FigureSettings } from '../figure/options.js';
 import { compute, type Computed } from '../pipeline.js';
+import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
 import type { FigureInput } from '../render/scene.js';
 import { InputError } from '../system/errors.js';
 import { T_RANGE, type SystemSpec } from '../system/spec.js';
@@ -88,6 +91,8 @@ export interface OverlayFigure {
 export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: boolean): OverlayFigure {
   const base = layers[0];
   const sameElement = layers.every((l) => l.model.element === base.model.element);
+  // Several elements asked in colour: no fills (they would overlap), but a line colour per layer.
+  const layerColors = !sameElement && fig.options.style === 'color';
   if (!sameElement) {
     // Separate elements: lines only, and the caption (with the plain statement) is always shown.
     fig.options.style = 'lines';
@@ -104,14 +109,23 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
     fig.options.title = sameElement ? `${base.model.element}\u2013{H2O}, ${ts.join(' / ')} \u00b0C` : `${els.join(', ')}: separate single-element diagrams`;
   }
   const input = figureInput(base, { options: fig.options, families: [] });
-  input.overlays = layers.slice(1).map((l, k) => ({ label: labels[k + 1], model: l.model, dash: OVERLAY_DASHES[k] }));
+  input.overlays = layers.slice(1).map((l, k) => ({
+    label: labels[k + 1],
+    model: l.model,
+    dash: OVERLAY_DASHES[k],
+    // The base keeps the 'lines' style's black boundaries, LAYER_INKS[0].
+    ...(layerColors ? { color: LAYER_INKS[(k + 1) % LAYER_INKS.length] } : {}),
+  }));
   // The base layer is named in the legend like the others (its fields are filled when the elements agree).
   input.baseLabel = `${labels[0]}${sameElement && fig.options.style !== 'lines' ? ' (filled)' : ''}`;
   if (fig.options.show.caption) {
     // The base's own caption without its first line (conditions, named per layer here) and data line.
     const own = captionLines(base).slice(1).filter((l) => !l.startsWith('Data: '));
     const lines = [
-      `Layers: ${labels[0]} (base, solid lines${sameElement && fig.options.style !== 'lines' ? ', filled fields' : ''}); ${layers.slice(1).map((_, k) => `${labels[k + 1]} (${OVERLAY_DASHES[k]}, boundaries only)`).join('; ')}.`,
+      `Layers: ${labels[0]} (base, ${layerColors ? `${LAYER_INK_NAMES[0]} ` : ''}solid lines${sameElement && fig.options.style !== 'lines' ? ', filled fields' : ''}); ${layers
+        .slice(1)
+        .map((_, k) => `${labels[k + 1]} (${layerColors ? `${LAYER_INK_NAMES[(k + 1) % LAYER_INK_NAMES.length]} ` : ''}${OVERLAY_DASHES[k]}, boundaries only)`)
+        .join('; ')}.`,
       ...own,
     ];
     if (layers.some((l) => l.model.temperature.celsius !== base.model.temperature.celsius)) {

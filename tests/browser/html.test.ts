@@ -116,3 +116,78 @@ describe.skipIf(!haveChromium)('interactive HTML in Chromium', () => {
     expect(errors).toEqual([]);
   });
 });
+
+describe.skipIf(!haveChromium)('interactive HTML layout: the read-out stays in view', () => {
+  let browser: any;
+  let dir: string;
+  let file: string;
+
+  beforeAll(async () => {
+    // A large figure (170 mm × 160 mm, taller than a laptop window at 96 px/in) with a second axis.
+    const spec = readSpec({ element: 'Fe', temperature: 90, pH: [4, 12], E: [-1.2, 0.8], reference: 'agcl-sat', figure: { width: '170mm', height: '160mm' } }, 'loop.yaml');
+    const html = await renderFigure(figureInput(compute(spec), figureSettings(spec)), 'html');
+    dir = mkdtempSync(join(tmpdir(), 'ephmap-layout-'));
+    file = join(dir, 'loop.html');
+    writeFileSync(file, html);
+    const { chromium } = await import('playwright-core');
+    browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'] });
+  }, 60_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    if (dir) rmSync(dir, { recursive: true, force: true });
+  });
+
+  type R = { x: number; y: number; w: number; h: number };
+  /** Moves the pointer over the plot (a point at fractions fx, fy of the drawing) and returns the rectangles. */
+  async function pointAt(width: number, height: number, fx: number, fy: number): Promise<{ page: any; svg: R; readout: R; vw: number; vh: number; text: string }> {
+    const page = await browser.newPage({ viewport: { width, height } });
+    await page.goto(pathToFileURL(file).href);
+    const rect = (sel: string): Promise<R> =>
+      page.evaluate((q: string) => {
+        const r = document.querySelector(q)!.getBoundingClientRect();
+        return { x: r.x, y: r.y, w: r.width, h: r.height };
+      }, sel);
+    const s0 = await rect('#ephmap-plot svg');
+    await page.mouse.move(s0.x + s0.w * fx, s0.y + s0.h * fy);
+    return { page, svg: await rect('#ephmap-plot svg'), readout: await rect('#ephmap-readout'), vw: width, vh: height, text: (await page.textContent('#ephmap-readout')) as string };
+  }
+  const inView = (r: R, vw: number, vh: number): boolean => r.x >= 0 && r.y >= 0 && r.x + r.w <= vw + 0.5 && r.y + r.h <= vh + 0.5;
+
+  it('on a 1280×720 laptop window: the whole figure and, beside it, the read-out are in view', async () => {
+    const { page, svg, readout, vw, vh, text } = await pointAt(1280, 720, 0.55, 0.45);
+    expect(text).toMatch(/pH \d+\.\d\d, E = /);
+    expect(inView(svg, vw, vh)).toBe(true);
+    expect(inView(readout, vw, vh)).toBe(true);
+    expect(readout.x).toBeGreaterThanOrEqual(svg.x + svg.w); // beside, not over the figure
+    await page.close();
+  });
+
+  it('on a narrow window: the figure leaves room for the read-out below it', async () => {
+    const { page, svg, readout, vw, vh, text } = await pointAt(600, 420, 0.5, 0.2);
+    expect(text).toMatch(/pH \d+\.\d\d, E = /);
+    expect(inView(svg, vw, vh)).toBe(true);
+    expect(inView(readout, vw, vh)).toBe(true);
+    expect(readout.y).toBeGreaterThanOrEqual(svg.y + svg.h);
+    // Still a live region for screen readers, with the help text available to them.
+    expect(await page.getAttribute('#ephmap-readout', 'aria-live')).toBe('polite');
+    expect(await page.evaluate(() => document.getElementById('ephmap-help')!.textContent!.length)).toBeGreaterThan(50);
+    await page.close();
+  });
+
+  it('on a very short narrow window: the read-out sticks to the bottom of the window over the figure', async () => {
+    const { page, svg, readout, vw, vh } = await pointAt(600, 240, 0.5, 0.2);
+    expect(svg.y + svg.h).toBeGreaterThan(vh); // the figure runs past the window…
+    expect(inView(readout, vw, vh)).toBe(true); // …and the read-out is in view
+    await page.close();
+  });
+
+  it('prints the figure without the read-out', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 720 } });
+    await page.goto(pathToFileURL(file).href);
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.isVisible('#ephmap-readout')).toBe(false);
+    expect(await page.isVisible('#ephmap-plot svg')).toBe(true);
+    await page.close();
+  });
+});

@@ -5,7 +5,9 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { createSVGWindow } from 'svgdom';
 import { describe, expect, it } from 'vitest';
+import { LAYER_INKS, luminance } from '../../src/render/palette.js';
 import { SEPARATE_ELEMENTS_NOTE } from '../../src/report/overlay.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
@@ -104,6 +106,114 @@ describe('overlay: several elements', () => {
     const r = await overlay([fe, cr, '--no-caption'], join(dir, 'e2.svg'));
     expect(r.code).toBe(0);
     expect(parse(readFileSync(r.out, 'utf8')).caption).toContain('separate single-element diagram');
+  });
+});
+
+type Box = { x: number; y: number; w: number; h: number };
+type Pt = [number, number];
+
+/* eslint-disable @typescript-eslint/no-explicit-any */
+/** The SVG as a DOM (svgdom measures text with its own font data, independent of our metrics). */
+function dom(svg: string): any {
+  const window = createSVGWindow();
+  const host = window.document.createElement('div');
+  host.innerHTML = svg;
+  return host.querySelector('svg');
+}
+
+/**
+ * Ink box of a text element from svgdom's bbox: its line box trimmed to the glyph band. svgdom
+ * centres a middle-anchored text on its first run only, so such a box is re-centred on the anchor.
+ */
+function inkBox(el: any): Box {
+  const b = el.getBBox();
+  const x = el.getAttribute('text-anchor') === 'middle' ? Number(el.getAttribute('x')) - b.width / 2 : b.x;
+  return { x, y: b.y + 0.18 * b.height, w: b.width, h: 0.64 * b.height };
+}
+
+const overlaps = (a: Box, b: Box): boolean => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
+
+/** Segments of every path of the given class ("M x y L x y …" subpaths). */
+function segments(svg: any, cls: string): [Pt, Pt][] {
+  const out: [Pt, Pt][] = [];
+  for (const p of svg.querySelectorAll(`path.${cls}`)) {
+    for (const sub of (p.getAttribute('d') as string).split('M').filter(Boolean)) {
+      const pts = sub.replace(/Z$/, '').split('L').map((xy) => xy.trim().split(/\s+/).map(Number) as Pt);
+      for (let i = 0; i + 1 < pts.length; i++) out.push([pts[i]!, pts[i + 1]!]);
+    }
+  }
+  return out;
+}
+
+/** Whether a segment passes through the inside of a box (sampled finely; independent of the renderer's geometry). */
+function crosses([a, b]: [Pt, Pt], r: Box): boolean {
+  for (let i = 0; i <= 400; i++) {
+    const x = a[0] + (i / 400) * (b[0] - a[0]);
+    const y = a[1] + (i / 400) * (b[1] - a[1]);
+    if (x > r.x && x < r.x + r.w && y > r.y && y < r.y + r.h) return true;
+  }
+  return false;
+}
+
+describe('overlay: labels of the layers\' fields', () => {
+  it('names the fields of every layer (e.g. Cr2O3, NiO) in the layer\'s own colour, and no two labels overlap', async () => {
+    const r = await overlay([fe, cr, ni], join(dir, 'labels.svg'));
+    expect(r.code).toBe(0);
+    const text = readFileSync(r.out, 'utf8');
+    const svg = dom(text);
+    const labels = [...svg.querySelectorAll('text.overlay-label')];
+    const of = (layer: RegExp) => labels.filter((l: any) => layer.test(l.getAttribute('data-layer')));
+    const species = (ls: any[]) => ls.map((l) => l.getAttribute('data-species'));
+    // Passive films of chromium and nickel at mid pH (Cr2O3, NiO), read in the layer's fields.
+    expect(species(of(/^Cr,/))).toContain('Cr2O3');
+    expect(species(of(/^Ni,/))).toContain('NiO');
+    expect(of(/^Cr,/).length).toBeGreaterThanOrEqual(3);
+    expect(of(/^Ni,/).length).toBeGreaterThanOrEqual(3);
+    // Typeset: subscripts as tspans, read back as plain text.
+    expect(of(/^Cr,/).find((l: any) => l.getAttribute('data-species') === 'Cr2O3').textContent).toBe('Cr2O3');
+    // Each layer's labels in the layer's line colour; the two layers' colours differ.
+    const stroke = (label: string) => new RegExp(`<path class="overlay"[^>]*stroke="([^"]+)"[^>]*data-label="${label}"`).exec(text)?.[1];
+    const crInk = stroke('Cr, 25 °C, a = 10⁻⁶');
+    const niInk = stroke('Ni, 25 °C, a = 10⁻⁶');
+    expect(crInk).toBeDefined();
+    expect(crInk).not.toBe(niInk);
+    for (const l of of(/^Cr,/)) expect(luminance(l.getAttribute('fill'))).toBeLessThanOrEqual(luminance(crInk!) + 1e-9);
+    // No two labels of any kind overlap (unrotated ones, measured by svgdom).
+    const sel = 'text.region-label, text.overlay-label, text.point-label, text.path-label, text.box-label, text.family-label';
+    const boxes = [...svg.querySelectorAll(sel)].map((el: any) => ({ box: inkBox(el), text: `${el.getAttribute('class')} ${el.textContent}` }));
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) expect(overlaps(boxes[i]!.box, boxes[j]!.box), `${boxes[i]!.text} vs ${boxes[j]!.text}`).toBe(false);
+    // The small labels keep off every line: the base's boundaries, the layers' lines and the water lines.
+    const lines = [...segments(svg, 'boundary'), ...segments(svg, 'overlay'), ...segments(svg, 'water')];
+    for (const l of labels) {
+      const b = inkBox(l);
+      for (const s of lines) expect(crosses(s, b), `${l.getAttribute('data-species')} crosses a line`).toBe(false);
+    }
+  });
+
+  it('gives layers of different elements their own colours in colour style, in the legend too, and grays with --style lines', async () => {
+    const r = await overlay([fe, cr, ni], join(dir, 'colours.svg'));
+    const text = readFileSync(r.out, 'utf8');
+    const overlayStrokes = [...text.matchAll(/<path class="overlay"[^>]*stroke="([^"]+)"/g)].map((m) => m[1]);
+    expect(overlayStrokes).toEqual([LAYER_INKS[1], LAYER_INKS[2]]);
+    const legendStrokes = [...text.matchAll(/<path class="legend-line"[^>]*stroke="([^"]+)"/g)].map((m) => m[1]);
+    for (const s of overlayStrokes) expect(legendStrokes).toContain(s);
+    expect(parse(text).caption).toMatch(/Cr, 25 °C, a = 10(⁻⁶|−6) \(blue longdash, boundaries only\)/);
+    const g = await overlay([fe, cr, ni, '--style', 'lines'], join(dir, 'gray.svg'));
+    const grays = [...readFileSync(g.out, 'utf8').matchAll(/<path class="overlay"[^>]*stroke="#([0-9a-f]{6})"/g)].map((m) => m[1]!);
+    expect(grays).toHaveLength(2);
+    for (const h of grays) expect(h.slice(0, 2) === h.slice(2, 4) && h.slice(2, 4) === h.slice(4, 6)).toBe(true);
+  });
+
+  it('labels a shifted field of another temperature, but not one whose base label already names it', async () => {
+    const r = await overlay([fe, '--temperatures', '25,150'], join(dir, 'tl.svg'));
+    expect(r.code).toBe(0);
+    const svg = dom(readFileSync(r.out, 'utf8'));
+    const labels = [...svg.querySelectorAll('text.overlay-label')].map((l: any) => l.getAttribute('data-species'));
+    // The big Fe2O3 field holds its 25 °C label at 150 °C too: no second Fe2O3 label.
+    expect(labels).not.toContain('Fe2O3');
+    const base = [...svg.querySelectorAll('text.region-label')].map((l: any) => l.getAttribute('data-species'));
+    expect(base).toContain('Fe2O3');
   });
 });
 
