@@ -66,6 +66,8 @@ export function registerOverlay(program: Command): void {
       const fileWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
       // Overlays carry a longer legend and caption: 160 mm wide unless the file or --width says otherwise.
       const fig = figureSettings(layers[0].spec, opts.width === undefined && !fileWidth ? { ...opts, width: OVERLAY_WIDTH } : opts);
+      // The first file's own title describes one layer, not the overlay: title from the layers unless --title.
+      if (opts.title === undefined) fig.options.title = undefined;
       const seen = new Set<string>();
       for (const l of layers) {
         for (const w of l.model.warnings) {
