@@ -14,7 +14,7 @@ export const LN10 = Math.log(10);
 
 /**
  * Nernst slope s = ln(10)·R·T/F, in V per decade.
- * Worked value: T = 298.15 K → 0.0591597 V (59.16 mV per pH unit).
+ * Worked value: T = 298.15 K → 0.0591593 V (59.16 mV per pH unit).
  * Valid at any T > 0 K.
  */
 export function nernstSlope(kelvin: number): number {
