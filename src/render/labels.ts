@@ -676,7 +676,7 @@ export function placeLayerLabels(
 }
 
 /** The four edges of a rectangle. */
-function boxSegments(r: Rect): Segment[] {
+export function boxSegments(r: Rect): Segment[] {
   const a: Point = [r.x, r.y];
   const b: Point = [r.x + r.w, r.y];
   const c: Point = [r.x + r.w, r.y + r.h];

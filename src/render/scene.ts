@@ -29,6 +29,7 @@ import {
   placeRegionLabels,
   type LayerLabelRequest,
   textBox,
+  boxSegments,
   type OrientedBox,
   type RegionLabelRequest,
 } from './labels.js';
@@ -879,15 +880,4 @@ function coincides(piece: Point[], segs: readonly Segment[], tol: number): boole
   return probes.every((p) => segs.some(([a, b]) => segmentDistance(p, a, b) <= tol));
 }
 
-function rectSegments(r: Rect): Segment[] {
-  const a: Point = [r.x, r.y];
-  const b: Point = [r.x + r.w, r.y];
-  const c: Point = [r.x + r.w, r.y + r.h];
-  const d: Point = [r.x, r.y + r.h];
-  return [
-    [a, b],
-    [b, c],
-    [c, d],
-    [d, a],
-  ];
-}
+const rectSegments = boxSegments;

@@ -8,13 +8,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createSVGWindow } from 'svgdom';
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_FIGURE, type FigureOptions } from '../../src/render/options.js';
+import { type FigureOptions } from '../../src/render/options.js';
 import { buildScene, type FigureInput } from '../../src/render/scene.js';
-import type { Scene, SceneItem, SceneText } from '../../src/render/scene-types.js';
 import { sceneToSvg } from '../../src/render/svg.js';
 import { sceneToPdf } from '../../src/render/pdf.js';
 import { svgToPng } from '../../src/render/png.js';
-import { iron, ironFamilies } from './helpers.js';
+import { iron, ironFamilies, texts, opts } from './helpers.js';
 
 type Box = { x: number; y: number; w: number; h: number };
 type Pt = [number, number];
@@ -65,19 +64,7 @@ function segHitsBox([a, b]: [Pt, Pt], r: Box): boolean {
   return false;
 }
 
-function texts(scene: Scene): SceneText[] {
-  const out: SceneText[] = [];
-  const walk = (items: SceneItem[]): void => {
-    for (const it of items) {
-      if (it.type === 'text') out.push(it);
-      else if (it.type === 'group') walk(it.children);
-    }
-  };
-  walk(scene.items);
-  return out;
-}
 
-const opts = (o: Partial<FigureOptions> = {}): FigureOptions => ({ ...DEFAULT_FIGURE, ...o, show: { ...DEFAULT_FIGURE.show, ...(o.show ?? {}) } });
 
 const full = (o: Partial<FigureOptions> = {}): FigureInput => ({
   model: iron(),

@@ -3,6 +3,8 @@ import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { BoundaryModel, DiagramModel } from '../../src/model.js';
+import { DEFAULT_FIGURE, type FigureOptions } from '../../src/render/options.js';
+import type { Scene, SceneItem, SceneText } from '../../src/render/scene-types.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 
@@ -38,3 +40,24 @@ export function ironFamilies(): { activity: number; boundaries: BoundaryModel[] 
     };
   });
 }
+
+/** Every scene item, groups walked depth-first. */
+export function allItems(scene: Scene): SceneItem[] {
+  const out: SceneItem[] = [];
+  const walk = (items: SceneItem[]): void => {
+    for (const it of items) {
+      out.push(it);
+      if (it.type === 'group') walk(it.children);
+    }
+  };
+  walk(scene.items);
+  return out;
+}
+
+/** Every text item of a scene. */
+export function texts(scene: Scene): SceneText[] {
+  return allItems(scene).filter((it): it is SceneText => it.type === 'text');
+}
+
+/** Figure options: the defaults with some overridden (show merged key by key). */
+export const opts = (o: Partial<FigureOptions> = {}): FigureOptions => ({ ...DEFAULT_FIGURE, ...o, show: { ...DEFAULT_FIGURE.show, ...(o.show ?? {}) } });

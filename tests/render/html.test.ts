@@ -5,12 +5,11 @@
  */
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_FIGURE, type FigureOptions } from '../../src/render/options.js';
+import { type FigureOptions } from '../../src/render/options.js';
 import { buildScene } from '../../src/render/scene.js';
 import { CLASS_READING, equationInScale, formulaUnicode, pageData, reactionUnicode, referenceName, sceneToHtml, signMinus } from '../../src/render/html.js';
-import { iron } from './helpers.js';
+import { iron, opts } from './helpers.js';
 
-const opts = (o: Partial<FigureOptions> = {}): FigureOptions => ({ ...DEFAULT_FIGURE, ...o, show: { ...DEFAULT_FIGURE.show, ...(o.show ?? {}) } });
 
 function page(o: Partial<FigureOptions> = {}): string {
   const model = iron();

@@ -5,25 +5,13 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { DiagramModel } from '../../src/model.js';
-import { DEFAULT_FIGURE, type FigureOptions } from '../../src/render/options.js';
+import { DEFAULT_FIGURE } from '../../src/render/options.js';
 import { contrastRatio, LAYER_INKS, textInk } from '../../src/render/palette.js';
 import { buildScene, type FigureInput } from '../../src/render/scene.js';
-import type { Rect, Scene, SceneItem, SceneText } from '../../src/render/scene-types.js';
-import { iron } from './helpers.js';
+import type { Rect } from '../../src/render/scene-types.js';
+import { iron, texts, opts } from './helpers.js';
 
-const opts = (o: Partial<FigureOptions> = {}): FigureOptions => ({ ...DEFAULT_FIGURE, ...o, show: { ...DEFAULT_FIGURE.show, ...(o.show ?? {}) } });
 
-function texts(scene: Scene): SceneText[] {
-  const out: SceneText[] = [];
-  const walk = (items: SceneItem[]): void => {
-    for (const it of items) {
-      if (it.type === 'text') out.push(it);
-      else if (it.type === 'group') walk(it.children);
-    }
-  };
-  walk(scene.items);
-  return out;
-}
 
 const overlap = (a: Rect, b: Rect): boolean => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
 

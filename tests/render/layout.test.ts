@@ -13,19 +13,10 @@ import { figureSettings } from '../../src/figure/options.js';
 import { linearTicks } from '../../src/render/axes.js';
 import { rectPole } from '../../src/render/geometry.js';
 import { buildScene } from '../../src/render/scene.js';
-import type { Point, Scene, SceneItem, ScenePath, SceneText } from '../../src/render/scene-types.js';
+import type { Point, ScenePath, SceneText } from '../../src/render/scene-types.js';
+import { allItems } from './helpers.js';
 
-function all(scene: Scene): SceneItem[] {
-  const out: SceneItem[] = [];
-  const walk = (items: SceneItem[]): void => {
-    for (const it of items) {
-      out.push(it);
-      if (it.type === 'group') walk(it.children);
-    }
-  };
-  walk(scene.items);
-  return out;
-}
+const all = allItems;
 
 function cross(p: Point, q: Point, r: Point, s: Point): boolean {
   const o = (a: Point, b: Point, c: Point) => (b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0]);

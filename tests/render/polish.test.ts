@@ -10,25 +10,15 @@ import { compute } from '../../src/pipeline.js';
 import { assignFills, CLASS_TINTS, lightness } from '../../src/render/palette.js';
 import { drawSceneOnPdf, sceneToPdf } from '../../src/render/pdf.js';
 import { buildScene, dashStroke, parseDash, type FigureInput } from '../../src/render/scene.js';
-import type { Point, Rect, Scene, SceneItem, ScenePath, SceneText } from '../../src/render/scene-types.js';
+import type { Point, Rect, ScenePath, SceneText } from '../../src/render/scene-types.js';
 import { sceneToSvg } from '../../src/render/svg.js';
 import { DEFAULT_FIGURE } from '../../src/render/options.js';
 import { reportData } from '../../src/report/report-data.js';
 import { reportPdf } from '../../src/report/report-pdf.js';
 import { readSpec } from '../../src/system/spec.js';
-import { iron } from './helpers.js';
+import { iron, allItems } from './helpers.js';
 
-function all(scene: Scene): SceneItem[] {
-  const out: SceneItem[] = [];
-  const walk = (items: SceneItem[]): void => {
-    for (const it of items) {
-      out.push(it);
-      if (it.type === 'group') walk(it.children);
-    }
-  };
-  walk(scene.items);
-  return out;
-}
+const all = allItems;
 
 const overlap = (a: Rect, b: Rect): boolean => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
 

@@ -7,27 +7,13 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_FIGURE, type FigureOptions } from '../../src/render/options.js';
 import { winAnsi, sceneToPdf } from '../../src/render/pdf.js';
 import { buildScene } from '../../src/render/scene.js';
-import type { Scene, SceneItem, SceneText } from '../../src/render/scene-types.js';
 import { sceneToSvg } from '../../src/render/svg.js';
 import { expandScripts, plainRuns, richRuns, runsUnicode, scriptRuns } from '../../src/render/typeset.js';
-import { iron } from './helpers.js';
+import { iron, texts, opts } from './helpers.js';
 
-const opts = (o: Partial<FigureOptions> = {}): FigureOptions => ({ ...DEFAULT_FIGURE, ...o, show: { ...DEFAULT_FIGURE.show, ...(o.show ?? {}) } });
 
-function texts(scene: Scene): SceneText[] {
-  const out: SceneText[] = [];
-  const walk = (items: SceneItem[]): void => {
-    for (const it of items) {
-      if (it.type === 'text') out.push(it);
-      else if (it.type === 'group') walk(it.children);
-    }
-  };
-  walk(scene.items);
-  return out;
-}
 
 function hasTool(name: string): boolean {
   try {
