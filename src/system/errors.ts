@@ -1,21 +1,5 @@
-/**
- * The one error type for bad user input: names the file, the field (or species) and what is
- * expected. The CLI prints `message` and exits with code 2; nothing is written.
- */
-export class InputError extends Error {
-  readonly file: string;
-  readonly field: string;
-  readonly expected: string;
-
-  constructor(file: string, field: string, expected: string, got?: string) {
-    const where = field ? `${file}: ${field}` : file;
-    super(`${where}: expected ${expected}${got !== undefined ? `, got ${got}` : ''}`);
-    this.name = 'InputError';
-    this.file = file;
-    this.field = field;
-    this.expected = expected;
-  }
-}
+/** Bad user input (file, field, expected): defined with the other typed errors in src/errors.ts. */
+export { InputError } from '../errors.js';
 
 /** A short, safe rendering of a user value for an error message. */
 export function show(v: unknown): string {
