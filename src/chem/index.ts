@@ -8,6 +8,9 @@ export {
   formulaWarnings,
   molarMass,
   formatFormula,
+  formatNumber,
+  formulaAscii,
+  formulaUnicode,
   chargeLabel,
   sameFormula,
 } from './formula.js';
