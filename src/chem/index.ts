@@ -15,3 +15,14 @@ export {
   sameFormula,
 } from './formula.js';
 export type { Formula, FormulaToken, FormulaTokenKind, Phase } from './formula.js';
+export {
+  ELECTRON_ASCII,
+  ELECTRON_UNICODE,
+  EQUILIBRIUM_ASCII,
+  EQUILIBRIUM_UNICODE,
+  equationText,
+  isElectron,
+  reactionAscii,
+  reactionUnicode,
+} from './reaction-text.js';
+export type { EquationTerm, Notation, SpeciesTerm } from './reaction-text.js';
