@@ -26,3 +26,5 @@ export {
   reactionUnicode,
 } from './reaction-text.js';
 export type { EquationTerm, Notation, SpeciesTerm } from './reaction-text.js';
+export { hydroxoName } from './hydroxo-names.js';
+export type { HydroxoName } from './hydroxo-names.js';
