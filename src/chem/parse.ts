@@ -126,7 +126,8 @@ class Parser {
       this.tokens.push({ kind: 'charge', text: this.s.slice(start, this.i), value: charge });
       if (this.i < this.s.length) {
         const next = this.s[this.i];
-        const hint = startsCharge(next) ? 'write one charge, the number before the sign, e.g. "^2+"' : undefined;
+        const example = isSupDigit(c) || isSupSign(c) ? '"²⁺"' : '"^2+"';
+        const hint = startsCharge(next) ? `write one charge, the number before the sign, e.g. ${example}` : undefined;
         this.fail('end of formula', hint);
       }
     } else if (this.i < this.s.length) {

@@ -3,8 +3,9 @@
  * older sign-then-number form (Fe+2) give the same Formula; errors name the position and what is
  * expected. Charge conventions: IUPAC Green Book (3rd ed. 2007, §2.10.1), recalled from memory.
  */
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { FormulaError, parseFormula, splitPhase, tokenizeFormula } from '../../src/chem/index.js';
+import { FormulaError, formulaAscii, formulaUnicode, formulaWarnings, parseFormula, splitPhase, tokenizeFormula } from '../../src/chem/index.js';
 
 const read = (t: string) => {
   const f = parseFormula(t);
@@ -121,6 +122,8 @@ describe('errors in the new notations', () => {
   it('refuses two charges', () => {
     expect([err('Fe^2+^+').position, err('Fe^2+^+').expected]).toEqual([6, 'end of formula']);
     expect(err('Fe²⁺+').message).toContain('write one charge');
+    expect(err('Fe⁺²').message).toContain('e.g. "²⁺"');
+    expect(err('Fe++').message).toContain('e.g. "^2+"');
     expect(err('Fe+2²⁺').position).toBe(5);
   });
 
@@ -133,5 +136,38 @@ describe('errors in the new notations', () => {
 
   it('names the electron in every spelling', () => {
     for (const e of ['e-', 'e^-', 'e⁻', 'e\u2212']) expect(err(e).message, e).toContain('the electron is not a formula');
+  });
+});
+
+describe('any text over the notation alphabet (property)', () => {
+  // Either a Formula whose tokens spell the text, or a FormulaError with a position in or just after
+  // the text; warnings and writers never throw anything else.
+  const alphabet = 'FeOHCuNSn()[]^+-−⁺⁻²³⁴¹⁰₂₃₄₁₀.·*0123 e'.split('');
+  it('returns or throws FormulaError, nothing else', () => {
+    fc.assert(
+      fc.property(fc.string({ unit: fc.constantFrom(...alphabet), maxLength: 16 }), (text) => {
+        let ok = false;
+        try {
+          parseFormula(text);
+          ok = true;
+        } catch (e) {
+          expect(e).toBeInstanceOf(FormulaError);
+          const p = (e as FormulaError).position;
+          expect(p >= 1 && p <= text.length + 1).toBe(true);
+        }
+        expect(Array.isArray(formulaWarnings(text))).toBe(true);
+        if (ok) {
+          expect(tokenizeFormula(text).map((t) => t.text).join('')).toBe(text);
+          const f = parseFormula(text);
+          for (const w of [formulaAscii(text), formulaUnicode(text)]) {
+            const g = parseFormula(w);
+            expect(g.charge).toBe(f.charge);
+            expect(Object.keys(g.elements)).toEqual(Object.keys(f.elements));
+            for (const [el, n] of Object.entries(f.elements)) expect(g.elements[el]).toBeCloseTo(n, 9);
+          }
+        }
+      }),
+      { numRuns: 3000, seed: 17 },
+    );
   });
 });
