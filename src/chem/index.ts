@@ -20,7 +20,7 @@ export {
   ELECTRON_UNICODE,
   EQUILIBRIUM_ASCII,
   EQUILIBRIUM_UNICODE,
-  equationText,
+  equilibriumText,
   isElectron,
   reactionAscii,
   reactionUnicode,

@@ -61,7 +61,7 @@ function termText(t: EquationTerm, notation: Notation): string {
  * parse. Example: [{nu: −1, formula: "Fe+2", phase: "aq"}, {nu: −2, formula: "e-"}, {nu: 1,
  * formula: "Fe", phase: "s"}] → "Fe²⁺ + 2e⁻ ⇌ Fe(s)" (unicode), "Fe^2+ + 2e^- <=> Fe(s)" (ascii).
  */
-export function equationText(terms: readonly EquationTerm[], notation: Notation): string {
+export function equilibriumText(terms: readonly EquationTerm[], notation: Notation): string {
   const side = (s: -1 | 1): string =>
     terms
       .filter((t) => Math.sign(t.nu) === s)
@@ -94,10 +94,10 @@ function balancedTerms(terms: readonly SpeciesTerm[], water: number, protons: nu
  * of solve/reaction.ts, which it is meant to replace.
  */
 export function reactionUnicode(terms: readonly SpeciesTerm[], water: number, protons: number, electrons: number): string {
-  return equationText(balancedTerms(terms, water, protons, electrons), 'unicode');
+  return equilibriumText(balancedTerms(terms, water, protons, electrons), 'unicode');
 }
 
 /** The ASCII twin of reactionUnicode: "Fe^2+ + 2e^- <=> Fe(s)". */
 export function reactionAscii(terms: readonly SpeciesTerm[], water: number, protons: number, electrons: number): string {
-  return equationText(balancedTerms(terms, water, protons, electrons), 'ascii');
+  return equilibriumText(balancedTerms(terms, water, protons, electrons), 'ascii');
 }

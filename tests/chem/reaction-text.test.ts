@@ -5,7 +5,7 @@
  * solve/reaction.ts, which these writers are to replace.
  */
 import { describe, expect, it } from 'vitest';
-import { equationText, isElectron, reactionAscii, reactionUnicode } from '../../src/chem/index.js';
+import { equilibriumText, isElectron, reactionAscii, reactionUnicode } from '../../src/chem/index.js';
 import { reactionText } from '../../src/solve/reaction.js';
 
 type T = { formula: string; phase: string; nu: number };
@@ -63,6 +63,12 @@ describe('reactionUnicode and reactionAscii', () => {
     expect(swapped).toBe(ascii);
   });
 
+  it('writes the two water lines in the order solve.ts writes them today', () => {
+    expect(reactionUnicode([{ formula: 'H2', phase: 'g', nu: 1 }], 0, -2, -2)).toBe('2H⁺ + 2e⁻ ⇌ H₂(g)');
+    expect(reactionUnicode([{ formula: 'O2', phase: 'g', nu: -1 }], 2, -4, -4)).toBe('O₂(g) + 4H⁺ + 4e⁻ ⇌ 2H₂O(l)');
+    expect(reactionAscii([{ formula: 'O2', phase: 'g', nu: -1 }], 2, -4, -4)).toBe('O2(g) + 4H^+ + 4e^- <=> 2H2O(l)');
+  });
+
   it('uses ⇌ (U+21CC) and pure ASCII for the twin', () => {
     const [c] = cases;
     expect(reactionUnicode(c!.terms, 0, 0, -2)).toContain('\u21cc');
@@ -70,7 +76,7 @@ describe('reactionUnicode and reactionAscii', () => {
   });
 });
 
-describe('equationText', () => {
+describe('equilibriumText', () => {
   it('writes string and decimal coefficients, drops 1 and zero terms, reads any electron spelling', () => {
     const terms = [
       { nu: -1, formula: 'H2', phase: 'g', coefficientText: '1/2' },
@@ -78,10 +84,10 @@ describe('equationText', () => {
       { nu: 1, formula: 'H^+', phase: 'aq' },
       { nu: 1, formula: 'e⁻' },
     ];
-    expect(equationText(terms, 'unicode')).toBe('1/2H₂(g) ⇌ H⁺ + e⁻');
-    expect(equationText(terms, 'ascii')).toBe('1/2H2(g) <=> H^+ + e^-');
-    expect(equationText([{ nu: -0.5, formula: 'O2', phase: 'g' }, { nu: 1, formula: 'O', phase: 'g' }], 'unicode')).toBe('0.5O₂(g) ⇌ O(g)');
-    expect(equationText([{ nu: -1, formula: 'Cu²⁺', phase: 'aq', coefficientText: '1' }, { nu: 1, formula: 'Cu', phase: 's' }], 'ascii')).toBe('Cu^2+ <=> Cu(s)');
+    expect(equilibriumText(terms, 'unicode')).toBe('1/2H₂(g) ⇌ H⁺ + e⁻');
+    expect(equilibriumText(terms, 'ascii')).toBe('1/2H2(g) <=> H^+ + e^-');
+    expect(equilibriumText([{ nu: -0.5, formula: 'O2', phase: 'g' }, { nu: 1, formula: 'O', phase: 'g' }], 'unicode')).toBe('0.5O₂(g) ⇌ O(g)');
+    expect(equilibriumText([{ nu: -1, formula: 'Cu²⁺', phase: 'aq', coefficientText: '1' }, { nu: 1, formula: 'Cu', phase: 's' }], 'ascii')).toBe('Cu^2+ <=> Cu(s)');
   });
 });
 
