@@ -17,9 +17,7 @@ const TOL = 0.5; // kJ/mol
  * Key: `formula(phase)` or `formula(phase)#altId`.
  */
 const DOCUMENTED: Record<string, { maxGap: number; why: string }> = {
-  // NBS 1982 (Wagman et al.) prints S°(H2S, aq) = 121 J/(mol·K) to three figures only; with its ΔfH° = −39.7
-  // and ΔfG° = −27.83 kJ/mol the gap is 0.5–0.6 kJ/mol depending on S°(S, rhombic) (NBS 31.80, CODATA 32.054).
-  'H2S(aq)': { maxGap: 0.65, why: 'NBS82 S° rounded to 3 figures' },
+  // (empty since H2S(aq) moved to the CODATA 1989 key values, which are consistent by construction)
 };
 
 function formationEntropy(elements: Record<string, number>, charge: number, S: number): number {
