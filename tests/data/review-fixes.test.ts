@@ -38,6 +38,11 @@ const CASES: KCase[] = [
   // Tin(II) — Baes & Mesmer 1976
   ['Sn+2 + H2O(l) = SnOH+ + H+', -3.4, DERIVED, 'Baes & Mesmer 1976, log*β1'],
   ['Sn+2 + 2H2O(l) = HSnO2- + 3H+', -16.61, DERIVED, 'Baes & Mesmer 1976, log*β3 (Sn(OH)3- = HSnO2- + H2O)'],
+  // Lead(II) — Baes & Mesmer 1976, on CODATA89 Pb+2
+  ['Pb+2 + H2O(l) = PbOH+ + H+', -7.71, DERIVED, 'Baes & Mesmer 1976, log*β1'],
+  ['Pb+2 + 2H2O(l) = Pb(OH)2(aq) + 2H+', -17.12, DERIVED, 'Baes & Mesmer 1976, log*β2'],
+  ['Pb+2 + 2H2O(l) = HPbO2- + 3H+', -28.06, DERIVED, 'Baes & Mesmer 1976, log*β3 (Pb(OH)3- = HPbO2- + H2O)'],
+  ['PbO(s) + 2H+ = Pb+2 + H2O(l)', 12.72, 0.1, 'Baes & Mesmer 1976, litharge log*Ks10'],
 ];
 
 describe('25 °C constants of the reviewed species', () => {
@@ -62,6 +67,11 @@ const POINTS: PCase[] = [
   ['Zn', 1e-6, 10, 0, 'Zn(OH)2(aq)', 'Baes & Mesmer 1976 (log*β2 = −16.9; zincite solubility 10^-5.7 at pH 9–11)'],
   ['Zn', 1e-6, 5, 0, 'Zn+2', 'common practice'],
   ['Zn', 1e-6, 14, -1, 'ZnO2-2', 'Baes & Mesmer 1976 (log*β4 = −41.2)'],
+  // Lead: litharge dissolves as Pb(OH)2(aq) to about 4·10^-5 (PbO + H2O = Pb(OH)2(aq), log K −4.4)
+  ['Pb', 1e-6, 10, 0, 'Pb(OH)2(aq)', 'Baes & Mesmer 1976 (log*β2 = −17.12, litharge log*Ks10 = 12.72)'],
+  ['Pb', 1e-3, 10, 0, 'PbO', 'Baes & Mesmer 1976 (litharge solubility)'],
+  ['Pb', 1e-6, 4, 0, 'Pb+2', 'common practice'],
+  ['Pb', 1e-6, 7, 1.8, 'PbO2', 'common practice (PbO2 above the oxygen line)'],
 ];
 
 describe('predominance at named points, library data, 25 °C', () => {
