@@ -7,8 +7,8 @@
  */
 import { describe, it, expect } from 'vitest';
 import { loadLibrary } from '../../src/data/library.js';
-import { R, T_REF, LN10 } from '../../src/thermo/constants.js';
-import { parseReaction, imbalance, missing, reactionGibbs } from './reactions.js';
+import { R, T_REF, LN10, F } from '../../src/thermo/constants.js';
+import { parseReaction, imbalance, missing, reactionGibbs, electrons } from './reactions.js';
 import { predominantAt } from './predominance.js';
 
 const lib = loadLibrary();
@@ -17,6 +17,14 @@ const logK = (reaction: string): number => {
   expect(imbalance(r), reaction).toEqual({});
   expect(missing(lib, r), reaction).toEqual([]);
   return (-reactionGibbs(lib, r) * 1000) / (R * T_REF * LN10);
+};
+
+/** E° (V vs SHE) of a reduction written "Ox + n e- = Red", from the library's ΔfG°. */
+const E0 = (reaction: string): number => {
+  const r = parseReaction(reaction);
+  expect(imbalance(r), reaction).toEqual({});
+  expect(missing(lib, r), reaction).toEqual([]);
+  return (-reactionGibbs(lib, r) * 1000) / (electrons(r) * F);
 };
 
 /** [reaction, published log K, tolerance, source] */
@@ -53,6 +61,21 @@ describe('25 °C constants of the reviewed species', () => {
   }
 });
 
+describe('cobalt(III): the Co(II)/Co(III) solid couples lie below the O2/H2O line', () => {
+  const O2 = 1.229; // O2 + 4H+ + 4e- = 2H2O, CRC Handbook electrochemical series (recalled from memory)
+  it('Co3O4/Co(OH)3 at 1.018 V: Pourbaix (1974) couple, from his Co3O4 −167 835 and Co(OH)3 −142 600 cal/mol (recalled)', () => {
+    const e = E0('3Co(OH)3(s) + H+ + e- = Co3O4(s) + 5H2O(l)');
+    expect(Math.abs(e - 1.018)).toBeLessThan(0.003);
+    expect(e).toBeLessThan(O2);
+  });
+  it('Co(OH)2/Co3O4 lies below Co3O4/Co(OH)3, so Co3O4 has a field (common practice: magnetite-like spinel between Co(II) and Co(III))', () => {
+    const low = E0('Co3O4(s) + 2H2O(l) + 2H+ + 2e- = 3Co(OH)2(s)');
+    const high = E0('3Co(OH)3(s) + H+ + e- = Co3O4(s) + 5H2O(l)');
+    expect(low).toBeLessThan(high);
+    expect(high).toBeLessThan(O2);
+  });
+});
+
 /** [element, activity, pH, E (V vs SHE), expected predominant species, source] */
 type PCase = [string, number, number, number, string, string];
 
@@ -72,6 +95,11 @@ const POINTS: PCase[] = [
   ['Pb', 1e-3, 10, 0, 'PbO', 'Baes & Mesmer 1976 (litharge solubility)'],
   ['Pb', 1e-6, 4, 0, 'Pb+2', 'common practice'],
   ['Pb', 1e-6, 7, 1.8, 'PbO2', 'common practice (PbO2 above the oxygen line)'],
+  // Cobalt: Co(III) hydroxide (heterogenite, CoOOH·H2O) in oxidising alkaline water, Co3O4 between
+  ['Co', 1e-6, 14, 0.5, 'Co(OH)3', 'common practice (CoOOH on cobalt in oxidising alkaline water)'],
+  ['Co', 1e-6, 11, 0, 'Co3O4', 'common practice'],
+  ['Co', 1e-6, 11, -0.4, 'Co(OH)2', 'common practice'],
+  ['Co', 1e-6, 3, 0, 'Co+2', 'common practice'],
 ];
 
 describe('predominance at named points, library data, 25 °C', () => {
