@@ -51,6 +51,12 @@ const CASES: KCase[] = [
   ['Pb+2 + 2H2O(l) = Pb(OH)2(aq) + 2H+', -17.12, DERIVED, 'Baes & Mesmer 1976, log*β2'],
   ['Pb+2 + 2H2O(l) = HPbO2- + 3H+', -28.06, DERIVED, 'Baes & Mesmer 1976, log*β3 (Pb(OH)3- = HPbO2- + H2O)'],
   ['PbO(s) + 2H+ = Pb+2 + H2O(l)', 12.72, 0.1, 'Baes & Mesmer 1976, litharge log*Ks10'],
+  // Iron — Baes & Mesmer 1976, on NBS82 Fe+2 and Fe+3
+  ['Fe+2 + H2O(l) = FeOH+ + H+', -9.5, DERIVED, 'Baes & Mesmer 1976, log*β1'],
+  ['Fe+2 + 2H2O(l) = HFeO2- + 3H+', -31.0, DERIVED, 'Baes & Mesmer 1976, log*β3 (Fe(OH)3- = HFeO2- + H2O)'],
+  ['Fe+3 + H2O(l) = FeOH+2 + H+', -2.19, 0.05, 'Baes & Mesmer 1976, log*β1 (NBS82 entry, not derived)'],
+  ['Fe+3 + 2H2O(l) = Fe(OH)2+ + 2H+', -5.67, DERIVED, 'Baes & Mesmer 1976, log*β2'],
+  ['Fe+3 + 2H2O(l) = FeO2- + 4H+', -21.6, DERIVED, 'Baes & Mesmer 1976, log*β4 (Fe(OH)4- = FeO2- + 2H2O)'],
 ];
 
 describe('25 °C constants of the reviewed species', () => {
@@ -100,6 +106,12 @@ const POINTS: PCase[] = [
   ['Co', 1e-6, 11, 0, 'Co3O4', 'common practice'],
   ['Co', 1e-6, 11, -0.4, 'Co(OH)2', 'common practice'],
   ['Co', 1e-6, 3, 0, 'Co+2', 'common practice'],
+  // Iron, the textbook diagram at 10^-6 (no dissolved hydroxo field inside pH 0–14 at 25 °C)
+  ['Fe', 1e-6, 4, 0, 'Fe+2', 'common practice'],
+  ['Fe', 1e-6, 0.5, 1.0, 'Fe+3', 'common practice'],
+  ['Fe', 1e-6, 12, -0.7, 'Fe3O4', 'common practice'],
+  ['Fe', 1e-6, 13.9, -0.85, 'Fe3O4', 'Baes & Mesmer 1976 (HFeO2- stays below 10^-6 over magnetite at pH 14)'],
+  ['Fe', 1e-6, 10, 0.5, 'Fe2O3', 'common practice'],
 ];
 
 describe('predominance at named points, library data, 25 °C', () => {
