@@ -57,6 +57,9 @@ const CASES: KCase[] = [
   ['Fe+3 + H2O(l) = FeOH+2 + H+', -2.19, 0.05, 'Baes & Mesmer 1976, log*β1 (NBS82 entry, not derived)'],
   ['Fe+3 + 2H2O(l) = Fe(OH)2+ + 2H+', -5.67, DERIVED, 'Baes & Mesmer 1976, log*β2'],
   ['Fe+3 + 2H2O(l) = FeO2- + 4H+', -21.6, DERIVED, 'Baes & Mesmer 1976, log*β4 (Fe(OH)4- = FeO2- + 2H2O)'],
+  // Molybdate protonation — Martell & Smith, Critical Stability Constants, I = 0
+  ['MoO4-2 + H+ = HMoO4-', 4.24, DERIVED, 'Martell & Smith, log K1'],
+  ['MoO4-2 + 2H+ = H2MoO4(aq)', 8.24, DERIVED, 'Martell & Smith, log β2'],
 ];
 
 describe('25 °C constants of the reviewed species', () => {
@@ -112,6 +115,9 @@ const POINTS: PCase[] = [
   ['Fe', 1e-6, 12, -0.7, 'Fe3O4', 'common practice'],
   ['Fe', 1e-6, 13.9, -0.85, 'Fe3O4', 'Baes & Mesmer 1976 (HFeO2- stays below 10^-6 over magnetite at pH 14)'],
   ['Fe', 1e-6, 10, 0.5, 'Fe2O3', 'common practice'],
+  // Molybdenum: MoO3 is soluble (log K(MoO3 + H2O = H2MoO4) ≈ −3.8), so acid oxidising water at 10^-6 is molybdic acid
+  ['Mo', 1e-6, 2, 1.0, 'H2MoO4(aq)', 'Martell & Smith (molybdate protonation) with NBS82 MoO3'],
+  ['Mo', 1e-6, 8, 0.5, 'MoO4-2', 'common practice'],
 ];
 
 describe('predominance at named points, library data, 25 °C', () => {
