@@ -62,6 +62,9 @@ const CASES: KCase[] = [
   ['MoO4-2 + 2H+ = H2MoO4(aq)', 8.24, DERIVED, 'Martell & Smith, log β2'],
   // Silver cyanide — Martell & Smith: log β3 − log β2 = 21.4 − 20.48
   ['Ag(CN)2- + CN- = Ag(CN)3-2', 0.92, DERIVED, 'Martell & Smith, log K3'],
+  // Copper(II) — Baes & Mesmer 1976, on NBS82 Cu+2
+  ['Cu+2 + 2H2O(l) = HCuO2- + 3H+', -26.9, DERIVED, 'Baes & Mesmer 1976, log*β3 (Cu(OH)3- = HCuO2- + H2O)'],
+  ['Cu+2 + 2H2O(l) = CuO2-2 + 4H+', -39.6, 0.3, 'Baes & Mesmer 1976, log*β4 (NBS82 entry kept under the policy’s 0.3)'],
 ];
 
 describe('25 °C constants of the reviewed species', () => {
