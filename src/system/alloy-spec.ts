@@ -7,8 +7,8 @@
  *   activity: {Fe: 1e-6, Cr: 1e-8, Ni: 1e-6}   # one per element (every element named)
  *
  * Rules: 1–6 elements, symbols other than H and O and not also ligands; each amount a positive
- * number. Amounts are proportions: when they do not sum to 1 within 1e-6 (e.g. atom percent
- * {Fe: 70, Cr: 18, Ni: 12}) they are normalised to mole fractions and a note says so. Every other
+ * number. Amounts are proportions, always divided by their sum; when they do not sum to 1 within
+ * 1e-6 (e.g. atom percent {Fe: 70, Cr: 18, Ni: 12}) a note says they were normalised. Every other
  * key (temperature, ligands, pH, E, exclude, pick, gases, ...) means what it means for one element
  * and is validated by readSpec; `species` (inline data) and `concentration` are not accepted with
  * `elements` yet (a clear error, not a silent fallback).
