@@ -112,7 +112,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   const warnings: string[] = [];
 
   // Several main elements are read by readAlloySpec (alloy-spec.ts), not here.
-  if (o.elements !== undefined) f.fail('elements', 'one main element (element) here; a file with elements is an alloy system, read by the alloy solver', o.elements);
+  if (o.elements !== undefined) f.fail('elements', 'one main element (element): a system with several elements (an alloy) is not yet drawn, probed or reported by this command', o.elements);
   if (o.element === undefined) f.fail('element', 'the symbol of the main element, e.g. "Fe"');
   const element = f.string(o.element, 'element', 'an element symbol such as "Fe"', 3);
   if (!isElement(element)) f.fail('element', 'an element symbol such as "Fe" (case matters)', element);

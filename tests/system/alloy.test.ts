@@ -70,7 +70,7 @@ describe('reading elements', () => {
   });
 
   it('the one-element reader refuses elements with a message naming the key', () => {
-    expect(() => readSpec({ elements: { Fe: 1 } }, 'a.yaml')).toThrow(/a\.yaml: elements: expected one main element/);
+    expect(() => readSpec({ elements: { Fe: 1 } }, 'a.yaml')).toThrow(/a\.yaml: elements: expected one main element \(element\): .*not yet drawn/);
   });
 });
 

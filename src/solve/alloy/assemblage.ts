@@ -53,53 +53,86 @@ const AMOUNT_EPS = 1e-12;
 /** Tie tolerance on reduced costs, kJ per mol of species. */
 export const TIE_KJ = 1e-9;
 
-/** Step 2's start: for each element, its own species (no other main element) of lowest ψ' per atom. */
-function startBasis(input: AlloyInput, els: string[], psi: number[]): number[] {
-  return els.map((e) => {
-    let best = -1;
-    let bestV = Infinity;
-    input.species.forEach((sp, k) => {
-      const x = sp.elements[e] ?? 0;
-      if (x <= 0 || els.some((o) => o !== e && (sp.elements[o] ?? 0) > 0)) return;
-      const v = psi[k] / x;
+/** Per input (cached): the constraint matrix (element × species), the bulk composition and, per
+ *  element, its own species (no other main element) with their atom counts. */
+interface Prepared {
+  els: string[];
+  A: number[][];
+  b: number[];
+  own: { index: number; atoms: number }[][];
+}
+const preparedInputs = new WeakMap<AlloyInput, Prepared>();
+function prepare(input: AlloyInput): Prepared {
+  let p = preparedInputs.get(input);
+  if (!p) {
+    const els = mainElements(input);
+    const own = els.map((e) => {
+      const list: { index: number; atoms: number }[] = [];
+      input.species.forEach((sp, index) => {
+        const atoms = sp.elements[e] ?? 0;
+        if (atoms > 0 && els.every((o) => o === e || !(sp.elements[o] ?? 0))) list.push({ index, atoms });
+      });
+      if (list.length === 0) throw new Error(`alloy input has no species of ${e} alone`);
+      return list;
+    });
+    p = { els, A: els.map((e) => input.species.map((sp) => sp.elements[e] ?? 0)), b: els.map((e) => input.composition[e]), own };
+    preparedInputs.set(input, p);
+  }
+  return p;
+}
+
+/** Step 2's start: for each element, its own species of lowest ψ' per atom (first on equal values). */
+function startBasis(p: Prepared, psi: number[]): number[] {
+  return p.own.map((list) => {
+    let best = list[0].index;
+    let bestV = psi[best] / list[0].atoms;
+    for (let k = 1; k < list.length; k++) {
+      const v = psi[list[k].index] / list[k].atoms;
       if (v < bestV) {
         bestV = v;
-        best = k;
+        best = list[k].index;
       }
-    });
-    if (best < 0) throw new Error(`alloy input has no species of ${e} alone`);
+    }
     return best;
   });
 }
 
-export function assemblageAt(input: AlloyInput, pH: number, E: number): Assemblage {
-  const els = mainElements(input);
+/** The optimal support at (pH, E) without building the full answer: basis indices with n > 0
+ *  (ascending), tied species indices, grand potential. For grids and bisection. */
+export function supportAt(input: AlloyInput, pH: number, E: number): { indices: number[]; amounts: number[]; ties: number[]; grandPotential: number; ligandSpecies: Record<string, string> } {
+  const p = prepare(input);
   const { psi, ligandSpecies } = speciesPotentialsAt(input, pH, E);
-  const A = els.map((e) => input.species.map((sp) => sp.elements[e] ?? 0));
-  const b = els.map((e) => input.composition[e]);
-  const sol = solveLp({ A, b, c: psi, basis: startBasis(input, els, psi), tol: TIE_KJ });
-  const present = sol.basis
-    .map((index, k) => ({ index, amount: sol.values[k] }))
-    .filter((p) => p.amount > AMOUNT_EPS)
-    .sort((p, q) => p.index - q.index);
-  const phases: AssemblagePhase[] = present.map(({ index, amount }) => {
+  const sol = solveLp({ A: p.A, b: p.b, c: psi, basis: startBasis(p, psi), tol: TIE_KJ });
+  const order = sol.basis.map((_, k) => k).filter((k) => sol.values[k] > AMOUNT_EPS).sort((i, j) => sol.basis[i] - sol.basis[j]);
+  return { indices: order.map((k) => sol.basis[k]), amounts: order.map((k) => sol.values[k]), ties: sol.ties, grandPotential: sol.objective, ligandSpecies };
+}
+
+export function assemblageAt(input: AlloyInput, pH: number, E: number): Assemblage {
+  const { els } = prepare(input);
+  const sup = supportAt(input, pH, E);
+  const phases: AssemblagePhase[] = sup.indices.map((index, k) => {
     const sp = input.species[index];
-    const share = Object.fromEntries(els.map((e) => [e, (amount * (sp.elements[e] ?? 0)) / input.composition[e]]));
+    const amount = sup.amounts[k];
+    const share: Record<string, number> = {};
+    for (const e of els) share[e] = (amount * (sp.elements[e] ?? 0)) / input.composition[e];
     return { index, formula: sp.formula, phase: sp.phase, amount, share };
   });
   const { verdict, dissolving } = assemblageVerdict(
-    phases.map((p) => ({ ...p, elements: input.species[p.index].elements, charge: input.species[p.index].charge })),
+    phases.map((ph) => {
+      const sp = input.species[ph.index];
+      return { formula: ph.formula, phase: ph.phase, share: ph.share, elements: sp.elements, charge: sp.charge };
+    }),
     els,
   );
   return {
     pH,
     E,
     phases,
-    label: phases.map((p) => p.formula).join(' + '),
-    grandPotential: sol.objective,
-    ties: sol.ties.map((j) => input.species[j].formula),
+    label: phases.map((ph) => ph.formula).join(' + '),
+    grandPotential: sup.grandPotential,
+    ties: sup.ties.map((j) => input.species[j].formula),
     verdict,
     dissolving,
-    ligandSpecies,
+    ligandSpecies: sup.ligandSpecies,
   };
 }

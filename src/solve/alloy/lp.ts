@@ -5,7 +5,7 @@
  *
  * Used for the assemblage of an alloy (DESIGN §8): rows are the main elements, columns the species,
  * c the species' grand potentials. m is 1–6, N up to a few hundred, so the basis matrix is
- * factorised afresh (Gaussian elimination with partial pivoting) at every step — no drift.
+ * factorised afresh (LU with partial pivoting, flat typed arrays) at every step — no drift.
  *
  * Algorithm:
  *  1. start from a feasible basis given by the caller (for an alloy: one single-element species per
@@ -58,73 +58,124 @@ export class LpError extends Error {
   }
 }
 
-/**
- * Solves M x = r (M square, m × m) by Gaussian elimination with partial pivoting; null if singular
- * (a pivot below 1e-12 of the column scale).
- */
-export function solveSquare(M: readonly (readonly number[])[], r: readonly number[]): number[] | null {
-  const m = r.length;
-  const a = M.map((row, i) => [...row, r[i]]);
+/** In-place LU factorisation with partial pivoting of the m × m row-major matrix `a`; false if singular. */
+function luFactor(a: Float64Array, m: number, perm: Int32Array): boolean {
+  for (let i = 0; i < m; i++) perm[i] = i;
   for (let k = 0; k < m; k++) {
     let p = k;
-    for (let i = k + 1; i < m; i++) if (Math.abs(a[i][k]) > Math.abs(a[p][k])) p = i;
-    const scale = Math.max(...a.map((row) => Math.abs(row[k])), 1);
-    if (Math.abs(a[p][k]) <= 1e-12 * scale) return null;
-    if (p !== k) [a[p], a[k]] = [a[k], a[p]];
+    let scale = 1;
+    for (let i = k; i < m; i++) {
+      const v = Math.abs(a[i * m + k]);
+      if (v > Math.abs(a[p * m + k])) p = i;
+      if (v > scale) scale = v;
+    }
+    if (Math.abs(a[p * m + k]) <= 1e-12 * scale) return false;
+    if (p !== k) {
+      for (let j = 0; j < m; j++) {
+        const t = a[p * m + j];
+        a[p * m + j] = a[k * m + j];
+        a[k * m + j] = t;
+      }
+      const t = perm[p];
+      perm[p] = perm[k];
+      perm[k] = t;
+    }
+    const piv = a[k * m + k];
     for (let i = k + 1; i < m; i++) {
-      const f = a[i][k] / a[k][k];
-      if (f === 0) continue;
-      for (let j = k; j <= m; j++) a[i][j] -= f * a[k][j];
+      const f = (a[i * m + k] /= piv);
+      if (f !== 0) for (let j = k + 1; j < m; j++) a[i * m + j] -= f * a[k * m + j];
     }
   }
-  const x = new Array<number>(m).fill(0);
-  for (let i = m - 1; i >= 0; i--) {
-    let s = a[i][m];
-    for (let j = i + 1; j < m; j++) s -= a[i][j] * x[j];
-    x[i] = s / a[i][i];
-  }
-  return x;
+  return true;
 }
 
-const column = (A: LpProblem['A'], j: number): number[] => A.map((row) => row[j]);
+/** Solves (P·B) = L·U: B x = r, into `out`. */
+function luSolve(a: Float64Array, m: number, perm: Int32Array, r: ArrayLike<number>, out: Float64Array): void {
+  for (let i = 0; i < m; i++) {
+    let s = r[perm[i]];
+    for (let j = 0; j < i; j++) s -= a[i * m + j] * out[j];
+    out[i] = s;
+  }
+  for (let i = m - 1; i >= 0; i--) {
+    let s = out[i];
+    for (let j = i + 1; j < m; j++) s -= a[i * m + j] * out[j];
+    out[i] = s / a[i * m + i];
+  }
+}
+
+/** Solves Bᵀ y = r with the factors of B (P·B = L·U ⇒ Bᵀ = Uᵀ·Lᵀ·P), into `out`. */
+function luSolveT(a: Float64Array, m: number, perm: Int32Array, r: ArrayLike<number>, out: Float64Array, tmp: Float64Array): void {
+  for (let i = 0; i < m; i++) {
+    let s = r[i];
+    for (let j = 0; j < i; j++) s -= a[j * m + i] * tmp[j];
+    tmp[i] = s / a[i * m + i];
+  }
+  for (let i = m - 1; i >= 0; i--) {
+    let s = tmp[i];
+    for (let j = i + 1; j < m; j++) s -= a[j * m + i] * tmp[j];
+    tmp[i] = s;
+  }
+  for (let i = 0; i < m; i++) out[perm[i]] = tmp[i];
+}
 
 /** Minimises c·n subject to A n = b, n ≥ 0 (see module comment). Throws LpError on bad input. */
 export function solveLp(lp: LpProblem): LpSolution {
   const m = lp.b.length;
   const N = lp.c.length;
   const tol = lp.tol ?? 1e-9;
-  if (lp.A.length !== m || lp.A.some((row) => row.length !== N)) throw new LpError('A must be m × N');
+  const { A, c } = lp;
+  if (A.length !== m || A.some((row) => row.length !== N)) throw new LpError('A must be m × N');
   if (lp.basis.length !== m || new Set(lp.basis).size !== m) throw new LpError('the starting basis needs m distinct columns');
   const basis = [...lp.basis];
+  const lu = new Float64Array(m * m);
+  const perm = new Int32Array(m);
+  const x = new Float64Array(m);
+  const y = new Float64Array(m);
+  const w = new Float64Array(m);
+  const tmp = new Float64Array(m);
+  const cB = new Float64Array(m);
+  const aq = new Float64Array(m);
+  const isBasic = new Uint8Array(N);
+  const reduced = new Array<number>(N);
   let pivots = 0;
   const maxPivots = 50 * (N + m);
   for (;;) {
-    // Step 2: basic values, duals and reduced costs.
-    const B = lp.A.map((row) => basis.map((j) => row[j]));
-    const x = solveSquare(B, lp.b);
-    if (!x) throw new LpError('singular basis');
-    if (pivots === 0 && x.some((v) => v < -1e-12)) throw new LpError('the starting basis is infeasible');
-    const Bt = basis.map((_, k) => B.map((row) => row[k]));
-    const y = solveSquare(Bt, basis.map((j) => lp.c[j]));
-    if (!y) throw new LpError('singular basis');
-    const reduced = lp.c.map((cj, j) => (basis.includes(j) ? 0 : cj - lp.A.reduce((s, row, i) => s + y[i] * row[j], 0)));
-    // Step 3: Bland's entering rule.
-    const q = reduced.findIndex((d) => d < -tol);
+    // Step 2: factorise B, basic values x = B⁻¹b, duals Bᵀy = c_B, reduced costs.
+    for (let i = 0; i < m; i++) for (let k = 0; k < m; k++) lu[i * m + k] = A[i][basis[k]];
+    if (!luFactor(lu, m, perm)) throw new LpError('singular basis');
+    luSolve(lu, m, perm, lp.b, x);
+    if (pivots === 0) for (let i = 0; i < m; i++) if (x[i] < -1e-12) throw new LpError('the starting basis is infeasible');
+    for (let k = 0; k < m; k++) cB[k] = c[basis[k]];
+    luSolveT(lu, m, perm, cB, y, tmp);
+    isBasic.fill(0);
+    for (const j of basis) isBasic[j] = 1;
+    let q = -1;
+    for (let j = 0; j < N; j++) {
+      let d = 0;
+      if (!isBasic[j]) {
+        d = c[j];
+        for (let i = 0; i < m; i++) d -= y[i] * A[i][j];
+      }
+      reduced[j] = d;
+      // Step 3: Bland's entering rule (lowest index).
+      if (q < 0 && d < -tol) q = j;
+    }
     if (q < 0) {
-      const ties = reduced.map((d, j) => (!basis.includes(j) && Math.abs(d) <= tol ? j : -1)).filter((j) => j >= 0);
-      const values = x.map((v) => Math.max(0, v));
-      const objective = basis.reduce((s, j, k) => s + lp.c[j] * values[k], 0);
+      const ties: number[] = [];
+      for (let j = 0; j < N; j++) if (!isBasic[j] && Math.abs(reduced[j]) <= tol) ties.push(j);
+      const values = Array.from(x, (v) => Math.max(0, v));
+      const objective = basis.reduce((s, j, k) => s + c[j] * values[k], 0);
       return { basis, values, objective, ties, reduced, pivots };
     }
-    // Step 4: ratio test, lowest leaving column index among ties.
-    const w = solveSquare(B, column(lp.A, q));
-    if (!w) throw new LpError('singular basis');
+    // Step 4: direction B w = a_q; ratio test, lowest leaving column index among ties.
+    for (let i = 0; i < m; i++) aq[i] = A[i][q];
+    luSolve(lu, m, perm, aq, w);
     let leave = -1;
     let best = Infinity;
     for (let i = 0; i < m; i++) {
       if (w[i] <= 1e-12) continue;
       const t = Math.max(0, x[i]) / w[i];
-      if (t < best - 1e-15 || (Math.abs(t - best) <= 1e-15 && basis[i] < basis[leave])) {
+      if (leave < 0 || t < best - 1e-15 || (Math.abs(t - best) <= 1e-15 && basis[i] < basis[leave])) {
         best = t;
         leave = i;
       }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { LpError, solveLp, solveSquare } from '../../../src/solve/alloy/lp.js';
+import { LpError, solveLp } from '../../../src/solve/alloy/lp.js';
 
 describe('dense simplex (Bland rule), the LP of the alloy assemblage', () => {
   it('worked example of the module comment: n = [0, 0, 1], objective −1', () => {
@@ -36,8 +36,4 @@ describe('dense simplex (Bland rule), the LP of the alloy assemblage', () => {
     expect(() => solveLp({ A: [[1, 1]], b: [1], c: [0], basis: [0] })).toThrow(LpError);
   });
 
-  it('solveSquare: 2x + y = 5, x − y = 1 → (2, 1); singular → null', () => {
-    expect(solveSquare([[2, 1], [1, -1]], [5, 1])).toEqual([2, 1]);
-    expect(solveSquare([[1, 2], [2, 4]], [1, 2])).toBeNull();
-  });
 });
