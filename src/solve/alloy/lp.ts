@@ -12,7 +12,7 @@
  *     element, always feasible since b > 0);
  *  2. duals y from Bᵀy = c_B; reduced costs d_j = c_j − y·a_j;
  *  3. Bland's rule: the entering column is the lowest index with d_j < −ε (ε = `tol`); none → optimal;
- *  4. direction w from B w = a_q; ratio test min x_i / w_i over w_i > ε; ties broken by the lowest
+ *  4. direction w from B w = a_q; ratio test min x_i / w_i over w_i > 1e-12; ties broken by the lowest
  *     column index leaving (Bland), which prevents cycling on degenerate vertices;
  *  5. at the optimum, every non-basic column with |d_j| ≤ `tol` is an alternative optimum: it is
  *     reported in `ties` (the assemblage is not unique there), never silently dropped.
