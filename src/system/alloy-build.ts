@@ -6,15 +6,16 @@
  * Steps:
  *  1. per main element, buildSystem on the common keys with that element and its threshold activity
  *     (so its species, activities and G(T) are exactly those of its own one-element diagram);
- *     exclusions are applied afterwards over the whole set (step 3), and `pick` entries go to the
- *     element whose species they name;
- *  2. the mixed compounds (species/mixed.json) whose elements lie within {main elements, ligands, H, O},
- *     resolved and carried to T with gAt; dissolved ones take the smallest threshold of their metals;
+ *     exclusions are applied afterwards over the whole set (step 3); `pick` and `metastable` entries
+ *     go to the element whose species they name (ligand species: the first element);
+ *  2. the mixed compounds (species/mixed.json) whose elements lie within {main elements, ligands, H, O}
+ *     (metastable ones when asked for, `pick` alternatives applied), carried to T with gAt; dissolved
+ *     ones take the smallest threshold of their metals;
  *  3. `exclude` over all species (formula with or without phase tag, or name), as for one element;
  *  4. the composition and the ligands (from the first element's build; every build has the same).
  */
 import { speciesForElements } from '../data/alloy-species.js';
-import { findSpecies, loadLibrary } from '../data/library.js';
+import { findSpecies, type LibrarySpecies, loadLibrary, pickAlternative } from '../data/library.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
 import type { SolverSpecies } from '../solve/types.js';
 import { splitPhase } from '../chem/formula.js';
@@ -33,17 +34,23 @@ export interface BuiltAlloy {
   solution: BuiltSystem['solution'];
 }
 
-/** Step 1: the common keys with one element in place (its activity; picks of its own species only). */
+/**
+ * Which element's build a species named under `pick` or `metastable` belongs to: the element it holds
+ * alone; ligand species and names the library does not know go with the first element (whose build
+ * then reports an unknown name as for one element); mixed compounds with none (step 2 handles them).
+ */
+function ownerOf(name: string, els: string[]): string | undefined {
+  const hit = findSpecies(loadLibrary(), name);
+  const mains = hit ? els.filter((e) => (hit.elements[e] ?? 0) > 0) : [];
+  if (mains.length === 0) return els[0];
+  return mains.length === 1 ? mains[0] : undefined;
+}
+
+/** Step 1: the common keys with one element in place (its activity; picks and metastable names of its own species). */
 function elementSpec(spec: AlloySpec, el: string): SystemSpec {
-  const lib = loadLibrary();
   const els = Object.keys(spec.composition);
-  const pick: Record<string, string> = {};
-  for (const [formula, id] of Object.entries(spec.base.pick)) {
-    const hit = findSpecies(lib, formula);
-    const mains = hit ? els.filter((e) => (hit.elements[e] ?? 0) > 0) : [];
-    // Species of this element alone, or (ligand species, unknown formulas) with the first element.
-    if ((mains.length === 1 && mains[0] === el) || (mains.length === 0 && el === els[0])) pick[formula] = id;
-  }
+  const pick = Object.fromEntries(Object.entries(spec.base.pick).filter(([formula]) => ownerOf(formula, els) === el));
+  const meta = spec.base.metastable;
   const a = spec.activities[el];
   return {
     ...spec.base,
@@ -52,6 +59,7 @@ function elementSpec(spec: AlloySpec, el: string): SystemSpec {
     amount: { kind: 'activity', value: a, isDefault: spec.activityIsDefault },
     exclude: [],
     pick,
+    metastable: Array.isArray(meta) ? meta.filter((m) => ownerOf(m, els) === el) : meta,
     warnings: [],
   };
 }
@@ -60,9 +68,22 @@ function elementSpec(spec: AlloySpec, el: string): SystemSpec {
 function mixedSpecies(spec: AlloySpec, kelvin: number, warnings: string[]): SolverSpecies[] {
   const els = Object.keys(spec.composition);
   const ligandEls = Object.values(spec.base.ligandGroups).flatMap((g) => Object.keys(g));
-  const mixed = speciesForElements(loadLibrary(), els, ligandEls, { metastable: spec.base.metastable === true }).filter((s) => s.mixed);
+  const meta = spec.base.metastable;
+  const named = (s: LibrarySpecies, list: string[]): boolean => list.some((m) => findSpecies(loadLibrary(), m) === s);
+  const mixed = speciesForElements(loadLibrary(), els, ligandEls, { metastable: true })
+    .filter((s) => s.mixed && (!s.metastable || meta === true || (Array.isArray(meta) && named(s, meta))));
   const out: SolverSpecies[] = [];
-  for (const lib of mixed) {
+  for (const lib0 of mixed) {
+    const altId = Object.entries(spec.base.pick).find(([formula]) => findSpecies(loadLibrary(), formula) === lib0)?.[1];
+    let lib = lib0;
+    if (altId !== undefined) {
+      try {
+        lib = pickAlternative(lib0, altId);
+      } catch {
+        const ids = lib0.alternatives?.map((x) => x.id).join(', ') || 'none';
+        throw new InputError(spec.base.file, `pick.${lib0.formula}`, `an alternative id of ${lib0.formula} (${ids})`, JSON.stringify(altId));
+      }
+    }
     const r = { ...fromLibrary(lib, `library ${lib.file}: ${lib.formula}`), implicit: true };
     const grouped = groupElements(r.f.elements, spec.base.ligandGroups);
     if (!grouped) continue;
