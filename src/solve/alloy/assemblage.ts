@@ -102,7 +102,7 @@ function startBasis(p: Prepared, psi: number[]): number[] {
 export function supportAt(input: AlloyInput, pH: number, E: number): { indices: number[]; amounts: number[]; ties: number[]; grandPotential: number; ligandSpecies: Record<string, string> } {
   const p = prepare(input);
   const { psi, ligandSpecies } = speciesPotentialsAt(input, pH, E);
-  const sol = solveLp({ A: p.A, b: p.b, c: psi, basis: startBasis(p, psi), tol: TIE_KJ });
+  const sol = solveLp({ A: p.A, b: p.b, c: psi, basis: startBasis(p, psi), tieTol: TIE_KJ });
   const order = sol.basis.map((_, k) => k).filter((k) => sol.values[k] > AMOUNT_EPS).sort((i, j) => sol.basis[i] - sol.basis[j]);
   return { indices: order.map((k) => sol.basis[k]), amounts: order.map((k) => sol.values[k]), ties: sol.ties, grandPotential: sol.objective, ligandSpecies };
 }

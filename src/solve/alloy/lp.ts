@@ -11,11 +11,15 @@
  *  1. start from a feasible basis given by the caller (for an alloy: one single-element species per
  *     element, always feasible since b > 0);
  *  2. duals y from Bᵀy = c_B; reduced costs d_j = c_j − y·a_j;
- *  3. Bland's rule: the entering column is the lowest index with d_j < −ε (ε = `tol`); none → optimal;
+ *  3. Bland's rule: the entering column is the lowest index with d_j < −ε (ε = `tol`, default 1e-11,
+ *     just above the rounding noise of d_j for costs of ~10³); none → optimal;
  *  4. direction w from B w = a_q; ratio test min x_i / w_i over w_i > 1e-12; ties broken by the lowest
  *     column index leaving (Bland), which prevents cycling on degenerate vertices;
- *  5. at the optimum, every non-basic column with |d_j| ≤ `tol` is an alternative optimum: it is
- *     reported in `ties` (the assemblage is not unique there), never silently dropped.
+ *  5. at the optimum, every non-basic column with |d_j| ≤ `tieTol` (default 1e-9, ≫ ε) is an
+ *     alternative optimum: it is reported in `ties` (the assemblage is not unique there), never
+ *     silently dropped. Keeping ε ≪ tieTol matters: with one tolerance for both, the optimum reached
+ *     within the band |d| ≤ ε depends on the start, and a point just beside a boundary could carry the
+ *     other side's basis with its tied column just outside the band — a tie left unreported.
  *
  * Reference: Dantzig G.B. (1963) Linear Programming and Extensions, Princeton; Bland R.G. (1977)
  * New finite pivoting rules for the simplex method, Math. Oper. Res. 2, 103–107.
@@ -31,8 +35,10 @@ export interface LpProblem {
   c: readonly number[];
   /** A feasible starting basis: m column indices with B⁻¹b ≥ 0. */
   basis: readonly number[];
-  /** Tolerance on reduced costs and pivots, in the units of c (default 1e-9). */
+  /** Pivot tolerance on reduced costs, in the units of c (default 1e-11). */
   tol?: number;
+  /** Tie tolerance: non-basic columns with |reduced cost| ≤ tieTol are reported (default 1e-9). */
+  tieTol?: number;
 }
 
 export interface LpSolution {
@@ -42,7 +48,7 @@ export interface LpSolution {
   values: number[];
   /** c·n at the optimum. */
   objective: number;
-  /** Non-basic columns with |reduced cost| ≤ tol: alternative optima (sorted). */
+  /** Non-basic columns with |reduced cost| ≤ tieTol: alternative optima (sorted). */
   ties: number[];
   /** Reduced costs of all columns at the optimum (0 for basic ones). */
   reduced: number[];
@@ -122,7 +128,8 @@ function luSolveT(a: Float64Array, m: number, perm: Int32Array, r: ArrayLike<num
 export function solveLp(lp: LpProblem): LpSolution {
   const m = lp.b.length;
   const N = lp.c.length;
-  const tol = lp.tol ?? 1e-9;
+  const tol = lp.tol ?? 1e-11;
+  const tieTol = Math.max(lp.tieTol ?? 1e-9, tol);
   const { A, c } = lp;
   if (A.length !== m || A.some((row) => row.length !== N)) throw new LpError('A must be m × N');
   if (lp.basis.length !== m || new Set(lp.basis).size !== m) throw new LpError('the starting basis needs m distinct columns');
@@ -162,7 +169,7 @@ export function solveLp(lp: LpProblem): LpSolution {
     }
     if (q < 0) {
       const ties: number[] = [];
-      for (let j = 0; j < N; j++) if (!isBasic[j] && Math.abs(reduced[j]) <= tol) ties.push(j);
+      for (let j = 0; j < N; j++) if (!isBasic[j] && Math.abs(reduced[j]) <= tieTol) ties.push(j);
       const values = Array.from(x, (v) => Math.max(0, v));
       const objective = basis.reduce((s, j, k) => s + c[j] * values[k], 0);
       return { basis, values, objective, ties, reduced, pivots };

@@ -84,6 +84,32 @@ describe('Fe–Cr (Fe 0.75, Cr 0.25), 25 °C, threshold activity 1e-6: LP = brut
     expect(ties).toBe(0); // random points fall inside regions; boundaries are tested below
   });
 
+  it('on boundaries (bisected in E to 1e-13 V at 8 pH values) both find several optimal supports: the LP reports the tie', () => {
+    let boundaries = 0;
+    for (const pH of [1, 3, 5, 7, 9, 11, 12, 13]) {
+      let prev = assemblageAt(input, pH, -1.6).label;
+      for (let E = -1.6; E <= 1.6; E += 0.01) {
+        const here = assemblageAt(input, pH, E).label;
+        if (here === prev) continue;
+        let lo = E - 0.01;
+        let hi = E;
+        while (hi - lo > 1e-13) {
+          const mid = (lo + hi) / 2;
+          if (assemblageAt(input, pH, mid).label === prev) lo = mid;
+          else hi = mid;
+        }
+        const bf = bruteForce(input, pH, lo);
+        const lp = assemblageAt(input, pH, lo);
+        expect(new Set(bf.winners.map((w) => w.join(' + '))).size).toBeGreaterThan(1);
+        expect(lp.ties.length).toBeGreaterThan(0);
+        expect(lp.grandPotential).toBeCloseTo(bf.min, 9);
+        boundaries++;
+        prev = here;
+      }
+    }
+    expect(boundaries).toBeGreaterThan(20);
+  });
+
   it('points with a bulk ratio on chromite itself (Fe:Cr = 1:2) are degenerate, not ties', () => {
     const sp = readAlloySpec({ elements: { Fe: 1, Cr: 2 }, activity: 1e-6 }, 'fe-cr2.yaml');
     expect(sp.warnings.join()).toMatch(/normalised/);
