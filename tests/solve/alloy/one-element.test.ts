@@ -57,6 +57,37 @@ describe.each(cases)('one-element alloy equals the single-element solver: %s', (
     expect(checked).toBeGreaterThan(390);
   });
 
+  it('label changes found by bisection in E lie on the exact boundaries within 1e-9 V', () => {
+    const sol = solve(input);
+    const exactE = (pH: number, a: string, b: string): number[] =>
+      sol.boundaries
+        .filter((bd) => bd.between.includes(a) && bd.between.includes(b))
+        .flatMap((bd) => bd.points.slice(1).map((p, k) => [bd.points[k], p] as const))
+        .filter(([p, q]) => (p[0] - pH) * (q[0] - pH) <= 0 && p[0] !== q[0])
+        .map(([p, q]) => p[1] + ((pH - p[0]) / (q[0] - p[0])) * (q[1] - p[1]));
+    let checked = 0;
+    for (const pH of [1.3, 4.7, 7.1, 9.9, 12.6]) {
+      let prev = assemblageAt(alloy, pH, input.E[0]).label;
+      for (let E = input.E[0]; E <= input.E[1]; E += 0.02) {
+        const here = assemblageAt(alloy, pH, E).label;
+        if (here === prev) continue;
+        let lo = E - 0.02;
+        let hi = E;
+        while (hi - lo > 1e-13) {
+          const mid = (lo + hi) / 2;
+          if (assemblageAt(alloy, pH, mid).label === prev) lo = mid;
+          else hi = mid;
+        }
+        const candidates = exactE(pH, prev, here);
+        expect(candidates.length).toBeGreaterThan(0);
+        expect(Math.min(...candidates.map((e) => Math.abs(e - lo)))).toBeLessThan(1e-9);
+        checked++;
+        prev = here;
+      }
+    }
+    expect(checked).toBeGreaterThan(2);
+  });
+
   it('on every exact single-element boundary the LP reports the two species as tied (boundary within 1e-9 V)', () => {
     const sol = solve(input);
     let checked = 0;
