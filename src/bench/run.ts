@@ -7,6 +7,8 @@
  *   draw/node-startup ratio: R          — wall time of `ephmap draw` (iron, SVG) over bare `node -e 0`; target ≤ 3
  *   solver/bare-loop ratio: R           — grid solver throughput over a bare typed-array min-of-planes loop; target ≥ 0.5
  *   Cu-S 500x500 ms: T                  — copper–sulfur map with ligand recursion on a 500×500 grid; target ≤ 200
+ *   alloy points 300x300 ms: T          — Fe–Cr–Ni assemblage LP at every node of a 300×300 grid (point
+ *                                         solver only, no tracing yet; issue 18's traced map: ≤ 2000)
  *   peak RSS MB: M                      — a 1000×1000 grid map in a fresh process; target ≤ 150
  */
 import { execFileSync, spawnSync } from 'node:child_process';
@@ -16,7 +18,10 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeFile, compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
+import { supportAt } from '../solve/alloy/assemblage.js';
 import { gridMap } from '../solve/grid.js';
+import { buildAlloySystem } from '../system/alloy-build.js';
+import { readAlloySpec } from '../system/alloy-spec.js';
 import { readSpec } from '../system/spec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -113,7 +118,15 @@ async function main(): Promise<void> {
     }, 7);
     console.log(`Cu-S 500x500 ms: ${tCuS.toFixed(1)}`);
 
-    // 5. Peak RSS of a 1000×1000 map in a fresh process.
+    // 5. Alloy point solver on every node of a 300×300 grid.
+    const alloy = buildAlloySystem(readAlloySpec({ elements: { Fe: 0.7, Cr: 0.18, Ni: 0.12 }, ligands: { S: 1e-3 } }, 'bench Fe-Cr-Ni')).input;
+    const alloyGrid = (): void => {
+      for (let i = 0; i < 300; i++) for (let j = 0; j < 300; j++) supportAt(alloy, (14 * i) / 299, -2 + (4 * j) / 299);
+    };
+    alloyGrid();
+    console.log(`alloy points 300x300 ms: ${timeIt(alloyGrid, 3).toFixed(1)}`);
+
+    // 6. Peak RSS of a 1000×1000 map in a fresh process.
     const r = spawnSync(process.execPath, [fileURLToPath(import.meta.url), '--rss-child'], { encoding: 'utf8' });
     console.log(`peak RSS MB: ${Number(r.stdout).toFixed(1)}`);
   } finally {

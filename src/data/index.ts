@@ -21,4 +21,5 @@ export type {
   LibrarySpecies,
   SpeciesForOptions,
 } from './library.js';
+export { speciesForElements } from './alloy-species.js';
 export { elementEntropy, elementsWithEntropy, ELEMENT_ENTROPY_SOURCE } from './element-entropies.js';

@@ -3,6 +3,9 @@
  *
  * File format (one file per element, see species/README.md and schema/species.schema.json):
  *   { "$schema"?, "element", "sources": { key: citation }, "species": [ SpeciesRecord, ... ] }
+ * A file whose `element` is "mixed" (species/mixed.json) holds compounds of two or more elements
+ * other than H and O (spinels such as FeCr2O4, delafossite CuFeO2): they are marked `mixed` and enter
+ * only systems with several main elements (speciesForElements), never a one-element system.
  * Units: ΔfG°, ΔfH° in kJ/mol; S°, Cp° in J/(mol·K); 298.15 K, 1 bar; aqueous ions on the
  * conventional scale (H+(aq): ΔfG° = ΔfH° = S° = Cp° = 0).
  *
@@ -86,6 +89,8 @@ export interface LibrarySpecies extends SpeciesRecord {
   charge: number;
   /** Id of the alternative whose values this copy carries (set by pickAlternative). */
   alternative?: string;
+  /** From a file whose `element` is "mixed": enters only systems with several main elements. */
+  mixed?: true;
 }
 
 /** A species file (or the library as a whole) breaks the format. */
@@ -108,6 +113,8 @@ const SPECIES_KEYS = new Set([
 ]);
 const ALT_KEYS = new Set(['id', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled', 'uncertainty', 'note']);
 const ELEMENT_RE = /^[A-Z][a-z]?$/;
+/** The `element` of a file of compounds of several elements (see the module comment). */
+export const MIXED_FILE_ELEMENT = 'mixed';
 const KEY_RE = /^[A-Za-z][A-Za-z0-9_-]*$/;
 
 const isObject = (v: unknown): v is Record<string, unknown> =>
@@ -166,7 +173,8 @@ export function validateSpeciesFile(file: string, data: unknown): LibrarySpecies
   const d = data as Record<string, unknown>;
   for (const k of Object.keys(d)) if (!FILE_KEYS.has(k)) fail(k, 'unknown field');
   if (d.$schema !== undefined && typeof d.$schema !== 'string') fail('$schema', 'must be a string');
-  if (typeof d.element !== 'string' || !ELEMENT_RE.test(d.element)) fail('element', 'required, an element symbol such as "Fe"');
+  const mixed = d.element === MIXED_FILE_ELEMENT;
+  if (typeof d.element !== 'string' || !(mixed || ELEMENT_RE.test(d.element))) fail('element', 'required, an element symbol such as "Fe" (or "mixed" for compounds of several elements)');
   if (!isObject(d.sources) || Object.keys(d.sources).length === 0) fail('sources', 'required, a non-empty object { key: citation }');
   const sources = d.sources as Record<string, unknown>;
   for (const [k, v] of Object.entries(sources)) {
@@ -215,6 +223,9 @@ export function validateSpeciesFile(file: string, data: unknown): LibrarySpecies
         checkValues(file, aat, ao, sourceMap);
       });
     }
+    if (mixed && Object.keys(parsed.elements).filter((e) => e !== 'H' && e !== 'O').length < 2) {
+      fail(`${at}.formula`, 'a compound of two or more elements other than H and O (this is a "mixed" file)');
+    }
     const rec = o as unknown as SpeciesRecord;
     const valueSourceText = rec.sources
       ? Object.fromEntries(Object.entries(rec.sources).map(([k, v]) => [k, sourceMap[v as string]!]))
@@ -227,6 +238,7 @@ export function validateSpeciesFile(file: string, data: unknown): LibrarySpecies
       sourceMap,
       elements: parsed.elements,
       charge: parsed.charge,
+      ...(mixed ? { mixed: true as const } : {}),
     });
   });
   return out;
@@ -346,7 +358,8 @@ export interface SpeciesForOptions {
 /**
  * The species of the system {element, ligands, H, O}: every library species whose elements are all
  * within that set and which contains the main element or a ligand element. Water's own species
- * (only H and O) are not returned. Metastable species are left out unless opts.metastable is true.
+ * (only H and O) and compounds of the "mixed" file are not returned. Metastable species are left out
+ * unless opts.metastable is true.
  * Example: speciesFor(lib, 'Cu', ['S']) → Cu, Cu+2, CuO, ..., Cu2S, CuS, and S, H2S, HS-, SO4-2, ...
  */
 export function speciesFor(
@@ -359,6 +372,7 @@ export function speciesFor(
   const wanted = new Set<string>([element, ...ligands]);
   return lib.filter((s) => {
     if (s.metastable && !opts.metastable) return false;
+    if (s.mixed) return false;
     const els = Object.keys(s.elements);
     if (!els.every((e) => allowed.has(e))) return false;
     return els.some((e) => wanted.has(e) && e !== 'H' && e !== 'O');

@@ -20,18 +20,26 @@ export interface PointPsi {
   ligandSpecies: Record<string, string>;
 }
 
-export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
-  const w = waterContext(input);
+/**
+ * Step 1: each ligand's potential plane μ_L at (pH, E) — the minimum over its own species, ligands in
+ * solving order (a ligand species may hold earlier ligands) — and its predominant species.
+ */
+export function ligandPotentialsAt(
+  ligands: SolverInput['ligands'],
+  w: ReturnType<typeof waterContext>,
+  pH: number,
+  E: number,
+): { mu: Plane[]; ligandSpecies: Record<string, string> } {
   const mu: Plane[] = [];
   const ligandSpecies: Record<string, string> = {};
-  input.ligands.forEach((L, m) => {
+  ligands.forEach((L, m) => {
     let best = Infinity;
     let bestPlane: Plane | null = null;
     let bestK = 0;
     L.species.forEach((sp, k) => {
       let pl = formationPlane(sp, w);
       for (let q = 0; q < m; q++) {
-        const kq = sp.elements[input.ligands[q].element] ?? 0;
+        const kq = sp.elements[ligands[q].element] ?? 0;
         if (kq) pl = addScaled(pl, mu[q], -kq);
       }
       pl = scalePlane(pl, 1 / (sp.elements[L.element] ?? 1));
@@ -45,6 +53,12 @@ export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
     mu.push(bestPlane!);
     ligandSpecies[L.element] = L.species[bestK].formula;
   });
+  return { mu, ligandSpecies };
+}
+
+export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
+  const w = waterContext(input);
+  const { mu, ligandSpecies } = ligandPotentialsAt(input.ligands, w, pH, E);
   const psi = input.species.map((sp) => {
     let pl = formationPlane(sp, w);
     input.ligands.forEach((L, m) => {

@@ -44,7 +44,7 @@ export interface BuiltSystem {
 
 const WATER_FORMULAS: Record<string, 'H2O' | 'H2' | 'O2'> = { 'H2O|l': 'H2O', 'H2|g': 'H2', 'O2|g': 'O2' };
 
-function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
+export function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
   return {
     formula: s.formula,
     phase: s.phase,
@@ -178,7 +178,7 @@ export function groupElements(elements: Record<string, number>, groups: Record<s
 }
 
 /** Carry data to T; S° from ΔfH° where missing; error where neither is there. */
-function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: string[]): number {
+export function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: string[]): number {
   if (Math.abs(spec.temperature - 25) > 1e-9) {
     let S = s.S;
     if (S === undefined) {
@@ -319,7 +319,7 @@ function constantG(spec: SystemSpec, formula: string): boolean {
 }
 
 /** One warning for all species used without Cp far from 25 °C. */
-function collapseCpWarnings(ws: string[]): string[] {
+export function collapseCpWarnings(ws: string[]): string[] {
   const cp = ws.filter((w) => w.startsWith(CP_WARN)).map((w) => w.slice(CP_WARN.length));
   const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN) && !w.startsWith(LEFT_OUT_WARN));
   const out = ws.filter((w) => w.startsWith(LEFT_OUT_WARN)).map((w) => w.slice(LEFT_OUT_WARN.length));

@@ -98,6 +98,7 @@ export const TOP_KEYS = [
   'classes',
   'families',
   'description',
+  'elements',
 ] as const;
 
 const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
@@ -110,6 +111,8 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   const o = f.object(data, '', TOP_KEYS);
   const warnings: string[] = [];
 
+  // Several main elements are read by readAlloySpec (alloy-spec.ts), not here.
+  if (o.elements !== undefined) f.fail('elements', 'one main element (element): a system with several elements (an alloy) is not yet drawn, probed or reported by this command', o.elements);
   if (o.element === undefined) f.fail('element', 'the symbol of the main element, e.g. "Fe"');
   const element = f.string(o.element, 'element', 'an element symbol such as "Fe"', 3);
   if (!isElement(element)) f.fail('element', 'an element symbol such as "Fe" (case matters)', element);
