@@ -48,10 +48,14 @@ describe('published ΔfG° of the mixed oxides reproduced by the LP (Robie & Hem
   it.each(rows)('$name $formula: alone at its own composition, grand potential from ΔfG° = $dfG kJ/mol', ({ formula, dfG }) => {
     const f = parseFormula(formula);
     const metals = Object.keys(f.elements).filter((e) => e !== 'O');
-    const input = alloy({ elements: Object.fromEntries(metals.map((e) => [e, f.elements[e]])), activity: 1e-6 });
+    // Threshold 1e-6 and 1e-4: with the CODATA zinc data, Zn(OH)2(aq) dissolves zincite (and so
+    // franklinite, which lies only ~1 kJ/mol below ZnO + Fe2O3) at 1e-6; the solid's ψ' does not
+    // depend on the threshold, so the check holds wherever the compound is found alone.
+    let found = 0;
+    for (const activity of [1e-6, 1e-4]) {
+    const input = alloy({ elements: Object.fromEntries(metals.map((e) => [e, f.elements[e]])), activity });
     const atoms = metals.reduce((s, e) => s + f.elements[e], 0);
     const o = f.elements.O;
-    let found = 0;
     for (let pH = 0; pH <= 14; pH += 0.5) {
       for (let E = -1.5; E <= 1.5; E += 0.05) {
         const a = assemblageAt(input, pH, E);
@@ -62,6 +66,7 @@ describe('published ΔfG° of the mixed oxides reproduced by the LP (Robie & Hem
         expect(a.verdict).toBe('passive');
         found++;
       }
+    }
     }
     expect(found).toBeGreaterThan(0);
   });
