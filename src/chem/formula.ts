@@ -17,6 +17,7 @@
  * `CuSO4.5H2O` = CuSO4·5H2O. Write a decimal count with integer part ≥ 1 followed by more atoms
  * inside brackets: `(Ni1.5)Fe`. `formatFormula` does so automatically.
  */
+import { EXIT, EphmapError, type ExitStatus } from '../errors.js';
 import { ELEMENTS, isElement } from './elements.js';
 
 export interface Formula {
@@ -42,8 +43,13 @@ export interface FormulaToken {
   value?: number;
 }
 
-/** A formula text that does not follow the grammar. `position` is 1-based (length + 1 = end of text). */
-export class FormulaError extends Error {
+/**
+ * A formula text that does not follow the grammar (input error, exit status 2). `position` is
+ * 1-based (length + 1 = end of text).
+ */
+export class FormulaError extends EphmapError {
+  readonly code = 'formula';
+  readonly exitStatus: ExitStatus = EXIT.input;
   readonly text: string;
   readonly position: number;
   readonly expected: string;

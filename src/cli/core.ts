@@ -8,7 +8,7 @@ import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-option
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
-import { writeAtomic } from './write.js';
+import { writeAtomic } from '../io/write.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { referenceOffset } from '../thermo/reference.js';

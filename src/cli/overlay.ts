@@ -7,10 +7,9 @@ import type { Command } from 'commander';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 import { loadSpec } from '../pipeline.js';
-import type { FigureInput } from '../render/scene.js';
-import { computeLayers, layerSpecs, overlayFigure } from '../report/overlay.js';
+import { computeLayers, layerSpecs, overlayFigure } from '../figure/overlay.js';
 import { InputError } from '../system/errors.js';
-import { writeAtomic } from './write.js';
+import { writeAtomic } from '../io/write.js';
 
 /** "25,90,150" → [25, 90, 150]; InputError naming the option for anything that is not a number list. */
 export function numberList(v: string, option: string, what: string): number[] {
@@ -24,16 +23,6 @@ export function numberList(v: string, option: string, what: string): number[] {
 }
 
 const OVERLAY_WIDTH = '160mm';
-
-/** Renders; a figure too small for its plot, legend and caption is a user mistake (exit 2). */
-export async function renderChecked(input: FigureInput, fmt: FigureFormat): Promise<string | Uint8Array> {
-  try {
-    return await renderFigure(input, fmt);
-  } catch (e) {
-    if (e instanceof Error && /too small/.test(e.message)) throw new InputError('command line', '--width/--height', `a larger figure (${e.message})`);
-    throw e;
-  }
-}
 
 interface OverlayOpts extends FigureOverrides {
   output: string;
@@ -77,7 +66,7 @@ export function registerOverlay(program: Command): void {
         }
       }
       const { input } = overlayFigure(layers, fig, ext === 'pdf');
-      writeAtomic(opts.output, await renderChecked(input, ext as FigureFormat));
+      writeAtomic(opts.output, await renderFigure(input, ext as FigureFormat));
       process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);
     });
 }

@@ -9,6 +9,7 @@
  * Every file is validated when loaded; any problem throws a LibraryError naming the file and field.
  * This module only reads and checks data: it computes no thermodynamics.
  */
+import { EXIT, EphmapError, type ExitStatus } from '../errors.js';
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -88,8 +89,10 @@ export interface LibrarySpecies extends SpeciesRecord {
   alternative?: string;
 }
 
-/** A species file (or the library as a whole) breaks the format. */
-export class LibraryError extends Error {
+/** A species file (or the library as a whole) breaks the format (input error, exit status 2). */
+export class LibraryError extends EphmapError {
+  readonly code = 'library';
+  readonly exitStatus: ExitStatus = EXIT.input;
   readonly file: string;
   readonly field: string;
   constructor(file: string, field: string, message: string) {

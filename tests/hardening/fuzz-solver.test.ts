@@ -13,7 +13,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { formatFormula } from '../../src/chem/formula.js';
 import type { Polygon, Ring } from '../../src/model.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { psiAt } from '../../src/solve/point.js';
 import { type Solution, solve } from '../../src/solve/solve.js';
 import type { LigandInput, SolverInput, SolverSpecies } from '../../src/solve/types.js';
 

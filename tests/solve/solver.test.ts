@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseFormula } from '../../src/chem/formula.js';
 import { pointInRing } from '../../src/solve/merge.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { psiAt } from '../../src/solve/point.js';
 import { solve } from '../../src/solve/solve.js';
 import type { SolverInput } from '../../src/solve/types.js';
 import { IRON, WATER } from './iron-inline.js';

@@ -56,17 +56,17 @@ export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
   return { psi, ligandSpecies };
 }
 
-export interface Crossing {
-  /** Signed shift to the crossing, V (for E) or pH units. */
+export interface LineHit {
+  /** Signed shift to the boundary, V (for E) or pH units. */
   shift: number;
   boundary: BoundaryModel;
 }
 
 export interface ProbeGeometry {
-  up?: Crossing;
-  down?: Crossing;
-  left?: Crossing;
-  right?: Crossing;
+  up?: LineHit;
+  down?: LineHit;
+  left?: LineHit;
+  right?: LineHit;
   nearest?: { boundary: BoundaryModel; distanceV: number; at: [number, number] };
 }
 

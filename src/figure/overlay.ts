@@ -7,14 +7,14 @@
  * element, temperature and activity. Layers of different elements in the 'color' style also get
  * their own colour-blind-safe line colours (LAYER_INKS).
  */
-import { captionLines, figureInput, powerOfTen, shortSource } from '../figure/compose.js';
-import type { FigureSettings } from '../figure/options.js';
+import { captionLines, figureInput } from './compose.js';
+import type { FigureSettings } from './options.js';
 import { compute, type Computed } from '../pipeline.js';
 import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
 import type { FigureInput } from '../render/scene.js';
 import { InputError } from '../system/errors.js';
 import { T_RANGE, type SystemSpec } from '../system/spec.js';
-import { fmtAmount, fmtCelsius } from './report-format.js';
+import { fmtAmount, fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
 
 /**
  * Dash styles of the overlay layers, in order (names understood by the renderer's parseDash): the
