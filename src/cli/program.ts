@@ -13,13 +13,14 @@ import { registerCell } from './cell.js';
 import { registerReport } from './report.js';
 import { registerOverlay } from './overlay.js';
 import { libraryLookup } from '../system/lookup.js';
+import { VERSION } from '../version.js';
 
 export function makeProgram(): Command {
   const program = new Command();
   program
     .name('ephmap')
     .description('Potential–pH stability diagrams: exact regions, balanced reactions, answers at a point.\nEquilibrium thermodynamics only — not kinetics.')
-    .version('0.1.0')
+    .version(VERSION)
     .exitOverride()
     .configureOutput({ writeErr: (s) => process.stderr.write(s) });
   registerCore(program);
