@@ -4,7 +4,7 @@
  */
 import type { Computed } from '../pipeline.js';
 import type { SystemSpec } from '../system/spec.js';
-import { compute } from '../pipeline.js';
+import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
 import { referenceOffset } from '../thermo/reference.js';
@@ -60,7 +60,7 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
     input.options = fig.options;
   }
   if (fig.families.length) {
-    input.families = fig.families.map((a) => ({ activity: a, boundaries: compute(atActivity(c.spec, a)).model.boundaries }));
+    input.families = fig.families.map((a) => ({ activity: a, boundaries: familyBoundaries(c, a) }));
   }
   return input;
 }

@@ -7,7 +7,7 @@
  * element, temperature and activity. Layers of different elements in the 'color' style also get
  * their own colour-blind-safe line colours (LAYER_INKS).
  */
-import { captionLines, figureInput } from './compose.js';
+import { atActivity, captionLines, figureInput } from './compose.js';
 import type { FigureSettings } from './options.js';
 import { compute, type Computed } from '../pipeline.js';
 import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
@@ -55,7 +55,7 @@ export function layerSpecs(req: OverlayRequest): SystemSpec[] {
     throw new InputError('command line', temps.length > 1 ? '--temperatures' : '--activities', 'one value when several system files are overlaid (several values with one file)');
   }
   const withT = (s: SystemSpec, t: number | undefined): SystemSpec => (t === undefined ? s : { ...s, temperature: t });
-  const withA = (s: SystemSpec, a: number | undefined): SystemSpec => (a === undefined ? s : { ...s, activity: a, amount: { kind: 'activity', value: a, isDefault: false } });
+  const withA = (s: SystemSpec, a: number | undefined): SystemSpec => (a === undefined ? s : atActivity(s, a));
   const out: SystemSpec[] = [];
   for (const s of specs) {
     for (const t of temps.length ? temps : [undefined]) for (const a of acts.length ? acts : [undefined]) out.push(withA(withT(s, t), a));

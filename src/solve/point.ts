@@ -8,7 +8,8 @@
  */
 import type { BoundaryModel } from '../model.js';
 import { nernstSlope } from '../thermo/constants.js';
-import { type Plane, addScaled, planeAt, scalePlane } from './plane.js';
+import { type Plane, planeAt } from './plane.js';
+import { ligandPsiPlane, withoutLigands } from './ligand-psi.js';
 import { formationPlane } from './potentials.js';
 import { waterContext } from './solve.js';
 import type { SolverInput } from './types.js';
@@ -29,12 +30,7 @@ export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
     let bestPlane: Plane | null = null;
     let bestK = 0;
     L.species.forEach((sp, k) => {
-      let pl = formationPlane(sp, w);
-      for (let q = 0; q < m; q++) {
-        const kq = sp.elements[input.ligands[q].element] ?? 0;
-        if (kq) pl = addScaled(pl, mu[q], -kq);
-      }
-      pl = scalePlane(pl, 1 / (sp.elements[L.element] ?? 1));
+      const pl = ligandPsiPlane(input, m, sp, formationPlane(sp, w), mu);
       const v = planeAt(pl, pH, E);
       if (v < best) {
         best = v;
@@ -46,11 +42,7 @@ export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
     ligandSpecies[L.element] = L.species[bestK].formula;
   });
   const psi = input.species.map((sp) => {
-    let pl = formationPlane(sp, w);
-    input.ligands.forEach((L, m) => {
-      const kL = sp.elements[L.element] ?? 0;
-      if (kL) pl = addScaled(pl, mu[m], -kL);
-    });
+    const pl = withoutLigands(input, sp, formationPlane(sp, w), mu, input.ligands.length);
     return planeAt(pl, pH, E) / (sp.elements[input.element] ?? 1) / 1000;
   });
   return { psi, ligandSpecies };

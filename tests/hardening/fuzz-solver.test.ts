@@ -482,7 +482,7 @@ describe('the checker itself', () => {
 });
 
 describe('known issues found by the properties above', () => {
-  // BUG: src/solve/merge.ts welds vertices closer than WELD = 1e-9 (absolute, in pH and V). A line
+  // BUG: src/solve/merge.ts welds vertices closer than its weld tolerance (about 1e-9 here). A line
   // 1.9e-10 V above the domain's lower edge makes a sliver whose vertices are welded away, so the
   // regions miss 1.9e-9 of the domain (limit 1e-9 relative). Physically negligible (0.2 nV), but the
   // tiling is not exact; a weld tolerance relative to the domain size would keep it. Reproduction:
