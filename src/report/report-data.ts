@@ -2,7 +2,7 @@
  * The content of the `report` document as plain data, independent of the output format: title,
  * conditions, activities used, reactions and lines, operating points with their verdicts, the
  * plating window, data sources (with the values recalled from memory marked), warnings and the
- * cautions of the design notes (§6). The writers (report-md, report-html, report-pdf) only lay
+ * cautions (REPORT_CAUTIONS). The writers (report-md, report-html, report-pdf) only lay
  * it out. Deterministic: no dates, no machine paths.
  */
 import { findReference, referenceOffset } from '../thermo/reference.js';
@@ -14,7 +14,7 @@ import { probeOperatingPoints, type ReportPoint } from '../analysis/points.js';
 import { platingWindow, type WindowResult } from '../analysis/window.js';
 import { fmtAmount, fmtCelsius, fmtNum } from './format.js';
 
-/** The cautions of the design notes, §6, in full. */
+/** The cautions printed in every report, in full. */
 export const REPORT_CAUTIONS: readonly string[] = [
   'An E\u2013pH diagram is equilibrium thermodynamics only: it says nothing about rates, passive-film quality, localized attack (pitting, crevice, stress-corrosion, microbially influenced), galvanic coupling, or mixed potentials. It is a screening aid; design decisions follow the applicable codes and standards and the judgement of a qualified corrosion or plating professional.',
 ];

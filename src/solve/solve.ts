@@ -1,6 +1,6 @@
 /**
  * The predominance solver: ligand cells, exact pieces, merged regions, boundaries with their
- * reactions, triple points and water lines (DESIGN §2–3).
+ * reactions, triple points and water lines (DEVELOPERS.md, "The solver in one paragraph").
  *
  * Steps:
  *   1. formation planes Φ for every species at T (potentials.ts);

@@ -325,7 +325,7 @@ const MAGNETITE = sp('Fe3O4', { Fe: 3, O: 4 }, 0, -1015.4);
 const HEMATITE = sp('Fe2O3', { Fe: 2, O: 3 }, 0, -742.2);
 const HFEO2 = sp('HFeO2-', { H: 1, Fe: 1, O: 2 }, -1, -377.7, 'aq');
 
-/** ψ per Fe atom at (pH, E), kJ — by hand from DESIGN §2, for building exact coincidences. */
+/** ψ per Fe atom at (pH, E), kJ — by hand from the formation-plane formula of src/solve/potentials.ts, for building exact coincidences. */
 function psiHand(s: SolverSpecies, pH: number, E: number): number {
   const o = s.elements.O ?? 0;
   const h = s.elements.H ?? 0;
@@ -425,7 +425,7 @@ describe('degenerate systems: correct output, never a crash', () => {
   });
 
   it('a boundary lying exactly on the domain edge', () => {
-    // Fe/Fe+2 at a = 1e-6 is E = −0.5864 V (DESIGN §2 worked example); put the domain's lower edge there.
+    // Fe/Fe+2 at a = 1e-6 is E = −0.5864 V (from the library's data); put the domain's lower edge there.
     const E0 = psiHand(FE2, 0, 0) / (2 * F / 1000);
     const input = system([FE, FE2, HFEO2], [0, 14], [E0, E0 + 1]);
     checkInvariants(input, solve(input));
