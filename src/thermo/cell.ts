@@ -213,15 +213,10 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
   return { parsed, kind, n, nFrom, sense, resolved, species, warnings };
 }
 
-/** Evaluates a prepared reaction at `celsius` (see module comment for the formulas). */
-export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH'> = {}): CellResult {
-  if (!Number.isFinite(celsius) || celsius <= -KELVIN) throw new ReactionError(p.parsed.text, 'a temperature in °C above −273.15', String(celsius));
-  const mode = opts.extrapolation ?? 'cp';
+/** Step 1: ΔrG (kJ/mol), ΔrH (kJ/mol) and ΔrS (J/(mol·K)) at T, with the data-coverage warnings. */
+function reactionEnergies(p: Prepared, celsius: number, mode: Extrapolation, warnings: string[]): { dG: number; dH: number | null; dS: number | null } {
   const T = celsius + KELVIN;
   const at25 = Math.abs(T - T_REF) < 1e-9;
-  const warnings = [...p.warnings];
-  if (celsius < 0 || celsius > 300) warnings.push(`${celsius} °C is outside 0–300 °C, where the data extrapolation is meant to hold`);
-
   let dG = 0;
   let dH: number | null = 0;
   let dS: number | null = 0;
@@ -261,72 +256,93 @@ export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOption
       warnings.push(`constant ΔrH and ΔrS used ${Math.abs(celsius - 25).toFixed(0)} K from 25 °C: expect errors of some mV`);
     }
   }
+  return { dG, dH, dS };
+}
 
+type Potentials = Pick<CellResult, 'equilibriumPotential' | 'thermoneutralPotential' | 'dEdT' | 'signed' | 'direction'>;
+
+/** Step 2: potentials from the energies (module comment: half-reaction vs full reaction). */
+function potentials(p: Prepared, dG: number, dH: number | null, dS: number | null): Potentials {
   const nF = (p.n * F) / 1000; // kJ/(mol·V)
-  const dHv = dH;
-  const dSv = dS;
-  let E: number;
-  let Etn: number | null;
-  let slope: number | null;
-  let signed: CellResult['signed'];
-  let direction: CellDirection;
   if (p.kind === 'half') {
     // Reduction direction: ΔG_red = sense·ΔG.
-    E = (-p.sense * dG) / nF;
-    Etn = dHv === null ? null : (-p.sense * dHv) / nF;
-    slope = dSv === null ? null : (p.sense * dSv) / (p.n * F);
-    signed = { equilibriumPotential: E, thermoneutralPotential: Etn, dEdT: slope };
-    direction = p.sense > 0 ? 'reduction' : 'oxidation';
-  } else {
-    direction = dG > 0 ? 'electrolytic' : 'galvanic';
-    const s = direction === 'electrolytic' ? 1 : -1;
-    E = (s * dG) / nF;
-    Etn = dHv === null ? null : (s * dHv) / nF;
-    slope = dSv === null ? null : (-s * dSv) / (p.n * F);
-    signed = {
-      equilibriumPotential: -dG / nF,
-      thermoneutralPotential: dHv === null ? null : -dHv / nF,
-      dEdT: dSv === null ? null : dSv / (p.n * F),
+    const E = (-p.sense * dG) / nF;
+    const Etn = dH === null ? null : (-p.sense * dH) / nF;
+    const slope = dS === null ? null : (p.sense * dS) / (p.n * F);
+    return {
+      equilibriumPotential: E,
+      thermoneutralPotential: Etn,
+      dEdT: slope,
+      signed: { equilibriumPotential: E, thermoneutralPotential: Etn, dEdT: slope },
+      direction: p.sense > 0 ? 'reduction' : 'oxidation',
     };
   }
+  const direction: CellDirection = dG > 0 ? 'electrolytic' : 'galvanic';
+  const s = direction === 'electrolytic' ? 1 : -1;
+  return {
+    equilibriumPotential: (s * dG) / nF,
+    thermoneutralPotential: dH === null ? null : (s * dH) / nF,
+    dEdT: dS === null ? null : (-s * dS) / (p.n * F),
+    signed: {
+      equilibriumPotential: -dG / nF,
+      thermoneutralPotential: dH === null ? null : -dH / nF,
+      dEdT: dS === null ? null : dS / (p.n * F),
+    },
+    direction,
+  };
+}
+
+/** Step 3: half-reaction potentials against a reference electrode (E_ref = E_SHE − offset). */
+function againstReference(p: Prepared, result: CellResult, celsius: number, opts: Pick<CellOptions, 'reference' | 'pH'>): void {
+  if (opts.reference === undefined) return;
+  if (p.kind !== 'half') {
+    result.warnings.push('a reference electrode applies to half-reactions only; the cell voltage does not depend on it');
+    return;
+  }
+  let ref;
+  try {
+    ref = referenceOffset(opts.reference, celsius, opts.pH);
+  } catch (e) {
+    throw new ReactionError(p.parsed.text, 'a known reference electrode (and the pH for RHE)', (e as Error).message, 'reference');
+  }
+  result.warnings.push(...ref.warnings);
+  const Etn = result.thermoneutralPotential;
+  result.reference = {
+    label: ref.label,
+    offset: ref.offset,
+    equilibriumPotential: result.equilibriumPotential - ref.offset,
+    thermoneutralPotential: Etn === null ? null : Etn - ref.offset,
+  };
+}
+
+/** Evaluates a prepared reaction at `celsius` (see module comment for the formulas). */
+export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH'> = {}): CellResult {
+  if (!Number.isFinite(celsius) || celsius <= -KELVIN) throw new ReactionError(p.parsed.text, 'a temperature in °C above −273.15', String(celsius));
+  const mode = opts.extrapolation ?? 'cp';
+  const warnings = [...p.warnings];
+  if (celsius < 0 || celsius > 300) warnings.push(`${celsius} °C is outside 0–300 °C, where the data extrapolation is meant to hold`);
+  const { dG, dH, dS } = reactionEnergies(p, celsius, mode, warnings);
+  const pot = potentials(p, dG, dH, dS);
   const result: CellResult = {
     reaction: p.parsed.text,
     kind: p.kind,
-    temperature: { celsius, kelvin: T },
+    temperature: { celsius, kelvin: celsius + KELVIN },
     n: p.n,
     nFrom: p.nFrom,
     deltaG: dG,
-    deltaH: dHv,
-    deltaS: dSv,
-    equilibriumPotential: E,
-    thermoneutralPotential: Etn,
-    dEdT: slope,
-    direction,
+    deltaH: dH,
+    deltaS: dS,
+    equilibriumPotential: pot.equilibriumPotential,
+    thermoneutralPotential: pot.thermoneutralPotential,
+    dEdT: pot.dEdT,
+    direction: pot.direction,
     scale: p.kind === 'half' ? 'V vs SHE' : 'V (cell voltage)',
     convention: p.kind === 'half' ? HALF_CONVENTION : FULL_CONVENTION,
-    signed,
+    signed: pot.signed,
     species: p.species,
     warnings,
   };
-  if (opts.reference !== undefined) {
-    if (p.kind === 'half') {
-      let ref;
-      try {
-        ref = referenceOffset(opts.reference, celsius, opts.pH);
-      } catch (e) {
-        throw new ReactionError(p.parsed.text, 'a known reference electrode (and the pH for RHE)', (e as Error).message, 'reference');
-      }
-      warnings.push(...ref.warnings);
-      result.reference = {
-        label: ref.label,
-        offset: ref.offset,
-        equilibriumPotential: E - ref.offset,
-        thermoneutralPotential: Etn === null ? null : Etn - ref.offset,
-      };
-    } else {
-      warnings.push('a reference electrode applies to half-reactions only; the cell voltage does not depend on it');
-    }
-  }
+  againstReference(p, result, celsius, opts);
   return result;
 }
 
