@@ -4,10 +4,10 @@
  */
 import { extname } from 'node:path';
 import type { Command } from 'commander';
-import { type FigureOverrides, figureSettings } from '../figure/options.js';
+import type { FigureOverrides } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 import { loadSpec } from '../pipeline.js';
-import { computeLayers, layerSpecs, overlayFigure } from '../figure/overlay.js';
+import { computeLayers, layerSpecs, layerWarnings, overlayFigure, overlaySettings } from '../figure/overlay.js';
 import { InputError } from '../system/errors.js';
 import { writeAtomic } from '../io/write.js';
 
@@ -21,8 +21,6 @@ export function numberList(v: string, option: string, what: string): number[] {
     return n;
   });
 }
-
-const OVERLAY_WIDTH = '160mm';
 
 interface OverlayOpts extends FigureOverrides {
   output: string;
@@ -51,20 +49,8 @@ export function registerOverlay(program: Command): void {
       const activities = opts.activities === undefined ? undefined : numberList(opts.activities, '--activities', 'activities');
       const specs = files.map((f) => loadSpec(f));
       const layers = computeLayers(layerSpecs({ specs, temperatures, activities }));
-      const figure = layers[0].spec.extra.figure;
-      const fileWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
-      // Overlays carry a longer legend and caption: 160 mm wide unless the file or --width says otherwise.
-      const fig = figureSettings(layers[0].spec, opts.width === undefined && !fileWidth ? { ...opts, width: OVERLAY_WIDTH } : opts);
-      // The first file's own title describes one layer, not the overlay: title from the layers unless --title.
-      if (opts.title === undefined) fig.options.title = undefined;
-      const seen = new Set<string>();
-      for (const l of layers) {
-        for (const w of l.model.warnings) {
-          const msg = `${l.model.element} ${l.model.temperature.celsius} °C: ${w}`;
-          if (!seen.has(msg)) process.stderr.write(`warning: ${msg}\n`);
-          seen.add(msg);
-        }
-      }
+      const fig = overlaySettings(layers, opts);
+      for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
       const { input } = overlayFigure(layers, fig, ext === 'pdf');
       writeAtomic(opts.output, await renderFigure(input, ext as FigureFormat));
       process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);

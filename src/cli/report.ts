@@ -8,7 +8,7 @@ import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { captionLines, figureInput } from '../figure/compose.js';
-import { figureSettings } from '../figure/options.js';
+import { figureSettingsWidth } from '../figure/options.js';
 import { compute } from '../pipeline.js';
 import { reportData } from '../report/report-data.js';
 import { reportHtml } from '../report/report-html.js';
@@ -37,9 +37,7 @@ export function registerReport(program: Command): void {
       }
       const fmt = ext as ReportFormat;
       const spec = loadSpecWith(file, opts);
-      const figure = spec.extra.figure;
-      const hasWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
-      const fig = figureSettings(spec, hasWidth ? {} : { width: REPORT_WIDTH });
+      const fig = figureSettingsWidth(spec, {}, REPORT_WIDTH);
       const c = compute(spec);
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
       const data = reportData(c);

@@ -123,3 +123,14 @@ function lengthCli(c: Fields, v: string, opt: string): number {
   if (!(mm! >= min && mm! <= 1000)) c.fail(opt, `a length from ${min} mm to 1000 mm`, v);
   return mm!;
 }
+
+/**
+ * Figure settings where the command sets its own default width (e.g. 160 mm for reports and
+ * overlays, which carry longer legends and captions): used unless the system file's figure.width
+ * or the --width option gives one.
+ */
+export function figureSettingsWidth(spec: SystemSpec, cli: FigureOverrides, width: string): FigureSettings {
+  const figure = spec.extra.figure;
+  const fileWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
+  return figureSettings(spec, cli.width === undefined && !fileWidth ? { ...cli, width } : cli);
+}

@@ -8,7 +8,7 @@
  * their own colour-blind-safe line colours (LAYER_INKS).
  */
 import { atActivity, captionLines, figureInput } from './compose.js';
-import type { FigureSettings } from './options.js';
+import { type FigureOverrides, type FigureSettings, figureSettingsWidth } from './options.js';
 import { compute, type Computed } from '../pipeline.js';
 import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
 import type { FigureInput } from '../render/scene.js';
@@ -141,6 +141,32 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
     layers: layers.map((l, k) => ({ label: labels[k], dash: k === 0 ? null : OVERLAY_DASHES[k - 1], computed: l })),
     sameElement,
   };
+}
+
+/** Overlays carry a longer legend and caption: 160 mm wide unless the file or --width says otherwise. */
+const OVERLAY_WIDTH = '160mm';
+
+/**
+ * Figure settings of an overlay: the base layer's file with the command-line overrides, 160 mm
+ * wide by default; the first file's own title describes one layer, not the overlay, so the title
+ * comes from the layers unless --title gives one.
+ */
+export function overlaySettings(layers: Computed[], cli: FigureOverrides): FigureSettings {
+  const fig = figureSettingsWidth(layers[0].spec, cli, OVERLAY_WIDTH);
+  if (cli.title === undefined) fig.options.title = undefined;
+  return fig;
+}
+
+/** Every layer's warnings, each prefixed with its layer ("Fe 90 °C: …"), each once, in layer order. */
+export function layerWarnings(layers: Computed[]): string[] {
+  const out: string[] = [];
+  for (const l of layers) {
+    for (const w of l.model.warnings) {
+      const msg = `${l.model.element} ${l.model.temperature.celsius} °C: ${w}`;
+      if (!out.includes(msg)) out.push(msg);
+    }
+  }
+  return out;
 }
 
 /** Computes every layer (base first). */
