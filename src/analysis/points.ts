@@ -38,6 +38,25 @@ export function toShe(
   return { E: E + r.offset, ref: { label: r.label, E, offset: r.offset }, warnings: r.warnings };
 }
 
+/** A reference electrode for display (a second axis, line equations): a constant offset at T. */
+export interface DisplayedReference {
+  id: string;
+  label: string;
+  /** E_SHE − E_ref at T, V. */
+  offset: number;
+  warnings: string[];
+}
+
+/**
+ * The offset of a reference electrode at `celsius` for display. The RHE moves with pH, so it has
+ * no single offset: InputError naming `file` and `field`.
+ */
+export function displayReference(ref: string | CustomReference, celsius: number, file: string, field: string): DisplayedReference {
+  if (ref === 'rhe') throw new InputError(file, field, 'an electrode with a fixed potential (the RHE moves with pH; use probe --ref rhe)', 'rhe');
+  const r = referenceOffset(ref, celsius);
+  return { id: typeof ref === 'string' ? ref : 'custom', label: r.label, offset: r.offset, warnings: r.warnings };
+}
+
 export interface ReportPoint {
   label: string;
   pH: number;

@@ -4,7 +4,7 @@
 import { extname } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
-import { figureInput } from '../figure/compose.js';
+import { windowFigureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 import { compute } from '../pipeline.js';
@@ -34,9 +34,7 @@ export function registerWindow(program: Command): void {
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
       const r = platingWindow(c.model);
       if (opts.output && fmt) {
-        const input = figureInput(c, fig);
-        input.boxes = r.windows.map((w) => ({ label: 'plating window', pH: w.pH, E: c.model.domain.E }));
-        writeAtomic(opts.output, await renderFigure(input, fmt));
+        writeAtomic(opts.output, await renderFigure(windowFigureInput(c, fig, r.windows), fmt));
       }
       const head = windowHeading(c.model);
       if (opts.json) process.stdout.write(stableJson(r));

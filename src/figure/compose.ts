@@ -7,6 +7,7 @@ import type { SystemSpec } from '../system/spec.js';
 import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
+import type { DisplayedReference } from '../analysis/points.js';
 import { referenceOffset } from '../thermo/reference.js';
 import { fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
 
@@ -62,5 +63,22 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
   if (fig.families.length) {
     input.families = fig.families.map((a) => ({ activity: a, boundaries: familyBoundaries(c, a) }));
   }
+  return input;
+}
+
+/**
+ * A second potential axis against a reference electrode: on the figure, and named in the model
+ * (its `reference` key) with the electrode's warnings.
+ */
+export function withSecondAxis(c: Computed, fig: FigureSettings, r: DisplayedReference): void {
+  fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
+  c.model.reference = { id: r.id, label: r.label, offset: r.offset };
+  c.model.warnings.push(...r.warnings);
+}
+
+/** Figure input with the plating windows drawn as boxes over the full potential range. */
+export function windowFigureInput(c: Computed, fig: FigureSettings, windows: readonly { pH: [number, number] }[]): FigureInput {
+  const input = figureInput(c, fig);
+  input.boxes = windows.map((w) => ({ label: 'plating window', pH: w.pH, E: c.model.domain.E }));
   return input;
 }
