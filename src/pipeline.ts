@@ -1,8 +1,8 @@
 /**
- * The one-way pipeline (DESIGN §1): file → spec → species at T → solution → diagram model.
+ * The one-way pipeline: file → spec → species at T → solution → diagram model.
  */
 import { buildModel } from './diagram/build.js';
-import type { DiagramModel } from './model.js';
+import type { BoundaryModel, DiagramModel } from './model.js';
 import { solve, type Solution } from './solve/solve.js';
 import { gridMap } from './solve/grid.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
@@ -50,6 +50,33 @@ export function compute(spec: SystemSpec): Computed {
     if (!model.species.some((x) => x.formula === k)) throw new InputError(spec.file, `classes.${k}`, 'a formula of a species in the system', JSON.stringify(k));
   }
   return { spec, built, solution, model };
+}
+
+/**
+ * Boundaries of the same system with every dissolved species of the element that follows the
+ * system's amount at activity `a` (an activity, no γ correction) — the lines of an activity family.
+ * Equal to compute(atActivity(spec, a)).model.boundaries, but solves once on the already built
+ * system with only those species' activities changed (no new species resolution, water state or
+ * grid check).
+ */
+export function familyBoundaries(c: Computed, a: number): BoundaryModel[] {
+  const { input } = c.built;
+  const logA = Math.log10(a);
+  const species = input.species.map((sp, k) => {
+    if (!c.built.followsAmount[k]) return sp;
+    const { logGamma: _g, molality: _m, ...rest } = sp;
+    return { ...rest, logActivity: logA, activity: a };
+  });
+  const varied = { ...input, species };
+  const model = buildModel(varied, solve(varied), {
+    activity: a,
+    ligands: c.spec.ligands,
+    sources: c.built.sources,
+    warnings: [],
+    water: waterSummary(c.built),
+    classes: c.spec.operating.classes,
+  });
+  return model.boundaries;
 }
 
 export function computeFile(path: string): Computed {

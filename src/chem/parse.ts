@@ -24,6 +24,7 @@
  * dot: `CuSO4.5H2O` = CuSO4·5H2O. Write a decimal count with integer part ≥ 1 followed by more
  * atoms inside brackets: `(Ni1.5)Fe`. `formulaAscii` and `formatFormula` do so automatically.
  */
+import { EXIT, EphmapError, type ExitStatus } from '../errors.js';
 import { isElement } from './elements.js';
 import { MINUS_SIGN, SUP_PLUS, isSubDigit, isSupDigit, isSupSign, subDigit, supDigit } from './scripts.js';
 
@@ -52,7 +53,9 @@ export interface FormulaToken {
 }
 
 /** A formula text that does not follow the grammar. `position` is 1-based (length + 1 = end of text). */
-export class FormulaError extends Error {
+export class FormulaError extends EphmapError {
+  readonly code = 'formula';
+  readonly exitStatus: ExitStatus = EXIT.input;
   readonly text: string;
   readonly position: number;
   readonly expected: string;

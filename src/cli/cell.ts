@@ -4,14 +4,13 @@
  */
 import type { Command } from 'commander';
 import { numberArg } from './args.js';
-import { cellReaction, cellTable, ReactionError, temperatureSteps, type CellResult, type SpeciesLookup } from '../report/cell.js';
+import { cellReaction, cellTable, temperatureSteps, type CellResult, type SpeciesLookup } from '../thermo/cell.js';
+import { ReactionError, type ReactionSubject } from '../chem/reaction-parse.js';
 import { cellText } from '../report/cell-format.js';
 import { stableJson } from '../report/json.js';
 import { InputError } from '../system/errors.js';
 import { listReferences } from '../thermo/reference.js';
-import { parseFormula } from '../chem/formula.js';
-import { readSystemFile } from '../system/read.js';
-import { readSpec } from '../system/spec.js';
+import { fileLookup } from '../system/lookup.js';
 import type { Extrapolation } from '../thermo/gibbs.js';
 
 export interface CellDeps {
@@ -31,19 +30,10 @@ interface CellCliOptions {
   species?: string;
 }
 
-/** Species of a system file's inline list (with data) first, then the fallback lookup. */
-function fileLookup(path: string, fallback: SpeciesLookup): SpeciesLookup {
-  const spec = readSpec(readSystemFile(path), path);
-  const inline = (spec.species ?? []).filter((x) => !x.fromLibrary && x.dfG !== undefined);
-  return (formula, phase) => {
-    const hit = inline.find((x) => x.formula === formula && (phase === undefined || x.phase === phase));
-    if (!hit) return fallback(formula, phase);
-    const f = parseFormula(hit.formula);
-    return { dfG: hit.dfG!, dfH: hit.dfH, S: hit.S, Cp: hit.Cp, elements: f.elements, charge: f.charge, phase: hit.phase, source: hit.source ?? path };
-  };
-}
-
 const CLI = 'command line';
+
+/** The argument or option a reaction error is about. */
+const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--reference' };
 
 const num = numberArg;
 
@@ -96,10 +86,7 @@ export function registerCell(program: Command, deps: CellDeps): void {
           ? [cellReaction(reaction, { ...cellOpts, celsius: temperatures[0] })]
           : cellTable(reaction, temperatures, cellOpts);
       } catch (e) {
-        if (e instanceof ReactionError) {
-          const field = /reference electrode/.test(e.expected) ? '--reference' : /electron\(s\) written/.test(e.expected) ? '--electrons' : 'REACTION';
-          throw new InputError(CLI, field, e.expected, e.got);
-        }
+        if (e instanceof ReactionError) throw new InputError(CLI, REACTION_FIELD[e.subject], e.expected, e.got);
         throw e;
       }
       if (opts.json) out(stableJson(rows.length === 1 && opts.range === undefined ? rows[0] : { reaction: rows[0]!.reaction, rows }));

@@ -8,14 +8,14 @@ import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-option
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
-import { writeAtomic } from './write.js';
+import { writeAtomic } from '../io/write.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
-import { referenceOffset } from '../thermo/reference.js';
+import { displayReference } from '../analysis/points.js';
 import { isElement } from '../chem/elements.js';
 import { loadLibrary } from '../data/library.js';
 import { catalogEntries, catalogText } from '../report/catalog.js';
-import { figureInput } from '../figure/compose.js';
+import { figureInput, withSecondAxis } from '../figure/compose.js';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 
@@ -58,10 +58,7 @@ export function registerCore(program: Command): void {
       const fig = figureSettings(spec, opts);
       const c = compute(spec);
       if (opts.ref !== undefined) {
-        const r = displayReference(opts.ref, spec.temperature);
-        fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
-        c.model.reference = { id: r.id, label: r.label, offset: r.offset };
-        c.model.warnings.push(...r.warnings);
+        withSecondAxis(c, fig, displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), spec.temperature, 'command line', '--ref'));
       }
       warn(c.model.warnings);
       const data = ext === 'json' ? stableJson(c.model) : await renderFigure(figureInput(c, fig), ext as FigureFormat);
@@ -77,21 +74,13 @@ export function registerCore(program: Command): void {
     .option('--ref <name>', 'also give each line against this reference electrode (sce, agcl-sat, cse, ...)')
     .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
       const c = compute(loadSpecWith(file, opts));
-      const ref = opts.ref === undefined ? undefined : displayReference(opts.ref, c.spec.temperature);
+      const ref = opts.ref === undefined ? undefined : displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), c.spec.temperature, 'command line', '--ref');
       warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
       const rows = lineRows(c.model, ref);
       if (opts.json) {
         process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, ...(ref ? { reference: { id: ref.id, label: ref.label, offset: ref.offset } } : {}), lines: rows, waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water }));
       } else process.stdout.write(linesText(c.model, ref));
     });
-}
-
-/** A reference electrode for display (axis or equations): a constant offset at T (not the RHE). */
-function displayReference(name: string, celsius: number): { id: string; label: string; offset: number; warnings: string[] } {
-  const ref = readReference(new Fields('command line'), name, '--ref');
-  if (ref === 'rhe') throw new InputError('command line', '--ref', 'an electrode with a fixed potential (the RHE moves with pH; use probe --ref rhe)', 'rhe');
-  const r = referenceOffset(ref, celsius);
-  return { id: typeof ref === 'string' ? ref : 'custom', label: r.label, offset: r.offset, warnings: r.warnings };
 }
 
 export function registerCatalog(program: Command): void {

@@ -10,7 +10,7 @@ import { renderFigure } from '../figure/output.js';
 import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { readSpec } from '../system/spec.js';
-import { writeAtomic } from './write.js';
+import { writeAtomic } from '../io/write.js';
 
 export const DEMO_SYSTEMS: { name: string; data: Record<string, unknown> }[] = [
   { name: 'iron-25C', data: { element: 'Fe', activity: 1e-6, E: [-1.2, 1.6], title: 'Iron–water, 25 °C' } },

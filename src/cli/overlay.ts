@@ -4,13 +4,12 @@
  */
 import { extname } from 'node:path';
 import type { Command } from 'commander';
-import { type FigureOverrides, figureSettings } from '../figure/options.js';
+import type { FigureOverrides } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 import { loadSpec } from '../pipeline.js';
-import type { FigureInput } from '../render/scene.js';
-import { computeLayers, layerSpecs, overlayFigure } from '../report/overlay.js';
+import { computeLayers, layerSpecs, layerWarnings, overlayFigure, overlaySettings } from '../figure/overlay.js';
 import { InputError } from '../system/errors.js';
-import { writeAtomic } from './write.js';
+import { writeAtomic } from '../io/write.js';
 
 /** "25,90,150" → [25, 90, 150]; InputError naming the option for anything that is not a number list. */
 export function numberList(v: string, option: string, what: string): number[] {
@@ -21,18 +20,6 @@ export function numberList(v: string, option: string, what: string): number[] {
     if (x === '' || !Number.isFinite(n)) throw new InputError('command line', option, `a comma-separated list of ${what}, e.g. ${option === '--temperatures' ? '25,90,150' : '1e-6,1e-4'}`, JSON.stringify(v));
     return n;
   });
-}
-
-const OVERLAY_WIDTH = '160mm';
-
-/** Renders; a figure too small for its plot, legend and caption is a user mistake (exit 2). */
-export async function renderChecked(input: FigureInput, fmt: FigureFormat): Promise<string | Uint8Array> {
-  try {
-    return await renderFigure(input, fmt);
-  } catch (e) {
-    if (e instanceof Error && /too small/.test(e.message)) throw new InputError('command line', '--width/--height', `a larger figure (${e.message})`);
-    throw e;
-  }
 }
 
 interface OverlayOpts extends FigureOverrides {
@@ -62,22 +49,10 @@ export function registerOverlay(program: Command): void {
       const activities = opts.activities === undefined ? undefined : numberList(opts.activities, '--activities', 'activities');
       const specs = files.map((f) => loadSpec(f));
       const layers = computeLayers(layerSpecs({ specs, temperatures, activities }));
-      const figure = layers[0].spec.extra.figure;
-      const fileWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
-      // Overlays carry a longer legend and caption: 160 mm wide unless the file or --width says otherwise.
-      const fig = figureSettings(layers[0].spec, opts.width === undefined && !fileWidth ? { ...opts, width: OVERLAY_WIDTH } : opts);
-      // The first file's own title describes one layer, not the overlay: title from the layers unless --title.
-      if (opts.title === undefined) fig.options.title = undefined;
-      const seen = new Set<string>();
-      for (const l of layers) {
-        for (const w of l.model.warnings) {
-          const msg = `${l.model.element} ${l.model.temperature.celsius} °C: ${w}`;
-          if (!seen.has(msg)) process.stderr.write(`warning: ${msg}\n`);
-          seen.add(msg);
-        }
-      }
+      const fig = overlaySettings(layers, opts);
+      for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
       const { input } = overlayFigure(layers, fig, ext === 'pdf');
-      writeAtomic(opts.output, await renderChecked(input, ext as FigureFormat));
+      writeAtomic(opts.output, await renderFigure(input, ext as FigureFormat));
       process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);
     });
 }

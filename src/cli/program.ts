@@ -1,9 +1,10 @@
 /**
- * ephmap command line: verbs over the pipeline. User mistakes (InputError) print one message and
- * exit 2 without writing anything; anything else is an internal error (exit 1).
+ * ephmap command line: verbs over the pipeline. Typed errors (src/errors.ts) print one message and
+ * exit with their class's status (input 2, output 3) without writing anything; anything else is an
+ * internal error (exit 1).
  */
 import { Command, CommanderError } from 'commander';
-import { InputError } from '../system/errors.js';
+import { EphmapError, exitStatusOf, type ExitStatus } from '../errors.js';
 import { registerCatalog, registerCore } from './core.js';
 import { registerDemo } from './demo.js';
 import { registerWindow } from './window.js';
@@ -11,25 +12,15 @@ import { registerProbe } from './probe.js';
 import { registerCell } from './cell.js';
 import { registerReport } from './report.js';
 import { registerOverlay } from './overlay.js';
-import { findAllSpecies, loadLibrary } from '../data/library.js';
-import type { SpeciesLookup } from '../report/cell.js';
-
-/** Species for `cell` from the built-in library: by formula and phase (a default phase when none is given). */
-const libraryLookup: SpeciesLookup = (formula, phase) => {
-  const key = phase ? `${formula}(${phase})` : formula;
-  const hits = findAllSpecies(loadLibrary(), key);
-  const pref = ['s', 'l', 'aq', 'g'];
-  const hit = [...hits].sort((a, b) => pref.indexOf(a.phase) - pref.indexOf(b.phase))[0];
-  if (!hit) return undefined;
-  return { dfG: hit.dfG, dfH: hit.dfH, S: hit.S, Cp: hit.Cp, elements: hit.elements, charge: hit.charge, phase: hit.phase, source: hit.sourceText };
-};
+import { libraryLookup } from '../system/lookup.js';
+import { VERSION } from '../version.js';
 
 export function makeProgram(): Command {
   const program = new Command();
   program
     .name('ephmap')
     .description('Potential–pH stability diagrams: exact regions, balanced reactions, answers at a point.\nEquilibrium thermodynamics only — not kinetics.')
-    .version('0.1.0')
+    .version(VERSION)
     .exitOverride()
     .configureOutput({ writeErr: (s) => process.stderr.write(s) });
   registerCore(program);
@@ -53,13 +44,23 @@ export async function run(argv: string[]): Promise<number> {
       if (e.code === 'commander.helpDisplayed' || e.code === 'commander.version' || e.exitCode === 0) return 0;
       return 2;
     }
-    if (e instanceof InputError) {
-      process.stderr.write(`ephmap: ${e.message}\n`);
-      return 2;
-    }
-    process.stderr.write(`ephmap: internal error: ${(e as Error)?.message ?? String(e)}\n`);
-    if (process.env.EPHMAP_DEBUG) process.stderr.write(`${(e as Error)?.stack}\n`);
-    return 1;
+    return reportError(e);
   }
+}
+
+/**
+ * Prints a thrown value and returns the exit status: any EphmapError by its class (its message,
+ * its own exit status — input 2, output 3, …); anything else is an internal error (exit 1, stack
+ * with EPHMAP_DEBUG set). Never looks at message text.
+ */
+export function reportError(e: unknown, write: (s: string) => void = (s) => void process.stderr.write(s)): ExitStatus {
+  const status = exitStatusOf(e);
+  if (e instanceof EphmapError) {
+    write(`ephmap: ${e.message}\n`);
+    return status;
+  }
+  write(`ephmap: internal error: ${(e as Error)?.message ?? String(e)}\n`);
+  if (process.env.EPHMAP_DEBUG) write(`${(e as Error)?.stack}\n`);
+  return status;
 }
 

@@ -8,15 +8,15 @@ import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { captionLines, figureInput } from '../figure/compose.js';
-import { figureSettings } from '../figure/options.js';
+import { figureSettingsWidth } from '../figure/options.js';
 import { compute } from '../pipeline.js';
 import { reportData } from '../report/report-data.js';
 import { reportHtml } from '../report/report-html.js';
 import { reportMarkdown } from '../report/report-md.js';
 import { InputError } from '../system/errors.js';
-import { renderChecked } from './overlay.js';
+import { renderFigure } from '../figure/output.js';
 import { buildScene } from '../render/scene.js';
-import { writeAtomic } from './write.js';
+import { writeAtomic } from '../io/write.js';
 
 const REPORT_FORMATS = ['md', 'html', 'pdf'] as const;
 type ReportFormat = (typeof REPORT_FORMATS)[number];
@@ -37,9 +37,7 @@ export function registerReport(program: Command): void {
       }
       const fmt = ext as ReportFormat;
       const spec = loadSpecWith(file, opts);
-      const figure = spec.extra.figure;
-      const hasWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
-      const fig = figureSettings(spec, hasWidth ? {} : { width: REPORT_WIDTH });
+      const fig = figureSettingsWidth(spec, {}, REPORT_WIDTH);
       const c = compute(spec);
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
       const data = reportData(c);
@@ -47,7 +45,7 @@ export function registerReport(program: Command): void {
       const caption = captionLines(c);
       if (fmt === 'md') {
         const svgName = `${basename(opts.output, extname(opts.output))}.svg`;
-        const svg = (await renderChecked(input, 'svg')) as string;
+        const svg = (await renderFigure(input, 'svg')) as string;
         const md = reportMarkdown(data, svgName, caption);
         const svgPath = join(dirname(opts.output), svgName);
         writeAtomic(svgPath, svg);
@@ -56,18 +54,12 @@ export function registerReport(program: Command): void {
         return;
       }
       if (fmt === 'html') {
-        const svg = (await renderChecked(input, 'svg')) as string;
+        const svg = (await renderFigure(input, 'svg')) as string;
         writeAtomic(opts.output, reportHtml(data, svg, caption));
       } else {
         // Vector figure; its caption is printed under it by the report, so the figure omits its own.
         const noCaption = { ...input, options: { ...input.options, show: { ...input.options.show, caption: false } } };
-        let scene;
-        try {
-          scene = buildScene(noCaption);
-        } catch (e) {
-          if (e instanceof Error && /too small/.test(e.message)) throw new InputError('command line', '--width/--height', `a larger figure (${e.message})`);
-          throw e;
-        }
+        const scene = buildScene(noCaption);
         const { reportPdf } = await import('../report/report-pdf.js');
         writeAtomic(opts.output, await reportPdf(data, scene, { width: fig.options.width, height: fig.options.height }, caption));
       }

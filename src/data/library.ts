@@ -12,6 +12,7 @@
  * Every file is validated when loaded; any problem throws a LibraryError naming the file and field.
  * This module only reads and checks data: it computes no thermodynamics.
  */
+import { EXIT, EphmapError, type ExitStatus } from '../errors.js';
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -93,8 +94,10 @@ export interface LibrarySpecies extends SpeciesRecord {
   mixed?: true;
 }
 
-/** A species file (or the library as a whole) breaks the format. */
-export class LibraryError extends Error {
+/** A species file (or the library as a whole) breaks the format (input error, exit status 2). */
+export class LibraryError extends EphmapError {
+  readonly code = 'library';
+  readonly exitStatus: ExitStatus = EXIT.input;
   readonly file: string;
   readonly field: string;
   constructor(file: string, field: string, message: string) {

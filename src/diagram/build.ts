@@ -7,8 +7,8 @@ import type { SolverInput, SolverSpecies } from '../solve/types.js';
 import { KELVIN } from '../thermo/constants.js';
 import { classify } from './classify.js';
 import { type Verdict, verdictOf } from './verdict.js';
+import { VERSION } from '../version.js';
 
-export const VERSION = '0.1.0';
 
 function summary(element: string, sp: SolverSpecies, role: 'main' | 'ligand'): SpeciesSummary {
   const s: SpeciesSummary = {

@@ -4,22 +4,12 @@
  */
 import type { Computed } from '../pipeline.js';
 import type { SystemSpec } from '../system/spec.js';
-import { compute } from '../pipeline.js';
+import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
+import type { DisplayedReference } from '../analysis/points.js';
 import { referenceOffset } from '../thermo/reference.js';
-
-const SUP: Record<string, string> = { '-': '\u207b', '0': '\u2070', '1': '\u00b9', '2': '\u00b2', '3': '\u00b3', '4': '\u2074', '5': '\u2075', '6': '\u2076', '7': '\u2077', '8': '\u2078', '9': '\u2079' };
-
-/** 1e-6 → "10⁻⁶"; other values as three significant digits. */
-export function powerOfTen(a: number): string {
-  const e = Math.log10(a);
-  if (Math.abs(e - Math.round(e)) < 1e-9) {
-    const k = Math.round(e);
-    return k === 0 ? '1' : `10${[...String(k)].map((ch) => SUP[ch]).join('')}`;
-  }
-  return a.toPrecision(3);
-}
+import { fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
 
 const sup = powerOfTen;
 
@@ -28,7 +18,7 @@ export function captionLines(c: Computed): string[] {
   const corrected = m.species.some((x) => x.role === 'main' && x.molality !== undefined);
   const lig = Object.entries(m.ligands).map(([k, v]) => `${k} ${sup(v)}`);
   const lines = [
-    `${m.element}–H\u2082O${lig.length ? `–${Object.keys(m.ligands).join('–')}` : ''} at ${fmtT(m.temperature.celsius)} °C; dissolved ${m.element} ${corrected ? `${sup(m.activity)} mol/kg` : `activity ${sup(m.activity)}`}` +
+    `${m.element}–H\u2082O${lig.length ? `–${Object.keys(m.ligands).join('–')}` : ''} at ${fmtCelsius(m.temperature.celsius)} °C; dissolved ${m.element} ${corrected ? `${sup(m.activity)} mol/kg` : `activity ${sup(m.activity)}`}` +
       (lig.length ? `; ligand totals ${lig.join(', ')}` : '') +
       `; p(H\u2082) = ${m.waterLines.pressures.H2} bar, p(O\u2082) = ${m.waterLines.pressures.O2} bar.`,
   ];
@@ -43,19 +33,6 @@ export function captionLines(c: Computed): string[] {
   const short = m.sources.map(shortSource).filter((s, k, a) => a.indexOf(s) === k);
   if (short.length) lines.push(`Data: ${short.join('; ')}.`);
   return lines;
-}
-
-function fmtT(t: number): string {
-  return Number.isInteger(t) ? String(t) : t.toFixed(1);
-}
-
-/** "Wagman D.D., Evans W.H., … (1982) The NBS tables …" → "Wagman et al. 1982". */
-export function shortSource(s: string): string {
-  const year = /\((\d{4})\)/.exec(s)?.[1] ?? /\b(19|20)\d{2}\b/.exec(s)?.[0];
-  const first = s.split(/[ ,]/)[0];
-  if (!first) return s.slice(0, 40);
-  const many = (s.match(/,/g) ?? []).length > 2 && /[A-Z]\.,/.test(s);
-  return `${first}${many ? ' et al.' : ''}${year ? ` ${year}` : ''}`;
 }
 
 /** The same system with every dissolved species of the element at activity a (as an activity, no γ). */
@@ -84,7 +61,24 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
     input.options = fig.options;
   }
   if (fig.families.length) {
-    input.families = fig.families.map((a) => ({ activity: a, boundaries: compute(atActivity(c.spec, a)).model.boundaries }));
+    input.families = fig.families.map((a) => ({ activity: a, boundaries: familyBoundaries(c, a) }));
   }
+  return input;
+}
+
+/**
+ * A second potential axis against a reference electrode: on the figure, and named in the model
+ * (its `reference` key) with the electrode's warnings.
+ */
+export function withSecondAxis(c: Computed, fig: FigureSettings, r: DisplayedReference): void {
+  fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
+  c.model.reference = { id: r.id, label: r.label, offset: r.offset };
+  c.model.warnings.push(...r.warnings);
+}
+
+/** Figure input with the plating windows drawn as boxes over the full potential range. */
+export function windowFigureInput(c: Computed, fig: FigureSettings, windows: readonly { pH: [number, number] }[]): FigureInput {
+  const input = figureInput(c, fig);
+  input.boxes = windows.map((w) => ({ label: 'plating window', pH: w.pH, E: c.model.domain.E }));
   return input;
 }

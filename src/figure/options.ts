@@ -35,6 +35,10 @@ export interface FigureOverrides {
 
 const COLOR_RE = /^(#[0-9a-fA-F]{3}|#[0-9a-fA-F]{6}|[a-zA-Z]{3,20}|rgb\(\s*\d{1,3}\s*,\s*\d{1,3}\s*,\s*\d{1,3}\s*\))$/;
 
+/** Smallest figure the renderer lays out: 40 mm wide, 30 mm high (refused here, naming the key). */
+export const MIN_WIDTH_MM = 40;
+export const MIN_HEIGHT_MM = 30;
+
 export function figureSettings(spec: SystemSpec, cli: FigureOverrides = {}): FigureSettings {
   const f = new Fields(spec.file, 'figure');
   const o = spec.extra.figure === undefined ? {} : f.object(spec.extra.figure, '', FIGURE_KEYS);
@@ -48,7 +52,8 @@ export function figureSettings(spec: SystemSpec, cli: FigureOverrides = {}): Fig
     } catch {
       f.fail(field, 'a length: mm as a number, or text such as "170mm" or "800px"', v);
     }
-    if (!(mm! >= 30 && mm! <= 1000)) f.fail(field, 'a length from 30 mm to 1000 mm', v);
+    const min = field === 'width' ? MIN_WIDTH_MM : MIN_HEIGHT_MM;
+    if (!(mm! >= min && mm! <= 1000)) f.fail(field, `a length from ${min} mm to 1000 mm`, v);
     return mm!;
   };
   opt.width = length(o.width, 'width', opt.width);
@@ -114,6 +119,18 @@ function lengthCli(c: Fields, v: string, opt: string): number {
   } catch {
     c.fail(opt, 'a length such as 85, "170mm" or "800px"', v);
   }
-  if (!(mm! >= 30 && mm! <= 1000)) c.fail(opt, 'a length from 30 mm to 1000 mm', v);
+  const min = opt === '--width' ? MIN_WIDTH_MM : MIN_HEIGHT_MM;
+  if (!(mm! >= min && mm! <= 1000)) c.fail(opt, `a length from ${min} mm to 1000 mm`, v);
   return mm!;
+}
+
+/**
+ * Figure settings where the command sets its own default width (e.g. 160 mm for reports and
+ * overlays, which carry longer legends and captions): used unless the system file's figure.width
+ * or the --width option gives one.
+ */
+export function figureSettingsWidth(spec: SystemSpec, cli: FigureOverrides, width: string): FigureSettings {
+  const figure = spec.extra.figure;
+  const fileWidth = typeof figure === 'object' && figure !== null && (figure as Record<string, unknown>).width !== undefined;
+  return figureSettings(spec, cli.width === undefined && !fileWidth ? { ...cli, width } : cli);
 }

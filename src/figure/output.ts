@@ -2,9 +2,12 @@
  * Render a composed figure to bytes by output format. PDF, PNG and HTML modules load lazily, only
  * when asked for, so SVG and JSON runs start fast.
  */
+import type { Computed } from '../pipeline.js';
 import { mmToPx } from '../render/options.js';
 import { buildScene, type FigureInput } from '../render/scene.js';
 import { sceneToSvg } from '../render/svg.js';
+import { figureInput } from './compose.js';
+import { type FigureOverrides, figureSettings } from './options.js';
 
 export type FigureFormat = 'svg' | 'pdf' | 'png' | 'html';
 
@@ -22,4 +25,13 @@ export async function renderFigure(input: FigureInput, format: FigureFormat): Pr
   const { svgToPng } = await import('../render/png.js');
   // 300 dpi print resolution.
   return svgToPng(sceneToSvg(scene), Math.round(mmToPx(input.options.width, 300)));
+}
+
+/**
+ * A computed diagram drawn as one output: the figure settings of its system file (with the
+ * command-line style overrides, if any) composed as the `draw` verb does, then rendered. SVG and
+ * HTML come back as text, PDF and PNG as bytes.
+ */
+export async function renderDiagram(c: Computed, format: FigureFormat, overrides: FigureOverrides = {}): Promise<string | Uint8Array> {
+  return renderFigure(figureInput(c, figureSettings(c.spec, overrides)), format);
 }

@@ -5,12 +5,12 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
-import { writeAtomic } from '../cli/write.js';
+import { writeAtomic } from '../io/write.js';
 import { figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { renderFigure } from '../figure/output.js';
 import { compute, loadSpec } from '../pipeline.js';
-import { InputError } from '../system/errors.js';
+import { exitStatusOf } from '../errors.js';
 
 function bar(done: number, total: number, name: string): void {
   const width = 24;
@@ -73,7 +73,7 @@ const dir = process.argv[2] ?? 'gallery';
 buildGallery(dir).then(
   (names) => process.stdout.write(`gallery: ${names.length} scenarios rebuilt in ${dir}/\n`),
   (e) => {
-    process.stderr.write(`\ngallery: ${e instanceof InputError ? e.message : (e as Error).message}\n`);
-    process.exitCode = e instanceof InputError ? 2 : 1;
+    process.stderr.write(`\ngallery: ${(e as Error)?.message ?? String(e)}\n`);
+    process.exitCode = exitStatusOf(e);
   },
 );

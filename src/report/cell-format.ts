@@ -3,7 +3,7 @@
  * convention), an aligned table with one row per temperature (units in the headers), the data
  * sources and the warnings. Draws nothing and computes nothing.
  */
-import type { CellResult } from './cell.js';
+import type { CellResult } from '../thermo/cell.js';
 import { table } from './table.js';
 
 const fix = (v: number | null, digits: number, plus = false): string =>

@@ -5,7 +5,7 @@
  * columns (e.g. a time stamp) are carried through in the output as `label`.
  */
 import { Fields } from '../system/fields.js';
-import type { ProbeResult } from './probe.js';
+import type { ProbeResult } from '../analysis/probe.js';
 
 export interface PointRow {
   line: number;

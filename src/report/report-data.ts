@@ -2,19 +2,19 @@
  * The content of the `report` document as plain data, independent of the output format: title,
  * conditions, activities used, reactions and lines, operating points with their verdicts, the
  * plating window, data sources (with the values recalled from memory marked), warnings and the
- * cautions of the design notes (§6). The writers (report-md, report-html, report-pdf) only lay
+ * cautions (REPORT_CAUTIONS). The writers (report-md, report-html, report-pdf) only lay
  * it out. Deterministic: no dates, no machine paths.
  */
 import { findReference, referenceOffset } from '../thermo/reference.js';
 import { loadLibrary } from '../data/library.js';
-import { compute, type Computed } from '../pipeline.js';
-import type { SystemSpec } from '../system/spec.js';
+import type { Computed } from '../pipeline.js';
 import { activityRows, type ActivityRow, lineRows, type LineRow } from './lines.js';
-import { probe, type ProbeResult } from './probe.js';
-import { platingWindow, type WindowResult } from './window.js';
-import { fmtAmount, fmtCelsius, fmtNum } from './report-format.js';
+import type { ProbeResult } from '../analysis/probe.js';
+import { probeOperatingPoints, type ReportPoint } from '../analysis/points.js';
+import { platingWindow, type WindowResult } from '../analysis/window.js';
+import { fmtAmount, fmtCelsius, fmtNum } from './format.js';
 
-/** The cautions of the design notes, §6, in full. */
+/** The cautions printed in every report, in full. */
 export const REPORT_CAUTIONS: readonly string[] = [
   'An E\u2013pH diagram is equilibrium thermodynamics only: it says nothing about rates, passive-film quality, localized attack (pitting, crevice, stress-corrosion, microbially influenced), galvanic coupling, or mixed potentials. It is a screening aid; design decisions follow the applicable codes and standards and the judgement of a qualified corrosion or plating professional.',
 ];
@@ -26,17 +26,6 @@ export const REPORT_CLOSING =
 /** How verdicts are assigned (printed with the operating points). */
 export const VERDICT_BASIS =
   'Verdicts: immunity where the element itself predominates, passivation where a solid compound predominates, corrosion where a dissolved species predominates at the stated threshold activity (reclassifications from the system file applied).';
-
-export interface ReportPoint {
-  label: string;
-  pH: number;
-  /** Potential as given in the system file and its scale. */
-  Egiven: number;
-  scale: string;
-  /** The same potential on the SHE scale at the diagram temperature, V. */
-  Eshe: number;
-  result: ProbeResult;
-}
 
 export interface ReportSpecies {
   formula: string;
@@ -120,40 +109,6 @@ function referenceText(c: Computed): string {
   return `${r.label}: E_SHE = E_${r.label} ${r.offset >= 0 ? '+' : '\u2212'} ${Math.abs(r.offset).toFixed(4)} V at ${fmtCelsius(T)} \u00b0C${src}. Diagram potentials are vs SHE; operating points are given vs ${r.label}`;
 }
 
-/** Operating points of the system file, each probed exactly (on a wider domain when outside). */
-function points(c: Computed, warnings: string[]): ReportPoint[] {
-  const op = c.spec.operating;
-  if (!op.points.length) return [];
-  const T = c.spec.temperature;
-  const conv = op.points.map((p) => {
-    if (op.reference === undefined || op.reference === 'she') return { p, Eshe: p.E, scale: 'SHE' };
-    const r = referenceOffset(op.reference, T, p.pH);
-    warnings.push(...r.warnings.filter((w) => !warnings.includes(w)));
-    return { p, Eshe: p.E + r.offset, scale: r.label };
-  });
-  const [p0, p1] = c.spec.pH;
-  const [e0, e1] = c.spec.E;
-  const inside = conv.every(({ p, Eshe }) => p.pH > p0 && p.pH < p1 && Eshe > e0 && Eshe < e1);
-  let at: Computed = c;
-  if (!inside) {
-    // Step: one wider computation that holds every point, so that distances are measured exactly.
-    const s: SystemSpec = {
-      ...c.spec,
-      pH: [Math.min(p0, ...conv.map((x) => x.p.pH - 0.5)), Math.max(p1, ...conv.map((x) => x.p.pH + 0.5))],
-      E: [Math.min(e0, ...conv.map((x) => x.Eshe - 0.1)), Math.max(e1, ...conv.map((x) => x.Eshe + 0.1))],
-    };
-    at = compute(s);
-  }
-  return conv.map(({ p, Eshe, scale }) => ({
-    label: p.label,
-    pH: p.pH,
-    Egiven: p.E,
-    scale,
-    Eshe,
-    result: probe(at, p.pH, Eshe, scale === 'SHE' ? undefined : { label: scale, E: p.E, offset: Eshe - p.E }),
-  }));
-}
-
 /** Every species used with its citation and whether the library marks its values as recalled. */
 function speciesSources(c: Computed): ReportSpecies[] {
   const lib = loadLibrary();
@@ -183,7 +138,7 @@ function speciesSources(c: Computed): ReportSpecies[] {
 export function reportData(c: Computed): ReportData {
   const m = c.model;
   const warnings = [...m.warnings];
-  const pts = points(c, warnings);
+  const pts = probeOperatingPoints(c, warnings);
   const win = platingWindow(m);
   const species = speciesSources(c);
   const sources = [...m.sources];

@@ -3,10 +3,10 @@
  * no external resources (a Content-Security-Policy forbids loading any). All text is escaped.
  */
 import { esc } from '../render/svg.js';
-import { shortSource } from '../figure/compose.js';
+import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts } from './report-data.js';
-import { fmtCelsius, fmtNum, fmtSigned } from './report-format.js';
+import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 const STYLE = [
   'body{font-family:Helvetica,Arial,sans-serif;max-width:60em;margin:2em auto;padding:0 1em;color:#111;line-height:1.4}',

@@ -2,10 +2,10 @@
  * The report as Markdown (GitHub-flavoured tables). The figure is a separate SVG file written next
  * to the document and linked by its bare file name. All user text is escaped.
  */
-import { shortSource } from '../figure/compose.js';
+import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts } from './report-data.js';
-import { fmtCelsius, fmtNum, fmtSigned, mdCode, mdEsc, mdTable } from './report-format.js';
+import { fmtCelsius, fmtNum, fmtSigned, mdCode, mdEsc, mdTable } from './format.js';
 
 export function reportMarkdown(d: ReportData, figureFile: string, caption: string[]): string {
   const out: string[] = [];

@@ -4,12 +4,12 @@
  * accepted in its place. Reproducible: the creation date is fixed, so the same input gives the
  * same bytes.
  */
-import { shortSource } from '../figure/compose.js';
+import { shortSource } from './format.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts } from './report-data.js';
-import { fmtCelsius, fmtNum, fmtSigned } from './report-format.js';
+import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 type Doc = PDFKit.PDFDocument;
 

@@ -3,7 +3,8 @@
  *
  * Pieces come from several cells (ligand predominance cells); a species' region is the union of
  * its pieces. Algorithm:
- *   1. weld vertices closer than WELD (spatial hash), so equal points get one id;
+ *   1. weld vertices closer than the weld tolerance (weldTolerance: relative to the pieces' extent;
+ *      a spatial hash), so equal points get one id;
  *   2. split every piece edge at welded vertices lying on it (removes T-junctions between cells);
  *   3. an edge whose reverse belongs to the same owner is interior and dropped; the rest are ring
  *      edges; those whose reverse belongs to another owner are boundary edges between the two;
@@ -40,12 +41,22 @@ export interface MergeResult {
 
 /** Weld tolerance relative to the extent of the pieces (pH and V units are of order 1–10). */
 const WELD_REL = 1e-11;
-let WELD = 1e-9;
+
+/** Weld tolerance for a set of pieces: WELD_REL × the largest |coordinate| (at least 1). */
+export function weldTolerance(pieces: readonly MergeInput[]): number {
+  let span = 0;
+  for (const pc of pieces) for (const [x, y] of pc.pts) span = Math.max(span, Math.abs(x), Math.abs(y));
+  return WELD_REL * Math.max(span, 1);
+}
 
 class VertexWelder {
   readonly pts: Pt[] = [];
   private readonly grid = new Map<string, number[]>();
-  private readonly cell: number = WELD * 16;
+  private readonly cell: number;
+
+  constructor(private readonly weld: number) {
+    this.cell = weld * 16;
+  }
 
   id(p: Pt): number {
     const cx = Math.floor(p[0] / this.cell);
@@ -56,7 +67,7 @@ class VertexWelder {
         if (!list) continue;
         for (const k of list) {
           const q = this.pts[k];
-          if (Math.abs(q[0] - p[0]) <= WELD && Math.abs(q[1] - p[1]) <= WELD) return k;
+          if (Math.abs(q[0] - p[0]) <= this.weld && Math.abs(q[1] - p[1]) <= this.weld) return k;
         }
       }
     }
@@ -79,10 +90,8 @@ interface DirEdge {
 
 export function mergePieces(pieces: MergeInput[]): MergeResult {
   // Step 1: weld vertices (tolerance scaled to the extent of the domain).
-  let span = 0;
-  for (const pc of pieces) for (const [x, y] of pc.pts) span = Math.max(span, Math.abs(x), Math.abs(y));
-  WELD = WELD_REL * Math.max(span, 1);
-  const welder = new VertexWelder();
+  const weld = weldTolerance(pieces);
+  const welder = new VertexWelder(weld);
   const rings: { owner: number; cell: number; ids: number[] }[] = [];
   for (const pc of pieces) {
     const ids: number[] = [];
@@ -102,7 +111,7 @@ export function mergePieces(pieces: MergeInput[]): MergeResult {
     for (let k = 0; k < n; k++) {
       const u = r.ids[k];
       const v = r.ids[(k + 1) % n];
-      const chain = splitEdge(V, u, v);
+      const chain = splitEdge(V, u, v, weld);
       for (let m = 0; m + 1 < chain.length; m++) {
         edges.push({ u: chain[m], v: chain[m + 1], owner: r.owner, cell: r.cell });
       }
@@ -136,16 +145,16 @@ export function mergePieces(pieces: MergeInput[]): MergeResult {
 }
 
 /** Vertex ids on segment u→v (inclusive), in order along it. */
-function splitEdge(V: Pt[], u: number, v: number): number[] {
+function splitEdge(V: Pt[], u: number, v: number, weld: number): number[] {
   const a = V[u];
   const b = V[v];
   const dx = b[0] - a[0];
   const dy = b[1] - a[1];
   const len2 = dx * dx + dy * dy;
-  const xmin = Math.min(a[0], b[0]) - WELD;
-  const xmax = Math.max(a[0], b[0]) + WELD;
-  const ymin = Math.min(a[1], b[1]) - WELD;
-  const ymax = Math.max(a[1], b[1]) + WELD;
+  const xmin = Math.min(a[0], b[0]) - weld;
+  const xmax = Math.max(a[0], b[0]) + weld;
+  const ymin = Math.min(a[1], b[1]) - weld;
+  const ymax = Math.max(a[1], b[1]) + weld;
   const inner: [number, number][] = [];
   for (let w = 0; w < V.length; w++) {
     if (w === u || w === v) continue;
@@ -155,7 +164,7 @@ function splitEdge(V: Pt[], u: number, v: number): number[] {
     if (t <= 0 || t >= 1) continue;
     const qx = a[0] + t * dx - p[0];
     const qy = a[1] + t * dy - p[1];
-    if (qx * qx + qy * qy <= 4 * WELD * WELD) inner.push([t, w]);
+    if (qx * qx + qy * qy <= 4 * weld * weld) inner.push([t, w]);
   }
   inner.sort((p, q) => p[0] - q[0]);
   return [u, ...inner.map((x) => x[1]), v];

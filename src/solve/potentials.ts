@@ -1,5 +1,5 @@
 /**
- * Grand potential planes ψ(pH, E) per DESIGN §2.
+ * Grand potential planes ψ(pH, E) (the derivation is below; DEVELOPERS.md, "The solver in one paragraph").
  *
  * A species with x atoms of an element M (or ligand L), o oxygen, h hydrogen, charge z forms as
  *   x M + o H2O → species + (2o − h) H+ + (2o − h + z) e−

@@ -1,6 +1,6 @@
 /**
  * The predominance solver: ligand cells, exact pieces, merged regions, boundaries with their
- * reactions, triple points and water lines (DESIGN §2–3).
+ * reactions, triple points and water lines (DEVELOPERS.md, "The solver in one paragraph").
  *
  * Steps:
  *   1. formation planes Φ for every species at T (potentials.ts);
@@ -16,7 +16,8 @@ import { F, LN10, R } from '../thermo/constants.js';
 import { type ConvexPoly, type Pt, rectangle, signedArea } from './clip.js';
 import { lowerEnvelope } from './envelope.js';
 import { mergePieces, type MergeInput } from './merge.js';
-import { type Plane, addScaled, scalePlane } from './plane.js';
+import type { Plane } from './plane.js';
+import { ligandPsiPlane, mainPsiPlane } from './ligand-psi.js';
 import { formationPlane, type WaterContext } from './potentials.js';
 import { balance, equationText, lineFrom, type Participant } from './reaction.js';
 import type { SolverInput, SolverSpecies } from './types.js';
@@ -58,14 +59,7 @@ function standardPlane(sp: SolverSpecies, w: WaterContext): Plane {
 
 /** ψ planes of the main species within one ligand cell; null where a species has no M. */
 export function mainPlanes(input: SolverInput, phi: Plane[], cell: LigandCell): Plane[] {
-  return input.species.map((sp, k) => {
-    let pl = phi[k];
-    input.ligands.forEach((L, m) => {
-      const kL = sp.elements[L.element] ?? 0;
-      if (kL) pl = addScaled(pl, cell.mu[m], -kL);
-    });
-    return scalePlane(pl, 1 / (sp.elements[input.element] ?? 1));
-  });
+  return input.species.map((sp, k) => mainPsiPlane(input, sp, phi[k], cell.mu));
 }
 
 /** Step 2: ligand cells. */
@@ -74,14 +68,7 @@ export function ligandCells(input: SolverInput, ligandPhi: Plane[][]): LigandCel
   input.ligands.forEach((L, m) => {
     const next: LigandCell[] = [];
     for (const cell of cells) {
-      const planes = L.species.map((sp, k) => {
-        let pl = ligandPhi[m][k];
-        for (let q = 0; q < m; q++) {
-          const kq = sp.elements[input.ligands[q].element] ?? 0;
-          if (kq) pl = addScaled(pl, cell.mu[q], -kq);
-        }
-        return scalePlane(pl, 1 / (sp.elements[L.element] ?? 1));
-      });
+      const planes = L.species.map((sp, k) => ligandPsiPlane(input, m, sp, ligandPhi[m][k], cell.mu));
       for (const pc of lowerEnvelope(cell.poly, planes)) {
         next.push({ poly: pc.poly, species: [...cell.species, pc.owner], mu: [...cell.mu, planes[pc.owner]] });
       }

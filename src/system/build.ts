@@ -40,6 +40,12 @@ export interface BuiltSystem {
   water: { H2O: ResolvedSpecies; H2: ResolvedSpecies; O2: ResolvedSpecies };
   /** Water properties, ionic strength and activity model at T. */
   solution: SolutionAtT;
+  /**
+   * Per main species (same order as input.species): true for a dissolved species whose activity
+   * follows the system's amount of the element (no activity or concentration of its own), i.e. the
+   * species an activity family changes.
+   */
+  followsAmount: boolean[];
 }
 
 const WATER_FORMULAS: Record<string, 'H2O' | 'H2' | 'O2'> = { 'H2O|l': 'H2O', 'H2|g': 'H2', 'O2|g': 'O2' };
@@ -217,6 +223,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
   const allowed = new Set([spec.element, ...ligandEls, 'H', 'O']);
   const groupEls = new Set(Object.values(spec.ligandGroups).flatMap((g) => Object.keys(g)));
   const main: SolverSpecies[] = [];
+  const followsAmount: boolean[] = [];
   const ligandSpecies = new Map<string, SolverSpecies[]>(ligandEls.map((L) => [L, []]));
   const sources = new Set<string>();
   for (const s0 of resolved) {
@@ -276,8 +283,10 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
     if (lg !== undefined && (lg !== 0 || mol !== undefined)) sv.logGamma = lg;
     if (mol !== undefined) sv.molality = mol;
     if (s.source) sources.add(s.source);
-    if (hasMain) main.push(sv);
-    else ligandSpecies.get(lig!)!.push(sv);
+    if (hasMain) {
+      main.push(sv);
+      followsAmount.push(s.phase === 'aq' && s.activity === undefined && s.concentration === undefined);
+    } else ligandSpecies.get(lig!)!.push(sv);
   }
   if (main.length === 0) throw new InputError(spec.file, 'species', `at least one species containing ${spec.element}`);
   const ligands: LigandInput[] = ligandEls.map((L) => {
@@ -306,6 +315,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
     warnings: collapseCpWarnings(warnings),
     water,
     solution: sol,
+    followsAmount,
   };
 }
 

@@ -7,7 +7,7 @@
  */
 import { molarMass, parseFormula } from '../chem/formula.js';
 import { KELVIN } from '../thermo/constants.js';
-import { activityModel, type ActivityModelName, debyeHuckelParameters } from '../thermo/activity.js';
+import { activityModel, type ActivityModelName, backgroundElectrolyte, debyeHuckelParameters, ionicStrength, mgPerLitreToMolal } from '../thermo/activity.js';
 import { type WaterState, waterState } from '../thermo/water.js';
 import { InputError } from './errors.js';
 import { Fields } from './fields.js';
@@ -109,7 +109,7 @@ export function readSolutionSettings(f: Fields, o: Record<string, unknown>): Sol
       const m = f.number(v, `background.${k}`, { min: 0, max: 10 });
       const salt = SALTS[k];
       if (salt) {
-        I += 0.5 * salt.reduce((s, [z, n]) => s + n * m * z * z, 0);
+        I += backgroundElectrolyte(salt.map(([charge, count]) => ({ charge, count })), m);
       } else {
         let z = 0;
         try {
@@ -118,7 +118,7 @@ export function readSolutionSettings(f: Fields, o: Record<string, unknown>): Sol
           z = 0;
         }
         if (z === 0) f.fail(`background.${k}`, `a salt (${Object.keys(SALTS).join(', ')}) or an ion with its charge (e.g. Na+, SO4-2)`, k);
-        I += 0.5 * m * z * z;
+        I += ionicStrength([{ charge: z, molality: m }]);
       }
       parts.push(`${m} mol/kg ${k}`);
     }
@@ -145,6 +145,5 @@ export function solutionAt(file: string, celsius: number, pressureMPa: number | 
 /** Molality of an amount given as mg/L, with the molar mass of `as` (or the fallback formula). */
 export function molality(a: Amount, fallbackFormula: string, densityKgM3: number): number {
   if (a.kind === 'molality') return a.value;
-  const M = molarMass(parseFormula(a.as ?? fallbackFormula));
-  return a.value / (1000 * M) / (densityKgM3 / 1000);
+  return mgPerLitreToMolal(a.value, molarMass(parseFormula(a.as ?? fallbackFormula)), densityKgM3);
 }

@@ -10,7 +10,7 @@ import {
   formatFormula,
   chargeLabel,
   sameFormula,
-} from '../../src/chem/index.js';
+} from '../../src/chem/formula.js';
 import { ELEMENTS } from '../../src/chem/elements.js';
 
 const counts = (t: string) => parseFormula(t).elements;

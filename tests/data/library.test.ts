@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { mkdtempSync, writeFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync, rmSync } from 'node:fs';
+import { cleanTmpDir } from '../helpers/tmp.js';
 import { join } from 'node:path';
 import {
   loadLibrary, clearLibraryCache, findSpecies, findAllSpecies, speciesFor, pickAlternative, speciesCitations, LibraryError,
@@ -40,7 +40,7 @@ describe('loadLibrary', () => {
   });
 
   it('rejects a duplicate formula + phase across files, naming both files', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'ephmap-lib-'));
+    const dir = cleanTmpDir('ephmap-lib-');
     try {
       const file = (el: string) => ({
         element: el,

@@ -3,7 +3,7 @@
  * evaluated exactly from the ψ planes (src/solve/probe.ts). Not a test file itself.
  */
 import { computeFile } from '../../src/pipeline.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { psiAt } from '../../src/solve/point.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
 const cache = new Map<string, ReturnType<typeof computeFile>>();

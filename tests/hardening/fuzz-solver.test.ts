@@ -13,7 +13,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { formatFormula } from '../../src/chem/formula.js';
 import type { Polygon, Ring } from '../../src/model.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { psiAt } from '../../src/solve/point.js';
 import { type Solution, solve } from '../../src/solve/solve.js';
 import type { LigandInput, SolverInput, SolverSpecies } from '../../src/solve/types.js';
 
@@ -325,7 +325,7 @@ const MAGNETITE = sp('Fe3O4', { Fe: 3, O: 4 }, 0, -1015.4);
 const HEMATITE = sp('Fe2O3', { Fe: 2, O: 3 }, 0, -742.2);
 const HFEO2 = sp('HFeO2-', { H: 1, Fe: 1, O: 2 }, -1, -377.7, 'aq');
 
-/** ψ per Fe atom at (pH, E), kJ — by hand from DESIGN §2, for building exact coincidences. */
+/** ψ per Fe atom at (pH, E), kJ — by hand from the formation-plane formula of src/solve/potentials.ts, for building exact coincidences. */
 function psiHand(s: SolverSpecies, pH: number, E: number): number {
   const o = s.elements.O ?? 0;
   const h = s.elements.H ?? 0;
@@ -425,7 +425,7 @@ describe('degenerate systems: correct output, never a crash', () => {
   });
 
   it('a boundary lying exactly on the domain edge', () => {
-    // Fe/Fe+2 at a = 1e-6 is E = −0.5864 V (DESIGN §2 worked example); put the domain's lower edge there.
+    // Fe/Fe+2 at a = 1e-6 is E = −0.5864 V (from the library's data); put the domain's lower edge there.
     const E0 = psiHand(FE2, 0, 0) / (2 * F / 1000);
     const input = system([FE, FE2, HFEO2], [0, 14], [E0, E0 + 1]);
     checkInvariants(input, solve(input));
@@ -482,7 +482,7 @@ describe('the checker itself', () => {
 });
 
 describe('known issues found by the properties above', () => {
-  // BUG: src/solve/merge.ts welds vertices closer than WELD = 1e-9 (absolute, in pH and V). A line
+  // BUG: src/solve/merge.ts welds vertices closer than its weld tolerance (about 1e-9 here). A line
   // 1.9e-10 V above the domain's lower edge makes a sliver whose vertices are welded away, so the
   // regions miss 1.9e-9 of the domain (limit 1e-9 relative). Physically negligible (0.2 nV), but the
   // tiling is not exact; a weld tolerance relative to the domain size would keep it. Reproduction:

@@ -5,8 +5,8 @@
 import { describe, expect, it } from 'vitest';
 import { findSpecies, loadLibrary } from '../../src/data/library.js';
 import { compute } from '../../src/pipeline.js';
-import { platingWindow } from '../../src/report/window.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { platingWindow } from '../../src/analysis/window.js';
+import { psiAt } from '../../src/solve/point.js';
 import { readSpec } from '../../src/system/spec.js';
 
 const F = 96485.33212; // CODATA 2018

@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { createSVGWindow } from 'svgdom';
 import { describe, expect, it } from 'vitest';
 import { LAYER_INKS, luminance } from '../../src/render/palette.js';
-import { SEPARATE_ELEMENTS_NOTE } from '../../src/report/overlay.js';
+import { SEPARATE_ELEMENTS_NOTE } from '../../src/figure/overlay.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 

@@ -1,5 +1,5 @@
 /**
- * Worked examples of the formation plane Φ and the Nernst slope (DESIGN §2; CODATA 2018 constants).
+ * Worked examples of the formation plane Φ and the Nernst slope (CODATA 2018 constants).
  */
 import { describe, expect, it } from 'vitest';
 import { parseFormula } from '../../src/chem/formula.js';

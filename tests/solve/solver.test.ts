@@ -1,14 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { parseFormula } from '../../src/chem/formula.js';
 import { pointInRing } from '../../src/solve/merge.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { psiAt } from '../../src/solve/point.js';
 import { solve } from '../../src/solve/solve.js';
+import { nernstSlope } from '../../src/thermo/constants.js';
 import type { SolverInput } from '../../src/solve/types.js';
 import { IRON, WATER } from './iron-inline.js';
 
 const F = 96485.33212; // CODATA 2018
 const R = 8.314462618; // CODATA 2018
-const s25 = (Math.LN10 * R * 298.15) / F; // Nernst slope, 0.059159 V (DESIGN §2)
+const s25 = (Math.LN10 * R * 298.15) / F; // Nernst slope ln10·RT/F, 0.059159 V (CODATA 2018 constants)
 
 function ironInput(a = 1e-6): SolverInput {
   return {
@@ -31,8 +32,12 @@ describe('iron at 25 °C, dissolved activity 1e-6 (NBS 1982 data, recalled from 
   const sol = solve(input);
   const find = (a: string, b: string) => sol.boundaries.filter((x) => (x.between[0] === a && x.between[1] === b) || (x.between[0] === b && x.between[1] === a));
 
-  it('Nernst slope is 59.16 mV per pH at 25 °C (ln10·RT/F, DESIGN §2)', () => {
-    expect(s25 * 1000).toBeCloseTo(59.16, 2);
+  it('Nernst slope is 59.16 mV per pH at 25 °C (ln10·RT/F, CODATA 2018 constants), in thermo and in the solved water line', () => {
+    // 59.16 mV: ln10·RT/F with R = 8.314462618 J/(mol·K), F = 96485.33212 C/mol (CODATA 2018).
+    expect(nernstSlope(298.15) * 1000).toBeCloseTo(59.16, 2);
+    expect(nernstSlope(298.15)).toBeCloseTo(s25, 12);
+    // The hydrogen line E = −s·pH at p(H2) = 1 bar: its slope is −s (common practice).
+    expect(sol.waterLines.hydrogen.line.slope).toBeCloseTo(-s25, 9);
   });
 
   it('Fe+2/Fe: E = ΔfG°(Fe+2)/(2F) + (s/2)·log a, horizontal', () => {

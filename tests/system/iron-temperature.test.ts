@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computeFile } from '../../src/pipeline.js';
-import { psiAt } from '../../src/solve/probe.js';
+import { psiAt } from '../../src/solve/point.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
 const F = 96485.33212; // CODATA 2018

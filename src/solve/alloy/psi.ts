@@ -12,7 +12,7 @@
  * Valid wherever the species data are. Worked example (tested): Fe+2 at a = 1e-6, 25 °C,
  * ΔfG° = −78.90 kJ/mol, pH 7, E = 0: ψ' = −78.90 + RT ln 1e-6 /1000 = −113.148 kJ/mol.
  */
-import { ligandPotentialsAt } from '../probe.js';
+import { ligandPotentialsAt } from '../point.js';
 import { type Plane, addScaled, planeAt } from '../plane.js';
 import { formationPlane, type WaterContext } from '../potentials.js';
 import type { AlloyInput } from './types.js';

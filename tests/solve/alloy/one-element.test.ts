@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { assemblageAt } from '../../../src/solve/alloy/assemblage.js';
 import type { AlloyInput } from '../../../src/solve/alloy/types.js';
-import { psiAt } from '../../../src/solve/probe.js';
+import { psiAt } from '../../../src/solve/point.js';
 import { solve } from '../../../src/solve/solve.js';
 import type { SolverInput } from '../../../src/solve/types.js';
 import { buildSystem } from '../../../src/system/build.js';

@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { assemblageAt } from '../../../src/solve/alloy/assemblage.js';
-import { psiAt } from '../../../src/solve/probe.js';
+import { psiAt } from '../../../src/solve/point.js';
 import { buildAlloySystem } from '../../../src/system/alloy-build.js';
 import { readAlloySpec } from '../../../src/system/alloy-spec.js';
 import { buildSystem } from '../../../src/system/build.js';

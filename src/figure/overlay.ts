@@ -7,14 +7,14 @@
  * element, temperature and activity. Layers of different elements in the 'color' style also get
  * their own colour-blind-safe line colours (LAYER_INKS).
  */
-import { captionLines, figureInput, powerOfTen, shortSource } from '../figure/compose.js';
-import type { FigureSettings } from '../figure/options.js';
+import { atActivity, captionLines, figureInput } from './compose.js';
+import { type FigureOverrides, type FigureSettings, figureSettingsWidth } from './options.js';
 import { compute, type Computed } from '../pipeline.js';
 import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
 import type { FigureInput } from '../render/scene.js';
 import { InputError } from '../system/errors.js';
 import { T_RANGE, type SystemSpec } from '../system/spec.js';
-import { fmtAmount, fmtCelsius } from './report-format.js';
+import { fmtAmount, fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
 
 /**
  * Dash styles of the overlay layers, in order (names understood by the renderer's parseDash): the
@@ -55,7 +55,7 @@ export function layerSpecs(req: OverlayRequest): SystemSpec[] {
     throw new InputError('command line', temps.length > 1 ? '--temperatures' : '--activities', 'one value when several system files are overlaid (several values with one file)');
   }
   const withT = (s: SystemSpec, t: number | undefined): SystemSpec => (t === undefined ? s : { ...s, temperature: t });
-  const withA = (s: SystemSpec, a: number | undefined): SystemSpec => (a === undefined ? s : { ...s, activity: a, amount: { kind: 'activity', value: a, isDefault: false } });
+  const withA = (s: SystemSpec, a: number | undefined): SystemSpec => (a === undefined ? s : atActivity(s, a));
   const out: SystemSpec[] = [];
   for (const s of specs) {
     for (const t of temps.length ? temps : [undefined]) for (const a of acts.length ? acts : [undefined]) out.push(withA(withT(s, t), a));
@@ -141,6 +141,32 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
     layers: layers.map((l, k) => ({ label: labels[k], dash: k === 0 ? null : OVERLAY_DASHES[k - 1], computed: l })),
     sameElement,
   };
+}
+
+/** Overlays carry a longer legend and caption: 160 mm wide unless the file or --width says otherwise. */
+const OVERLAY_WIDTH = '160mm';
+
+/**
+ * Figure settings of an overlay: the base layer's file with the command-line overrides, 160 mm
+ * wide by default; the first file's own title describes one layer, not the overlay, so the title
+ * comes from the layers unless --title gives one.
+ */
+export function overlaySettings(layers: Computed[], cli: FigureOverrides): FigureSettings {
+  const fig = figureSettingsWidth(layers[0].spec, cli, OVERLAY_WIDTH);
+  if (cli.title === undefined) fig.options.title = undefined;
+  return fig;
+}
+
+/** Every layer's warnings, each prefixed with its layer ("Fe 90 °C: …"), each once, in layer order. */
+export function layerWarnings(layers: Computed[]): string[] {
+  const out: string[] = [];
+  for (const l of layers) {
+    for (const w of l.model.warnings) {
+      const msg = `${l.model.element} ${l.model.temperature.celsius} °C: ${w}`;
+      if (!out.includes(msg)) out.push(msg);
+    }
+  }
+  return out;
 }
 
 /** Computes every layer (base first). */

@@ -1,6 +1,7 @@
 /**
- * Number and text formatting shared by the report writers (Markdown, HTML, PDF). Pure and
- * deterministic: the same number always gives the same text.
+ * Number, amount, temperature and source formatting shared by the report writers (Markdown, HTML,
+ * PDF), captions and overlay labels: the one place these texts are written. Pure and deterministic:
+ * the same number always gives the same text.
  */
 
 /** A number to `sig` significant digits, plain between 1e-3 and 1e4, exponential outside. */
@@ -28,6 +29,27 @@ export function fmtSigned(v: number, decimals: number): string {
 /** Temperature in °C as written: integer degrees without decimals, else one decimal. */
 export function fmtCelsius(t: number): string {
   return Number.isInteger(t) ? String(t) : t.toFixed(1);
+}
+
+const SUP: Record<string, string> = { '-': '\u207b', '0': '\u2070', '1': '\u00b9', '2': '\u00b2', '3': '\u00b3', '4': '\u2074', '5': '\u2075', '6': '\u2076', '7': '\u2077', '8': '\u2078', '9': '\u2079' };
+
+/** 1e-6 → "10⁻⁶"; other values as three significant digits. */
+export function powerOfTen(a: number): string {
+  const e = Math.log10(a);
+  if (Math.abs(e - Math.round(e)) < 1e-9) {
+    const k = Math.round(e);
+    return k === 0 ? '1' : `10${[...String(k)].map((ch) => SUP[ch]).join('')}`;
+  }
+  return a.toPrecision(3);
+}
+
+/** "Wagman D.D., Evans W.H., … (1982) The NBS tables …" → "Wagman et al. 1982". */
+export function shortSource(s: string): string {
+  const year = /\((\d{4})\)/.exec(s)?.[1] ?? /\b(19|20)\d{2}\b/.exec(s)?.[0];
+  const first = s.split(/[ ,]/)[0];
+  if (!first) return s.slice(0, 40);
+  const many = (s.match(/,/g) ?? []).length > 2 && /[A-Z]\.,/.test(s);
+  return `${first}${many ? ' et al.' : ''}${year ? ` ${year}` : ''}`;
 }
 
 /**

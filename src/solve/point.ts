@@ -8,7 +8,8 @@
  */
 import type { BoundaryModel } from '../model.js';
 import { nernstSlope } from '../thermo/constants.js';
-import { type Plane, addScaled, planeAt, scalePlane } from './plane.js';
+import { type Plane, planeAt } from './plane.js';
+import { ligandPsiPlane, withoutLigands } from './ligand-psi.js';
 import { formationPlane } from './potentials.js';
 import { waterContext } from './solve.js';
 import type { SolverInput } from './types.js';
@@ -37,12 +38,7 @@ export function ligandPotentialsAt(
     let bestPlane: Plane | null = null;
     let bestK = 0;
     L.species.forEach((sp, k) => {
-      let pl = formationPlane(sp, w);
-      for (let q = 0; q < m; q++) {
-        const kq = sp.elements[ligands[q].element] ?? 0;
-        if (kq) pl = addScaled(pl, mu[q], -kq);
-      }
-      pl = scalePlane(pl, 1 / (sp.elements[L.element] ?? 1));
+      const pl = ligandPsiPlane({ ligands }, m, sp, formationPlane(sp, w), mu);
       const v = planeAt(pl, pH, E);
       if (v < best) {
         best = v;
@@ -60,27 +56,23 @@ export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
   const w = waterContext(input);
   const { mu, ligandSpecies } = ligandPotentialsAt(input.ligands, w, pH, E);
   const psi = input.species.map((sp) => {
-    let pl = formationPlane(sp, w);
-    input.ligands.forEach((L, m) => {
-      const kL = sp.elements[L.element] ?? 0;
-      if (kL) pl = addScaled(pl, mu[m], -kL);
-    });
+    const pl = withoutLigands(input, sp, formationPlane(sp, w), mu, input.ligands.length);
     return planeAt(pl, pH, E) / (sp.elements[input.element] ?? 1) / 1000;
   });
   return { psi, ligandSpecies };
 }
 
-export interface Crossing {
-  /** Signed shift to the crossing, V (for E) or pH units. */
+export interface LineHit {
+  /** Signed shift to the boundary, V (for E) or pH units. */
   shift: number;
   boundary: BoundaryModel;
 }
 
 export interface ProbeGeometry {
-  up?: Crossing;
-  down?: Crossing;
-  left?: Crossing;
-  right?: Crossing;
+  up?: LineHit;
+  down?: LineHit;
+  left?: LineHit;
+  right?: LineHit;
   nearest?: { boundary: BoundaryModel; distanceV: number; at: [number, number] };
 }
 

@@ -1,7 +1,7 @@
 /**
  * The `cell` calculator: reaction energies and potentials of one reaction at a temperature.
  *
- * Input: a reaction text such as "2H2O(l) = 2H2(g) + O2(g)" (full reaction) or
+ * Input (parsed by chem/reaction-parse.ts): a reaction text such as "2H2O(l) = 2H2(g) + O2(g)" (full reaction) or
  * "Cu+2 + 2e- = Cu(s)" (half-reaction). Terms are separated by " + " (spaces around the plus,
  * since "+" also writes charges), sides by "=" (also "->", "→", "⇌"); a term is an optional
  * coefficient (2, 0.5, 1/2) then a formula with an optional phase tag; "e-" is the electron.
@@ -23,10 +23,12 @@
  * Reference: any physical-chemistry text (ΔG = −nFE; Gibbs–Helmholtz); H.C. Helgeson et al.,
  * Am. J. Sci. 281 (1981) 1249 for the apparent convention.
  */
-import { F, KELVIN, T_REF } from '../thermo/constants.js';
-import { apparentG, apparentH, entropyAt, type Extrapolation } from '../thermo/gibbs.js';
-import { formulaWarnings, parseFormula, splitPhase, FormulaError, type Phase } from '../chem/formula.js';
-import { referenceOffset, type CustomReference } from '../thermo/reference.js';
+import { F, KELVIN, T_REF } from './constants.js';
+import { apparentG, apparentH, entropyAt, type Extrapolation } from './gibbs.js';
+import type { Phase } from '../chem/formula.js';
+import { electronsTransferred } from '../chem/oxidation.js';
+import { parseReaction, ReactionError, type ParsedReaction, type Term } from '../chem/reaction-parse.js';
+import { referenceOffset, type CustomReference } from './reference.js';
 
 /** Thermodynamic data of one species as returned by the resolver. */
 export interface SpeciesData {
@@ -61,220 +63,6 @@ export interface CellOptions {
   /** pH for the RHE. */
   pH?: number;
 }
-
-/** A reaction the calculator cannot use; `expected`/`got` let a caller build an InputError. */
-export class ReactionError extends Error {
-  readonly expected: string;
-  readonly got: string;
-  constructor(reaction: string, expected: string, got: string) {
-    super(`reaction "${reaction}": expected ${expected}, got ${got}`);
-    this.name = 'ReactionError';
-    this.expected = expected;
-    this.got = got;
-  }
-}
-
-interface Term {
-  /** −1 left, +1 right. */
-  side: -1 | 1;
-  coefficient: number;
-  coefficientText: string;
-  electron: boolean;
-  formula: string;
-  phase?: Phase;
-  elements: Record<string, number>;
-  charge: number;
-}
-
-export interface ParsedReaction {
-  text: string;
-  terms: Term[];
-  warnings: string[];
-}
-
-const ARROW = /\s*(?:<=>|<->|⇌|⇄|->|→|=)\s*/;
-const TERM = /^(\d+(?:\.\d+)?(?:\/\d+(?:\.\d+)?)?)?\s*(\S.*)$/;
-
-function coefficientValue(t: string): number {
-  const [a, b] = t.split('/');
-  return b === undefined ? Number(a) : Number(a) / Number(b);
-}
-
-/**
- * Parses a reaction text (see module comment) and checks element and charge balance.
- * Throws ReactionError on syntax errors and on an unbalanced reaction (naming what is unbalanced).
- */
-export function parseReaction(text: string): ParsedReaction {
-  const src = text.trim();
-  const sides = src.split(ARROW);
-  if (sides.length !== 2 || sides.some((s) => s.trim() === '')) {
-    throw new ReactionError(src, 'two sides separated by "=" (e.g. "Cu+2 + 2e- = Cu(s)")', JSON.stringify(text));
-  }
-  const terms: Term[] = [];
-  const warnings: string[] = [];
-  sides.forEach((sideText, k) => {
-    for (const raw of sideText.trim().split(/\s+\+\s+/)) {
-      const m = TERM.exec(raw.trim());
-      if (!m) throw new ReactionError(src, 'a term: coefficient then formula', JSON.stringify(raw));
-      const coefficientText = m[1] ?? '1';
-      const coefficient = coefficientValue(coefficientText);
-      if (!(coefficient > 0 && Number.isFinite(coefficient))) {
-        throw new ReactionError(src, 'a positive coefficient', JSON.stringify(coefficientText));
-      }
-      const body = m[2]!.trim().replace(/\u2212/g, '-');
-      const side = k === 0 ? -1 : 1;
-      if (/^e-?$/.test(body)) {
-        terms.push({ side, coefficient, coefficientText, electron: true, formula: 'e-', elements: {}, charge: -1 });
-        continue;
-      }
-      const { formula, phase } = splitPhase(body);
-      let parsed;
-      try {
-        parsed = parseFormula(formula);
-      } catch (e) {
-        const hint = /\S\+\S/.test(body) && e instanceof FormulaError ? ' (separate terms with " + ", spaces around the plus)' : '';
-        throw new ReactionError(src, `a formula${hint}`, `${JSON.stringify(body)}: ${(e as Error).message}`);
-      }
-      warnings.push(...formulaWarnings(body));
-      terms.push({ side, coefficient, coefficientText, electron: false, formula, phase, elements: parsed.elements, charge: parsed.charge });
-    }
-  });
-  checkBalance(src, terms, warnings);
-  return { text: formatReaction(terms), terms, warnings };
-}
-
-function checkBalance(src: string, terms: Term[], warnings: string[]): void {
-  const left = new Map<string, number>();
-  const right = new Map<string, number>();
-  let qL = 0;
-  let qR = 0;
-  for (const t of terms) {
-    const into = t.side < 0 ? left : right;
-    for (const [el, c] of Object.entries(t.elements)) into.set(el, (into.get(el) ?? 0) + c * t.coefficient);
-    if (t.side < 0) qL += t.charge * t.coefficient;
-    else qR += t.charge * t.coefficient;
-  }
-  const fmt = (x: number) => String(Number(x.toPrecision(10)));
-  const problems: string[] = [];
-  for (const el of new Set([...left.keys(), ...right.keys()])) {
-    const a = left.get(el) ?? 0;
-    const b = right.get(el) ?? 0;
-    if (Math.abs(a - b) > 1e-9) problems.push(`${el} ${fmt(a)} on the left, ${fmt(b)} on the right`);
-  }
-  if (Math.abs(qL - qR) > 1e-9) {
-    const q = (x: number) => (x > 0 ? `+${fmt(x)}` : fmt(x));
-    problems.push(`charge ${q(qL)} on the left, ${q(qR)} on the right`);
-  }
-  if (problems.length > 0) {
-    const hint = warnings.length > 0 ? ` (${warnings.join('; ')})` : '';
-    throw new ReactionError(src, 'a balanced reaction', `unbalanced ${problems.join('; ')}${hint}`);
-  }
-}
-
-function formatReaction(terms: Term[]): string {
-  const side = (s: -1 | 1) =>
-    terms
-      .filter((t) => t.side === s)
-      .map((t) => `${t.coefficientText === '1' ? '' : t.coefficientText}${t.electron ? 'e-' : t.formula + (t.phase ? `(${t.phase})` : '')}`)
-      .join(' + ');
-  return `${side(-1)} = ${side(1)}`;
-}
-
-// ---------------------------------------------------------------------------------------------
-// Oxidation states
-
-const ALKALI = new Set(['Li', 'Na', 'K', 'Rb', 'Cs', 'Fr']);
-const ALKALINE_EARTH = new Set(['Be', 'Mg', 'Ca', 'Sr', 'Ba', 'Ra']);
-const HALOGENS = new Set(['Cl', 'Br', 'I', 'At']);
-/** Non-metals and metalloids (for the metal-hydride rule). */
-const NON_METALS = new Set(['H', 'He', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Si', 'P', 'S', 'Cl', 'Ar', 'Ge', 'As', 'Se', 'Br', 'Kr', 'Sb', 'Te', 'I', 'Xe', 'At', 'Rn']);
-
-/**
- * Oxidation state of every element of a species by the usual textbook rules, or undefined when
- * the rules do not decide it. Rules in order: an element alone has charge/count; F −1; alkali +1;
- * alkaline-earth +2; H +1 (−1 when every other element is a metal: metal hydrides); O −2, or by
- * difference when O is the only element left (peroxides H2O2, HO2⁻: −1; superoxides −½);
- * Cl/Br/I −1 when the species has no O; the one element left (S, N, C, a metal…) by difference
- * from the charge; if two or more are left and some are halogens, the halogens are taken as −1.
- * Results outside −4…+8 are rejected as undecided.
- * Worked examples: H2O → H +1, O −2; MnO4⁻ → Mn +7; H2O2 → O −1; Fe3O4 → Fe +8/3.
- */
-export function oxidationStates(elements: Record<string, number>, charge: number): Record<string, number> | undefined {
-  const els = Object.keys(elements);
-  if (els.length === 0) return undefined;
-  if (els.length === 1) return { [els[0]!]: charge / elements[els[0]!]! };
-  const st: Record<string, number> = {};
-  const set = (el: string, v: number) => {
-    if (el in elements && st[el] === undefined) st[el] = v;
-  };
-  set('F', -1);
-  for (const el of els) {
-    if (ALKALI.has(el)) set(el, 1);
-    if (ALKALINE_EARTH.has(el)) set(el, 2);
-  }
-  if ('H' in elements) set('H', els.every((e) => e === 'H' || !NON_METALS.has(e)) ? -1 : 1);
-  const open = () => els.filter((e) => st[e] === undefined);
-  const byDifference = (el: string) => {
-    let sum = 0;
-    for (const e of els) if (e !== el) sum += st[e]! * elements[e]!;
-    st[el] = (charge - sum) / elements[el]!;
-  };
-  if ('O' in elements && st.O === undefined) {
-    const rest = open();
-    if (rest.length === 1) byDifference('O');
-    else set('O', -2);
-  }
-  if (!('O' in elements)) for (const el of els) if (HALOGENS.has(el)) set(el, -1);
-  let rest = open();
-  if (rest.length > 1 && rest.some((e) => HALOGENS.has(e))) {
-    for (const el of rest) if (HALOGENS.has(el)) set(el, -1);
-    rest = open();
-  }
-  if (rest.length === 1) byDifference(rest[0]!);
-  else if (rest.length > 1) return undefined;
-  if (Object.values(st).some((v) => !Number.isFinite(v) || v > 8 + 1e-9 || v < -4 - 1e-9)) return undefined;
-  return st;
-}
-
-/**
- * Electrons transferred in a full reaction: for each element, the amount of oxidation-number
- * decrease from the left side to the right side, moving atoms as little as possible (so a
- * disproportionation 2Cu⁺ = Cu + Cu²⁺ counts 1), summed over elements:
- *   down_el = (W_el + D_el)/2,  W = Σ|CDF_left − CDF_right|·Δs (1-D transport distance),
- *   D = Σ a_left·s − Σ a_right·s (net decrease).
- * Returns undefined when an oxidation state cannot be decided. Example: 2H2O = 2H2 + O2 → 4.
- */
-export function electronsTransferred(terms: readonly { side: -1 | 1; coefficient: number; elements: Record<string, number>; charge: number }[]): number | undefined {
-  const perElement = new Map<string, Map<number, number>>(); // el → state → (left − right) amount
-  for (const t of terms) {
-    const ox = oxidationStates(t.elements, t.charge);
-    if (!ox) return undefined;
-    for (const [el, c] of Object.entries(t.elements)) {
-      const s = Number(ox[el]!.toPrecision(12));
-      const m = perElement.get(el) ?? new Map<number, number>();
-      m.set(s, (m.get(s) ?? 0) - t.side * c * t.coefficient);
-      perElement.set(el, m);
-    }
-  }
-  let n = 0;
-  for (const m of perElement.values()) {
-    const states = [...m.keys()].sort((a, b) => a - b);
-    let cdf = 0;
-    let w = 0;
-    let d = 0;
-    states.forEach((s, k) => {
-      const a = m.get(s)!;
-      d += a * s;
-      cdf += a;
-      if (k + 1 < states.length) w += Math.abs(cdf) * (states[k + 1]! - s);
-    });
-    n += (w + d) / 2;
-  }
-  return Number(n.toPrecision(10));
-}
-
-// ---------------------------------------------------------------------------------------------
-// Energies and potentials
 
 /**
  * H2(g) at 25 °C, used to complete a half-reaction with the SHE when the resolver has no H2(g):
@@ -361,7 +149,7 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
   let nFrom: CellResult['nFrom'];
   let sense: 1 | -1 = 1;
   if (opts.electrons !== undefined && !(opts.electrons > 0 && Number.isFinite(opts.electrons))) {
-    throw new ReactionError(src, 'a positive number of electrons', String(opts.electrons));
+    throw new ReactionError(src, 'a positive number of electrons', String(opts.electrons), 'electrons');
   }
   if (Math.abs(nuE) > 1e-12) {
     kind = 'half';
@@ -369,7 +157,7 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
     nFrom = 'written';
     sense = nuE < 0 ? 1 : -1;
     if (opts.electrons !== undefined && Math.abs(opts.electrons - n) > 1e-9) {
-      throw new ReactionError(src, `the ${n} electron(s) written in the half-reaction (or no electrons option)`, `${opts.electrons} electrons`);
+      throw new ReactionError(src, `the ${n} electron(s) written in the half-reaction (or no electrons option)`, `${opts.electrons} electrons`, 'electrons');
     }
     if (sense < 0) warnings.push('half-reaction written as an oxidation: the potentials given are those of the couple (reduction direction)');
   } else {
@@ -425,15 +213,10 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
   return { parsed, kind, n, nFrom, sense, resolved, species, warnings };
 }
 
-/** Evaluates a prepared reaction at `celsius` (see module comment for the formulas). */
-export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH'> = {}): CellResult {
-  if (!Number.isFinite(celsius) || celsius <= -KELVIN) throw new ReactionError(p.parsed.text, 'a temperature in °C above −273.15', String(celsius));
-  const mode = opts.extrapolation ?? 'cp';
+/** Step 1: ΔrG (kJ/mol), ΔrH (kJ/mol) and ΔrS (J/(mol·K)) at T, with the data-coverage warnings. */
+function reactionEnergies(p: Prepared, celsius: number, mode: Extrapolation, warnings: string[]): { dG: number; dH: number | null; dS: number | null } {
   const T = celsius + KELVIN;
   const at25 = Math.abs(T - T_REF) < 1e-9;
-  const warnings = [...p.warnings];
-  if (celsius < 0 || celsius > 300) warnings.push(`${celsius} °C is outside 0–300 °C, where the data extrapolation is meant to hold`);
-
   let dG = 0;
   let dH: number | null = 0;
   let dS: number | null = 0;
@@ -473,72 +256,93 @@ export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOption
       warnings.push(`constant ΔrH and ΔrS used ${Math.abs(celsius - 25).toFixed(0)} K from 25 °C: expect errors of some mV`);
     }
   }
+  return { dG, dH, dS };
+}
 
+type Potentials = Pick<CellResult, 'equilibriumPotential' | 'thermoneutralPotential' | 'dEdT' | 'signed' | 'direction'>;
+
+/** Step 2: potentials from the energies (module comment: half-reaction vs full reaction). */
+function potentials(p: Prepared, dG: number, dH: number | null, dS: number | null): Potentials {
   const nF = (p.n * F) / 1000; // kJ/(mol·V)
-  const dHv = dH;
-  const dSv = dS;
-  let E: number;
-  let Etn: number | null;
-  let slope: number | null;
-  let signed: CellResult['signed'];
-  let direction: CellDirection;
   if (p.kind === 'half') {
     // Reduction direction: ΔG_red = sense·ΔG.
-    E = (-p.sense * dG) / nF;
-    Etn = dHv === null ? null : (-p.sense * dHv) / nF;
-    slope = dSv === null ? null : (p.sense * dSv) / (p.n * F);
-    signed = { equilibriumPotential: E, thermoneutralPotential: Etn, dEdT: slope };
-    direction = p.sense > 0 ? 'reduction' : 'oxidation';
-  } else {
-    direction = dG > 0 ? 'electrolytic' : 'galvanic';
-    const s = direction === 'electrolytic' ? 1 : -1;
-    E = (s * dG) / nF;
-    Etn = dHv === null ? null : (s * dHv) / nF;
-    slope = dSv === null ? null : (-s * dSv) / (p.n * F);
-    signed = {
-      equilibriumPotential: -dG / nF,
-      thermoneutralPotential: dHv === null ? null : -dHv / nF,
-      dEdT: dSv === null ? null : dSv / (p.n * F),
+    const E = (-p.sense * dG) / nF;
+    const Etn = dH === null ? null : (-p.sense * dH) / nF;
+    const slope = dS === null ? null : (p.sense * dS) / (p.n * F);
+    return {
+      equilibriumPotential: E,
+      thermoneutralPotential: Etn,
+      dEdT: slope,
+      signed: { equilibriumPotential: E, thermoneutralPotential: Etn, dEdT: slope },
+      direction: p.sense > 0 ? 'reduction' : 'oxidation',
     };
   }
+  const direction: CellDirection = dG > 0 ? 'electrolytic' : 'galvanic';
+  const s = direction === 'electrolytic' ? 1 : -1;
+  return {
+    equilibriumPotential: (s * dG) / nF,
+    thermoneutralPotential: dH === null ? null : (s * dH) / nF,
+    dEdT: dS === null ? null : (-s * dS) / (p.n * F),
+    signed: {
+      equilibriumPotential: -dG / nF,
+      thermoneutralPotential: dH === null ? null : -dH / nF,
+      dEdT: dS === null ? null : dS / (p.n * F),
+    },
+    direction,
+  };
+}
+
+/** Step 3: half-reaction potentials against a reference electrode (E_ref = E_SHE − offset). */
+function againstReference(p: Prepared, result: CellResult, celsius: number, opts: Pick<CellOptions, 'reference' | 'pH'>): void {
+  if (opts.reference === undefined) return;
+  if (p.kind !== 'half') {
+    result.warnings.push('a reference electrode applies to half-reactions only; the cell voltage does not depend on it');
+    return;
+  }
+  let ref;
+  try {
+    ref = referenceOffset(opts.reference, celsius, opts.pH);
+  } catch (e) {
+    throw new ReactionError(p.parsed.text, 'a known reference electrode (and the pH for RHE)', (e as Error).message, 'reference');
+  }
+  result.warnings.push(...ref.warnings);
+  const Etn = result.thermoneutralPotential;
+  result.reference = {
+    label: ref.label,
+    offset: ref.offset,
+    equilibriumPotential: result.equilibriumPotential - ref.offset,
+    thermoneutralPotential: Etn === null ? null : Etn - ref.offset,
+  };
+}
+
+/** Evaluates a prepared reaction at `celsius` (see module comment for the formulas). */
+export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH'> = {}): CellResult {
+  if (!Number.isFinite(celsius) || celsius <= -KELVIN) throw new ReactionError(p.parsed.text, 'a temperature in °C above −273.15', String(celsius));
+  const mode = opts.extrapolation ?? 'cp';
+  const warnings = [...p.warnings];
+  if (celsius < 0 || celsius > 300) warnings.push(`${celsius} °C is outside 0–300 °C, where the data extrapolation is meant to hold`);
+  const { dG, dH, dS } = reactionEnergies(p, celsius, mode, warnings);
+  const pot = potentials(p, dG, dH, dS);
   const result: CellResult = {
     reaction: p.parsed.text,
     kind: p.kind,
-    temperature: { celsius, kelvin: T },
+    temperature: { celsius, kelvin: celsius + KELVIN },
     n: p.n,
     nFrom: p.nFrom,
     deltaG: dG,
-    deltaH: dHv,
-    deltaS: dSv,
-    equilibriumPotential: E,
-    thermoneutralPotential: Etn,
-    dEdT: slope,
-    direction,
+    deltaH: dH,
+    deltaS: dS,
+    equilibriumPotential: pot.equilibriumPotential,
+    thermoneutralPotential: pot.thermoneutralPotential,
+    dEdT: pot.dEdT,
+    direction: pot.direction,
     scale: p.kind === 'half' ? 'V vs SHE' : 'V (cell voltage)',
     convention: p.kind === 'half' ? HALF_CONVENTION : FULL_CONVENTION,
-    signed,
+    signed: pot.signed,
     species: p.species,
     warnings,
   };
-  if (opts.reference !== undefined) {
-    if (p.kind === 'half') {
-      let ref;
-      try {
-        ref = referenceOffset(opts.reference, celsius, opts.pH);
-      } catch (e) {
-        throw new ReactionError(p.parsed.text, 'a known reference electrode (and the pH for RHE)', (e as Error).message);
-      }
-      warnings.push(...ref.warnings);
-      result.reference = {
-        label: ref.label,
-        offset: ref.offset,
-        equilibriumPotential: E - ref.offset,
-        thermoneutralPotential: Etn === null ? null : Etn - ref.offset,
-      };
-    } else {
-      warnings.push('a reference electrode applies to half-reactions only; the cell voltage does not depend on it');
-    }
-  }
+  againstReference(p, result, celsius, opts);
   return result;
 }
 

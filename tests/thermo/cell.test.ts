@@ -3,13 +3,12 @@ import { Command } from 'commander';
 import {
   cellReaction,
   cellTable,
-  electronsTransferred,
-  oxidationStates,
-  parseReaction,
   temperatureSteps,
   type SpeciesData,
   type SpeciesLookup,
-} from '../../src/report/cell.js';
+} from '../../src/thermo/cell.js';
+import { electronsTransferred, oxidationStates } from '../../src/chem/oxidation.js';
+import { parseReaction } from '../../src/chem/reaction-parse.js';
 import { cellText } from '../../src/report/cell-format.js';
 import { registerCell } from '../../src/cli/cell.js';
 import { InputError } from '../../src/system/errors.js';

@@ -8,7 +8,7 @@ import { classify } from '../diagram/classify.js';
 import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { RegionClass } from '../model.js';
 import type { Computed } from '../pipeline.js';
-import { probeGeometry, psiAt } from '../solve/probe.js';
+import { probeGeometry, psiAt } from '../solve/point.js';
 
 export interface Crossing {
   /** Change needed: V for potential, pH units for pH (signed). */

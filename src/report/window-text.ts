@@ -1,0 +1,27 @@
+/**
+ * The plating window as plain text for people: a heading with the conditions, one table row per
+ * window, the first solid above it and the notes. Computes nothing.
+ */
+import type { WindowResult } from '../analysis/window.js';
+import type { DiagramModel } from '../model.js';
+import { table } from './table.js';
+
+/** "Plating window for Ni at 25 °C (dissolved Ni 0.1; N 1); potentials in V vs SHE." */
+export function windowHeading(m: DiagramModel): string {
+  return `Plating window for ${m.element} at ${m.temperature.celsius} °C (dissolved ${m.element} ${m.activity}${Object.keys(m.ligands).length ? `; ${Object.entries(m.ligands).map(([k, x]) => `${k} ${x}`).join(', ')}` : ''}); potentials in V vs SHE.`;
+}
+
+export function windowText(r: WindowResult, head: string): string {
+  const v = (x: number) => `${x >= 0 ? '+' : ''}${x.toFixed(3)}`;
+  if (!r.windows.length) return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n`;
+  const rows = r.windows.map((w) => [
+    `${w.pH[0].toFixed(2)}–${w.pH[1].toFixed(2)}`,
+    w.dissolved.join(', '),
+    `${v(w.deposition[0].E)} … ${v(w.deposition[w.deposition.length - 1].E)}`,
+    `${v(w.marginToHydrogen.atLowPH)} … ${v(w.marginToHydrogen.atHighPH)}`,
+    `${w.boundedBy.low ?? 'edge'} / ${w.boundedBy.high ?? 'edge'}`,
+  ]);
+  const t = table(['pH range', 'dissolved form', 'E_dep at ends / V vs SHE', 'E_dep − E(H2) / V', 'bounded by (low / high pH)'], rows);
+  const fs = r.firstSolid ? `First solid above the window: ${r.firstSolid.species} from pH ${r.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.';
+  return `${head}\n\n${t}\n\n${fs}\n${r.notes.map((n) => `Note: ${n}`).join('\n')}\nEquilibrium thermodynamics only — not kinetics; check against the bath supplier's data and a qualified plating professional.\n`;
+}
