@@ -2,6 +2,7 @@
  * Builds the renderer-neutral scene of a diagram figure: frame, axes, region fills, lines,
  * labels, legend and caption, in points (1/72 in) with the origin at the top left. Pure: no I/O.
  */
+import { FigureFitError } from '../errors.js';
 import type { BoundaryModel, DiagramModel, RegionClass } from '../model.js';
 import { niceTicks, type Tick } from './axes.js';
 import {
@@ -171,7 +172,8 @@ interface LegendEntry {
 }
 
 /**
- * Builds the figure scene. Throws Error for invalid options or a figure too small for its plot.
+ * Builds the figure scene. Throws FigureFitError (naming the option) for a figure too small for its
+ * plot, Error for other invalid options.
  */
 export function buildScene(input: FigureInput): Scene {
   const o = input.options;
@@ -279,7 +281,8 @@ export function buildScene(input: FigureInput): Scene {
   below = captionTop + captionLines.length * capLead + pad * 0.6;
   const plot: Rect = { x: left, y: top, w: W - left - right, h: H - top - below };
   if (plot.h < 4 * fs * 3 || plot.w < 4 * fs * 4) {
-    throw new Error(
+    throw new FigureFitError(
+      plot.w < 4 * fs * 4 ? '--width' : '--height',
       `figure ${o.width}×${o.height} mm is too small for the plot with its caption and legend (plot ${(plot.w * 25.4 / 72).toFixed(0)}×${((plot.h * 25.4) / 72).toFixed(0)} mm); make it larger or hide the caption/legend`,
     );
   }
