@@ -11,6 +11,7 @@
  * Content-Security-Policy with hashes allows only this page's own script and style.
  */
 import { createHash } from 'node:crypto';
+import { lineEquationText } from '../diagram/line-text.js';
 import type { DiagramModel, LineCoefficients, RegionClass } from '../model.js';
 import type { FigureOptions } from './options.js';
 import type { Scene } from './scene-types.js';
@@ -54,19 +55,11 @@ export function referenceName(label: string): string {
   return m ? m[1]! : label;
 }
 
-function fixed(v: number, d: number): string {
-  let s = v.toFixed(d);
-  if (Number(s) === 0) s = (0).toFixed(d);
-  return s.replace('-', '\u2212');
-}
 
 /** A potential line moved to another reference scale: E_ref = E_SHE − offset. Null for pH lines. */
 export function equationInScale(line: LineCoefficients, offset: number, name: string): string | null {
   if (line.kind !== 'E' || line.intercept === undefined) return null;
-  const a = fixed(line.intercept - offset, 4);
-  const b = line.slope ?? 0;
-  const slope = b === 0 ? '' : ` ${b < 0 ? '\u2212' : '+'} ${Math.abs(b).toFixed(4)} pH`;
-  return `E = ${a}${slope} V vs ${name}`;
+  return lineEquationText(line, { scale: name, offset, minus: '\u2212' });
 }
 
 const r6 = (v: number): number => {
