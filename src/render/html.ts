@@ -12,19 +12,12 @@
  */
 import { createHash } from 'node:crypto';
 import { lineEquationText } from '../diagram/line-text.js';
-import type { DiagramModel, LineCoefficients, RegionClass } from '../model.js';
+import { verdictOf } from '../diagram/verdict.js';
+import type { DiagramModel, LineCoefficients } from '../model.js';
 import type { FigureOptions } from './options.js';
 import type { Scene } from './scene-types.js';
 import { esc, sceneToSvg } from './svg.js';
 import { formulaRuns, runsUnicode } from './typeset.js';
-
-/** Usual reading of a region class on an E–pH diagram (trade terms). */
-export const CLASS_READING: Record<RegionClass, string> = {
-  element: 'immunity',
-  solid: 'passivation',
-  dissolved: 'corrosion',
-  gas: 'gas phase',
-};
 
 /** "Fe+2" → "Fe²⁺", "Fe3O4(s)" → "Fe₃O₄(s)", "e-" → "e⁻". */
 export function formulaUnicode(formula: string): string {
@@ -94,7 +87,7 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
       label: formulaUnicode(r.species),
       formula: r.species,
       name: r.name ?? '',
-      reading: CLASS_READING[r.class],
+      reading: r.verdict ?? verdictOf(r.class, r.species),
       polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
     })),
     boundaries: model.boundaries.map((b) => ({

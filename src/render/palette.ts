@@ -16,6 +16,7 @@
  * Neighbouring regions of the same class get different tints: a proper colouring of the
  * same-class adjacency graph (depth-first search in a fixed order), see assignFills.
  */
+import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { RegionClass } from '../model.js';
 
 export const CLASS_TINTS: Record<RegionClass, readonly string[]> = {
@@ -25,12 +26,28 @@ export const CLASS_TINTS: Record<RegionClass, readonly string[]> = {
   gas: ['#e7d6ea', '#90889f', '#beaec1'],
 };
 
-/** Words for the class legend (trade terms for the usual reading of a region class). */
+/** The tint group that shows each verdict when a region is reclassified away from its class's own. */
+const VERDICT_GROUP: Record<Verdict, RegionClass> = { immunity: 'element', passivation: 'solid', corrosion: 'dissolved' };
+
+/**
+ * The tint group (and legend swatch) of a region: its class, unless its verdict (the model's, with
+ * the file's `classes:` applied; the rule is diagram/verdict.ts) differs from the verdict of its
+ * class — then the group of that verdict, e.g. Fe₃O₄ reclassified as corrosion is tinted and keyed
+ * with the dissolved (corrosion) regions.
+ */
+export function fillGroup(cls: RegionClass, verdict?: Verdict): RegionClass {
+  if (verdict === undefined || verdict === verdictOf(cls, '')) return cls;
+  return VERDICT_GROUP[verdict];
+}
+
+const GROUP_NOUN: Record<RegionClass, string> = { element: 'metal', solid: 'solid', dissolved: 'dissolved', gas: 'gas' };
+
+/** Words for the class legend: the group and its verdict (trade terms), "gas" alone. */
 export const CLASS_NAMES: Record<RegionClass, string> = {
-  element: 'metal (immunity)',
-  solid: 'solid (passivation)',
-  dissolved: 'dissolved (corrosion)',
-  gas: 'gas',
+  element: `${GROUP_NOUN.element} (${verdictOf('element', '')})`,
+  solid: `${GROUP_NOUN.solid} (${verdictOf('solid', '')})`,
+  dissolved: `${GROUP_NOUN.dissolved} (${verdictOf('dissolved', '')})`,
+  gas: GROUP_NOUN.gas,
 };
 
 /** Parses "#rgb" or "#rrggbb" into 0…255 channels; throws Error on anything else. */

@@ -36,7 +36,7 @@ import {
 } from './labels.js';
 import { CAP_HEIGHT, FONT_SAFETY, runsExtent, runsWidth, stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
-import { assignFills, CLASS_NAMES, CLASS_TINTS, inks, normColor, textInk, toGray } from './palette.js';
+import { assignFills, CLASS_NAMES, CLASS_TINTS, fillGroup, inks, normColor, textInk, toGray } from './palette.js';
 import type { Point, Rect, Scene, SceneGroup, SceneItem, ScenePath, SceneText, TextRun } from './scene-types.js';
 import { expandScripts, formulaRuns, plainRuns, powerOfTenRuns, quantityRuns, richRuns, runsUnicode } from './typeset.js';
 
@@ -220,7 +220,9 @@ export function buildScene(input: FigureInput): Scene {
     for (const l of wrapText(CAUTION, capSize, innerW)) captionLines.push({ text: l, italic: true });
   }
   const legend: LegendEntry[] = [];
-  const present = new Set<RegionClass>(model.regions.map((r) => r.class));
+  // Swatches by tint group: a region's class, or the group of the verdict it was reclassified to.
+  const present = new Set<RegionClass>(model.regions.map((r) => fillGroup(r.class, r.verdict)));
+  const reclassified = (c: RegionClass): string[] => [...new Set(model.regions.filter((r) => r.class !== c && fillGroup(r.class, r.verdict) === c).map((r) => r.species))].sort();
   const k = Math.max(0.8, lw);
   const waterDash = [3 * k, 1.7 * k];
   if (o.show.legend) {
@@ -228,7 +230,9 @@ export function buildScene(input: FigureInput): Scene {
       for (const c of ['element', 'solid', 'dissolved', 'gas'] as RegionClass[]) {
         if (!present.has(c)) continue;
         const tint = CLASS_TINTS[c][0]!;
-        legend.push({ kind: 'swatch', fill: o.style === 'gray' ? toGray(tint) : tint, runs: plainRuns(CLASS_NAMES[c]) });
+        const moved = reclassified(c);
+        const runs = moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
+        legend.push({ kind: 'swatch', fill: o.style === 'gray' ? toGray(tint) : tint, runs });
       }
     }
     if ((input.families?.length ?? 0) > 0 || (input.overlays?.length ?? 0) > 0) {
@@ -310,7 +314,7 @@ export function buildScene(input: FigureInput): Scene {
       }
   }
   const fills = assignFills(
-    model.regions.map((r, i) => ({ species: r.species, class: r.class, neighbours: [...neighbours[i]!].sort((a, b) => a - b), area: regionPolys[i]!.flat().reduce((sum, ring) => sum + Math.abs(ringArea(ring)), 0) })),
+    model.regions.map((r, i) => ({ species: r.species, class: fillGroup(r.class, r.verdict), neighbours: [...neighbours[i]!].sort((a, b) => a - b), area: regionPolys[i]!.flat().reduce((sum, ring) => sum + Math.abs(ringArea(ring)), 0) })),
     o.style,
     o.colors,
   );
