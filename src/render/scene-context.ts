@@ -5,7 +5,8 @@
  */
 import type { BoundaryModel, DiagramModel } from '../model.js';
 import type { Tick } from './axes.js';
-import { clipPolyline, inflate, polylineSegments, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
+import { clipPolyline } from './clip.js';
+import { inflate, polylineSegments, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
 import type { Layout } from './labels.js';
 import { stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';

@@ -3,7 +3,8 @@
  * of one tint group differ; palette.assignFills) and the fill items under everything else.
  */
 import type { DiagramModel } from '../model.js';
-import { clipRing, insideRings, ringArea, simplifyCollinear } from './geometry.js';
+import { clipRing } from './clip.js';
+import { insideRings, ringArea, simplifyCollinear } from './geometry.js';
 import { assignFills, fillGroup } from './palette.js';
 import type { SceneContext } from './scene-context.js';
 import type { Point, SceneItem } from './scene-types.js';

@@ -5,7 +5,9 @@
  * gets a knock-out in the fill under it.
  */
 import { inflate, type Segment } from './geometry.js';
-import { baselineForCentre, placeMarkLabel, placeRegionLabels, type RegionLabelPlacement, type RegionLabelRequest } from './labels.js';
+import { placeMarkLabel } from './label-marks.js';
+import { placeRegionLabels, type RegionLabelPlacement, type RegionLabelRequest } from './label-regions.js';
+import { baselineForCentre } from './labels.js';
 import { runsExtent } from './metrics.js';
 import { MIN_FONT_PT } from './options.js';
 import { knockout, line, text, type SceneContext } from './scene-context.js';

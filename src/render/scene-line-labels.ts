@@ -3,8 +3,11 @@
  * every line and label: water couples along their lines, overlay layers' region formulas, family
  * activities at line ends or along them, "neutral" beside its line, ligand fields at their pole.
  */
-import { pointAlong, polylineLength, rectPole } from './geometry.js';
-import { baselineForCentre, boxSegments, firstFree, orientedBounds, placeLayerLabels, type LayerLabelRequest, type OrientedBox, type RegionLabelPlacement } from './labels.js';
+import { pointAlong, polylineLength } from './geometry.js';
+import { rectPole } from './pole.js';
+import { placeLayerLabels, type LayerLabelRequest } from './label-marks.js';
+import type { RegionLabelPlacement } from './label-regions.js';
+import { baselineForCentre, boxSegments, firstFree, orientedBounds, type OrientedBox } from './labels.js';
 import { FONT_SAFETY, runsExtent, runsWidth } from './metrics.js';
 import { MIN_FONT_PT } from './options.js';
 import { textInk } from './palette.js';

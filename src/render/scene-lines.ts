@@ -4,7 +4,8 @@
  * the label layout (boundaries and region edges as hard obstacles, the others as soft ones that a
  * label may cover with a knock-out) and returns its items and what its labels need later.
  */
-import { clipRing, polylineSegments, ringSegments, type Segment } from './geometry.js';
+import { clipRing } from './clip.js';
+import { polylineSegments, ringSegments, type Segment } from './geometry.js';
 import { coincides, dashStroke, figLine, line, onFrame, overlayInk, parseDash, segsOf, type SceneContext } from './scene-context.js';
 import type { Point, SceneItem, TextRun } from './scene-types.js';
 import { formulaRuns, powerOfTenRuns } from './typeset.js';

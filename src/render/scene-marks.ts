@@ -3,7 +3,8 @@
  * points (dots). Their outlines are soft obstacles for region labels; their own labels are placed
  * later (scene-labels.ts), from the jobs returned here.
  */
-import { clipPolyline, inflate, ringSegments, type Segment } from './geometry.js';
+import { clipPolyline } from './clip.js';
+import { inflate, ringSegments, type Segment } from './geometry.js';
 import { figLine, line, rectPath, rectRing, segsOf, type SceneContext } from './scene-context.js';
 import type { Point, Rect, SceneItem } from './scene-types.js';
 

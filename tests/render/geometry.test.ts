@@ -1,6 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { clipPolyline, clipRing, insideRings, rectPole, scaledChebyshev, segmentHitsRect, simplifyCollinear } from '../../src/render/geometry.js';
+import { clipPolyline, clipRing } from '../../src/render/clip.js';
+import { insideRings, scaledChebyshev, segmentHitsRect, simplifyCollinear } from '../../src/render/geometry.js';
+import { rectPole } from '../../src/render/pole.js';
 import type { Point } from '../../src/render/scene-types.js';
 import { DEFAULT_FIGURE } from '../../src/render/options.js';
 import { buildScene } from '../../src/render/scene.js';
