@@ -4,8 +4,9 @@
  * later (scene-labels.ts), from the jobs returned here.
  */
 import { clipPolyline } from './clip.js';
-import { inflate, ringSegments, type Segment } from './geometry.js';
-import { figLine, line, rectPath, rectRing, segsOf, type SceneContext } from './scene-context.js';
+import { inflate, type Segment } from './geometry.js';
+import { boxSegments } from './labels.js';
+import { figLine, line, rectPath, segsOf, type SceneContext } from './scene-context.js';
 import type { Point, Rect, SceneItem } from './scene-types.js';
 
 export interface MarkJobs {
@@ -38,7 +39,7 @@ function boxMarks(ctx: SceneContext, items: SceneItem[], jobs: MarkJobs): void {
     }
     items.push(line('box-hatch', hatch, ink.mark, Math.max(0.25, 0.3 * lw), null, { data: { label: bx.label } }));
     items.push(rectPath('box', rect, { stroke: ink.mark, strokeWidth: markW, data: { label: bx.label } }));
-    layout.soft.push(...ringSegments([rectRing(rect)]));
+    layout.soft.push(...boxSegments(rect));
     jobs.boxes.push({ rect, label: bx.label });
   }
 }
@@ -93,8 +94,7 @@ function pointMarks(ctx: SceneContext, items: SceneItem[], jobs: MarkJobs): void
     const at = fr.toFig([p.pH, p.E]);
     if (at[0] < plot.x || at[0] > plot.x + plot.w || at[1] < plot.y || at[1] > plot.y + plot.h) continue;
     items.push({ type: 'circle', role: 'point', cx: at[0], cy: at[1], r, fill: ink.mark, stroke: '#ffffff', strokeWidth: 0.5, data: { label: p.label } });
-    const q = r + 0.5;
-    layout.soft.push(...ringSegments([[[at[0] - q, at[1] - q], [at[0] + q, at[1] - q], [at[0] + q, at[1] + q], [at[0] - q, at[1] + q]]]));
+    layout.soft.push(...boxSegments(inflate({ x: at[0], y: at[1], w: 0, h: 0 }, r + 0.5)));
     jobs.points.push({ at, label: p.label, r });
   }
 }
