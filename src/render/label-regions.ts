@@ -48,81 +48,99 @@ export function placeRegionLabels(
   size: number,
   minSize: number,
 ): (RegionLabelPlacement | null)[] {
-  // Clearance around the ink, in pt, kept at full value even when the font shrinks.
-  const padX = 0.3 * size;
-  const padY = 0.22 * size;
   const out: (RegionLabelPlacement | null)[] = requests.map(() => null);
   const outside: number[] = [];
+  // (1) Inside each region, largest region first; (2) the rest outside, in the cheapest order.
   requests.forEach((req, i) => {
-    // Only lines near the region can limit its label.
-    const near = nearSegments(req.rings);
-    const hardNear = near(layout.hard);
-    const softNear = near(layout.soft);
-    const bothNear = [...hardNear, ...softNear];
-    const w1 = (runsWidth(req.runs, size) * FONT_SAFETY) / size; // width per pt of font
-    const { top, bottom } = runsExtent(req.runs, size);
-    const h1 = (bottom - top) / size;
-    const half = (f: number, turned: boolean): [number, number] => {
-      const along = (w1 * f) / 2 + padX;
-      const across = (h1 * f) / 2 + padY;
-      return turned ? [across, along] : [along, across];
-    };
-    // Whether a label at font size f fits clear of soft lines ('soft'), of hard lines only
-    // ('hard') or not at all (null): a feasibility search, much cheaper than finding the best centre.
-    // A label that would fit only with less than 3 % of its padded size to spare counts as not
-    // fitting (the search then ends far sooner on long bands of nearly equal clearance).
-    const probe = { need: 1, precision: 0.03 };
-    const fits = (f: number, turned: boolean): 'soft' | 'hard' | null => {
-      const [hx, hy] = half(f, turned);
-      if (rectPole(req.rings, bothNear, hx, hy, probe).scale >= 1) return 'soft';
-      if (rectPole(req.rings, hardNear, hx, hy, probe).scale >= 1) return 'hard';
-      return null;
-    };
-    // Centre for font size f, given what it can keep clear of: the most central place (nearest
-    // the region's centroid) where the padded label could grow by half again, else the place of
-    // largest clearance.
-    const centre = (f: number, turned: boolean, clear: 'soft' | 'hard'): Point => {
-      const [hx, hy] = half(f, turned);
-      const obstacles = clear === 'soft' ? bothNear : hardNear;
-      const middle = rectPole(req.rings, obstacles, hx, hy, { cap: LABEL_ROOM });
-      // The centring may trade clearance for position only while the label still fits.
-      return middle.scale >= 1 ? middle.point : rectPole(req.rings, obstacles, hx, hy).point;
-    };
-    const largest = (turned: boolean): { f: number; point: Point } | null => {
-      const full = fits(size, turned);
-      if (full) return { f: size, point: centre(size, turned, full) };
-      let low = fits(minSize, turned);
-      if (!low) return null;
-      // Largest size in [minSize, size] that fits (bisection, 6 steps ≈ 1.5 % of the range).
-      let lo = minSize;
-      let hi = size;
-      for (let k = 0; k < 6; k++) {
-        const mid = (lo + hi) / 2;
-        const m = fits(mid, turned);
-        if (m) {
-          lo = mid;
-          low = m;
-        } else hi = mid;
-      }
-      return { f: lo, point: centre(lo, turned, low) };
-    };
-    let turned = false;
-    let best = largest(false);
-    if (!best && tallNarrow(req.rings)) {
-      best = largest(true);
-      turned = best !== null;
-    }
+    const best = placeInside(layout, req, size, minSize);
     if (best) {
       const fs = Math.round(best.f * 100) / 100;
       const [cx, cy] = best.point;
-      const box = centredBox(req.runs, fs, cx, cy, turned);
-      out[i] = { key: req.key, runs: req.runs, size: fs, cx, cy, angle: turned ? -90 : 0, box };
+      const box = centredBox(req.runs, fs, cx, cy, best.turned);
+      out[i] = { key: req.key, runs: req.runs, size: fs, cx, cy, angle: best.turned ? -90 : 0, box };
       layout.addBox(box, 'region-label');
     } else if (!req.optional) {
       outside.push(i);
     }
   });
-  if (outside.length === 0) return out;
+  if (outside.length > 0) placeAllOutside(layout, requests, outside, size, out);
+  return out;
+}
+
+/**
+ * The largest size in [minSize, size] at which a region's label fits inside it, and its centre:
+ * upright text only in a tall narrow region where flat text does not fit. Null: it does not fit.
+ */
+function placeInside(layout: Layout, req: RegionLabelRequest, size: number, minSize: number): { f: number; point: Point; turned: boolean } | null {
+  // Clearance around the ink, in pt, kept at full value even when the font shrinks.
+  const padX = 0.3 * size;
+  const padY = 0.22 * size;
+  // Only lines near the region can limit its label.
+  const near = nearSegments(req.rings);
+  const hardNear = near(layout.hard);
+  const softNear = near(layout.soft);
+  const bothNear = [...hardNear, ...softNear];
+  const w1 = (runsWidth(req.runs, size) * FONT_SAFETY) / size; // width per pt of font
+  const { top, bottom } = runsExtent(req.runs, size);
+  const h1 = (bottom - top) / size;
+  const half = (f: number, turned: boolean): [number, number] => {
+    const along = (w1 * f) / 2 + padX;
+    const across = (h1 * f) / 2 + padY;
+    return turned ? [across, along] : [along, across];
+  };
+  // Whether a label at font size f fits clear of soft lines ('soft'), of hard lines only
+  // ('hard') or not at all (null): a feasibility search, much cheaper than finding the best centre.
+  // A label that would fit only with less than 3 % of its padded size to spare counts as not
+  // fitting (the search then ends far sooner on long bands of nearly equal clearance).
+  const probe = { need: 1, precision: 0.03 };
+  const fits = (f: number, turned: boolean): 'soft' | 'hard' | null => {
+    const [hx, hy] = half(f, turned);
+    if (rectPole(req.rings, bothNear, hx, hy, probe).scale >= 1) return 'soft';
+    if (rectPole(req.rings, hardNear, hx, hy, probe).scale >= 1) return 'hard';
+    return null;
+  };
+  // Centre for font size f, given what it can keep clear of: the most central place (nearest
+  // the region's centroid) where the padded label could grow by half again, else the place of
+  // largest clearance.
+  const centre = (f: number, turned: boolean, clear: 'soft' | 'hard'): Point => {
+    const [hx, hy] = half(f, turned);
+    const obstacles = clear === 'soft' ? bothNear : hardNear;
+    const middle = rectPole(req.rings, obstacles, hx, hy, { cap: LABEL_ROOM });
+    // The centring may trade clearance for position only while the label still fits.
+    return middle.scale >= 1 ? middle.point : rectPole(req.rings, obstacles, hx, hy).point;
+  };
+  const largest = (turned: boolean): { f: number; point: Point } | null => {
+    const full = fits(size, turned);
+    if (full) return { f: size, point: centre(size, turned, full) };
+    let low = fits(minSize, turned);
+    if (!low) return null;
+    // Largest size in [minSize, size] that fits (bisection, 6 steps ≈ 1.5 % of the range).
+    let lo = minSize;
+    let hi = size;
+    for (let k = 0; k < 6; k++) {
+      const mid = (lo + hi) / 2;
+      const m = fits(mid, turned);
+      if (m) {
+        lo = mid;
+        low = m;
+      } else hi = mid;
+    }
+    return { f: lo, point: centre(lo, turned, low) };
+  };
+  let turned = false;
+  let best = largest(false);
+  if (!best && tallNarrow(req.rings)) {
+    best = largest(true);
+    turned = best !== null;
+  }
+  return best ? { ...best, turned } : null;
+}
+
+/**
+ * Outside places for the labels that fit nowhere inside: the orders of the outside labels are
+ * tried (all of them up to 4 labels, else as given) and the cheapest layout is kept.
+ */
+function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[], outside: number[], size: number, out: (RegionLabelPlacement | null)[]): void {
   // Leader anchors: each region's own pole (a square probe; 1 pt is ample for a dot).
   const anchors = outside.map((i) => rectPole(requests[i]!.rings, [], 1, 1, 1).point);
   // Try the orders of the outside labels (all of them up to 4 labels, else as given) and keep the
@@ -151,7 +169,6 @@ export function placeRegionLabels(
   layout.hard.push(...best!.hard);
   layout.leaders.push(...best!.leaders);
   for (const [i, pl] of best!.placed) out[i] = pl;
-  return out;
 }
 
 /** All orderings of a short list, in lexicographic order of positions (the given order first). */
