@@ -124,67 +124,10 @@ export function rectPole(
   const opts: PoleOptions = typeof precisionOrOpts === 'number' ? { precision: precisionOrOpts } : precisionOrOpts;
   const precision = opts.precision ?? 0.01;
   const need = opts.need;
-  let minX = Infinity;
-  let minY = Infinity;
-  let maxX = -Infinity;
-  let maxY = -Infinity;
-  let nSeg = obstacles.length;
-  for (const ring of rings) {
-    nSeg += ring.length;
-    for (const [x, y] of ring) {
-      if (x < minX) minX = x;
-      if (y < minY) minY = y;
-      if (x > maxX) maxX = x;
-      if (y > maxY) maxY = y;
-    }
-  }
+  // (1) Bounding box; (2) segments in scaled coordinates; (3) the signed L∞ distance.
+  const { minX, minY, maxX, maxY } = ringsBounds(rings);
   if (!(maxX > minX && maxY > minY)) return { point: [minX, minY], scale: 0 };
-  // Work in scaled coordinates so the metric is plain L∞. Per segment: ax, ay, bx, by, then box.
-  const S = new Float64Array(nSeg * 8);
-  let k = 0;
-  const add = (a: Point, b: Point): void => {
-    const ax = a[0] / hx;
-    const ay = a[1] / hy;
-    const bx = b[0] / hx;
-    const by = b[1] / hy;
-    S[k] = ax;
-    S[k + 1] = ay;
-    S[k + 2] = bx;
-    S[k + 3] = by;
-    S[k + 4] = Math.min(ax, bx);
-    S[k + 5] = Math.min(ay, by);
-    S[k + 6] = Math.max(ax, bx);
-    S[k + 7] = Math.max(ay, by);
-    k += 8;
-  };
-  for (const ring of rings) for (let i = 0; i < ring.length; i++) add(ring[i]!, ring[(i + 1) % ring.length]!);
-  for (const [a, b] of obstacles) add(a, b);
-  // Ring edges (scaled) for the even–odd inside test: the first entries of S.
-  const nEdge = nSeg - obstacles.length;
-  const inside = (x: number, y: number): boolean => {
-    let c = false;
-    for (let i = 0; i < nEdge * 8; i += 8) {
-      const yi = S[i + 1]!;
-      const yj = S[i + 3]!;
-      if (yi > y !== yj > y) {
-        const xi = S[i]!;
-        if (x < ((S[i + 2]! - xi) * (y - yi)) / (yj - yi) + xi) c = !c;
-      }
-    }
-    return c;
-  };
-  const dist = (x: number, y: number): number => {
-    let d = Infinity;
-    for (let i = 0; i < k; i += 8) {
-      // Lower bound: L∞ distance to the segment's box.
-      const ox = x < S[i + 4]! ? S[i + 4]! - x : x > S[i + 6]! ? x - S[i + 6]! : 0;
-      const oy = y < S[i + 5]! ? S[i + 5]! - y : y > S[i + 7]! ? y - S[i + 7]! : 0;
-      if ((ox > oy ? ox : oy) >= d) continue;
-      const v = chebyshevToSegment(S[i]! - x, S[i + 1]! - y, S[i + 2]! - x, S[i + 3]! - y);
-      if (v < d) d = v;
-    }
-    return inside(x, y) ? d : -d;
-  };
+  const dist = signedDistance(scaledSegments(rings, obstacles, hx, hy), rings.reduce((n, ring) => n + ring.length, 0));
   const x0 = minX / hx;
   const y0 = minY / hy;
   const w = maxX / hx - x0;
@@ -252,4 +195,84 @@ export function rectPole(
     return { point: [r.x * hx, r.y * hy], scale: r.d };
   }
   return { point: [best.x * hx, best.y * hy], scale: best.d };
+}
+
+/** Bounding box of the rings' vertices. */
+function ringsBounds(rings: readonly (readonly Point[])[]): { minX: number; minY: number; maxX: number; maxY: number } {
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (const ring of rings) {
+    for (const [x, y] of ring) {
+      if (x < minX) minX = x;
+      if (y < minY) minY = y;
+      if (x > maxX) maxX = x;
+      if (y > maxY) maxY = y;
+    }
+  }
+  return { minX, minY, maxX, maxY };
+}
+
+/**
+ * Ring edges then obstacles in scaled coordinates (x/hx, y/hy), so the metric is plain L∞: per
+ * segment ax, ay, bx, by, then its box (min x, min y, max x, max y) — 8 numbers.
+ */
+function scaledSegments(rings: readonly (readonly Point[])[], obstacles: readonly Segment[], hx: number, hy: number): Float64Array {
+  let nSeg = obstacles.length;
+  for (const ring of rings) nSeg += ring.length;
+  const S = new Float64Array(nSeg * 8);
+  let k = 0;
+  const add = (a: Point, b: Point): void => {
+    const ax = a[0] / hx;
+    const ay = a[1] / hy;
+    const bx = b[0] / hx;
+    const by = b[1] / hy;
+    S[k] = ax;
+    S[k + 1] = ay;
+    S[k + 2] = bx;
+    S[k + 3] = by;
+    S[k + 4] = Math.min(ax, bx);
+    S[k + 5] = Math.min(ay, by);
+    S[k + 6] = Math.max(ax, bx);
+    S[k + 7] = Math.max(ay, by);
+    k += 8;
+  };
+  for (const ring of rings) for (let i = 0; i < ring.length; i++) add(ring[i]!, ring[(i + 1) % ring.length]!);
+  for (const [a, b] of obstacles) add(a, b);
+  return S;
+}
+
+/**
+ * Signed L∞ distance (scaled units) from a point to the nearest segment of S: positive inside the
+ * rings (even–odd over the first `nEdge` entries, the ring edges), negative outside. A segment whose
+ * box is already farther than the nearest one found is skipped (exact: the L∞ distance to a segment
+ * is at least the distance to its box).
+ */
+function signedDistance(S: Float64Array, nEdge: number): (x: number, y: number) => number {
+  const k = S.length;
+  const inside = (x: number, y: number): boolean => {
+    let c = false;
+    for (let i = 0; i < nEdge * 8; i += 8) {
+      const yi = S[i + 1]!;
+      const yj = S[i + 3]!;
+      if (yi > y !== yj > y) {
+        const xi = S[i]!;
+        if (x < ((S[i + 2]! - xi) * (y - yi)) / (yj - yi) + xi) c = !c;
+      }
+    }
+    return c;
+  };
+  return (x, y) => {
+    let d = Infinity;
+    for (let i = 0; i < k; i += 8) {
+      // Lower bound: L∞ distance to the segment's box.
+      const ox = x < S[i + 4]! ? S[i + 4]! - x : x > S[i + 6]! ? x - S[i + 6]! : 0;
+      const oy = y < S[i + 5]! ? S[i + 5]! - y : y > S[i + 7]! ? y - S[i + 7]! : 0;
+      if ((ox > oy ? ox : oy) >= d) continue;
+      const v = chebyshevToSegment(S[i]! - x, S[i + 1]! - y, S[i + 2]! - x, S[i + 3]! - y);
+      if (v < d) d = v;
+    }
+    return inside(x, y) ? d : -d;
+  };
 }
