@@ -165,6 +165,16 @@ export function rectsOverlap(a: Rect, b: Rect, gap = 0): boolean {
   return a.x < b.x + b.w + gap && b.x < a.x + a.w + gap && a.y < b.y + b.h + gap && b.y < a.y + a.h + gap;
 }
 
+/** The four corners of a rectangle, clockwise on the page from the top left (a closed ring). */
+export function rectRing(r: Rect): Point[] {
+  return [
+    [r.x, r.y],
+    [r.x + r.w, r.y],
+    [r.x + r.w, r.y + r.h],
+    [r.x, r.y + r.h],
+  ];
+}
+
 /** Rectangle grown by d on every side. */
 export function inflate(r: Rect, d: number): Rect {
   return { x: r.x - d, y: r.y - d, w: r.w + 2 * d, h: r.h + 2 * d };

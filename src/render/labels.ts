@@ -5,7 +5,7 @@
  * tried in a fixed order and ties go to the first. Region labels: label-regions.ts; mark and
  * overlay-layer labels: label-marks.ts.
  */
-import { rectInside, rectsOverlap, segmentHitsRect, type Segment } from './geometry.js';
+import { rectInside, rectRing, rectsOverlap, ringSegments, segmentHitsRect, type Segment } from './geometry.js';
 import { FONT_SAFETY, runsExtent, runsWidth } from './metrics.js';
 import type { Point, Rect, TextRun } from './scene-types.js';
 
@@ -213,16 +213,7 @@ export function firstFree(layout: Layout, candidates: readonly OrientedBox[], ga
   return -1;
 }
 
-/** The four edges of a rectangle. */
+/** The four edges of a rectangle (top, right, bottom, left). */
 export function boxSegments(r: Rect): Segment[] {
-  const a: Point = [r.x, r.y];
-  const b: Point = [r.x + r.w, r.y];
-  const c: Point = [r.x + r.w, r.y + r.h];
-  const d: Point = [r.x, r.y + r.h];
-  return [
-    [a, b],
-    [b, c],
-    [c, d],
-    [d, a],
-  ];
+  return ringSegments([rectRing(r)]);
 }

@@ -6,7 +6,7 @@
 import type { BoundaryModel, DiagramModel } from '../model.js';
 import type { Tick } from './axes.js';
 import { clipPolyline } from './clip.js';
-import { inflate, polylineSegments, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
+import { inflate, polylineSegments, rectRing, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
 import type { Layout } from './labels.js';
 import { stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
@@ -182,16 +182,6 @@ export const line = (role: string, pieces: Point[][], stroke: string, width: num
   dash,
   ...extra,
 });
-
-/** The four corners of a rectangle, clockwise from the top left (a closed ring). */
-export function rectRing(r: Rect): Point[] {
-  return [
-    [r.x, r.y],
-    [r.x + r.w, r.y],
-    [r.x + r.w, r.y + r.h],
-    [r.x, r.y + r.h],
-  ];
-}
 
 /** A closed rectangle path item (no fill and no stroke unless given). */
 export function rectPath(role: string, r: Rect, extra: Partial<ScenePath> = {}): ScenePath {

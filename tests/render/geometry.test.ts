@@ -162,3 +162,13 @@ describe('layout over many sizes (property)', () => {
     );
   });
 });
+
+describe('rectangle ring and edges (the one rectangle helper)', () => {
+  it('lists the corners clockwise on the page from the top left, and the four edges between them', async () => {
+    const { rectRing } = await import('../../src/render/geometry.js');
+    const { boxSegments } = await import('../../src/render/labels.js');
+    const r = { x: 1, y: 2, w: 3, h: 4 };
+    expect(rectRing(r)).toEqual([[1, 2], [4, 2], [4, 6], [1, 6]]);
+    expect(boxSegments(r)).toEqual([[[1, 2], [4, 2]], [[4, 2], [4, 6]], [[4, 6], [1, 6]], [[1, 6], [1, 2]]]);
+  });
+});
