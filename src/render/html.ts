@@ -11,19 +11,13 @@
  * Content-Security-Policy with hashes allows only this page's own script and style.
  */
 import { createHash } from 'node:crypto';
-import type { DiagramModel, LineCoefficients, RegionClass } from '../model.js';
+import { lineEquationText } from '../diagram/line-text.js';
+import { verdictOf } from '../diagram/verdict.js';
+import type { DiagramModel, LineCoefficients } from '../model.js';
 import type { FigureOptions } from './options.js';
 import type { Scene } from './scene-types.js';
 import { esc, sceneToSvg } from './svg.js';
 import { formulaRuns, runsUnicode } from './typeset.js';
-
-/** Usual reading of a region class on an E–pH diagram (trade terms). */
-export const CLASS_READING: Record<RegionClass, string> = {
-  element: 'immunity',
-  solid: 'passivation',
-  dissolved: 'corrosion',
-  gas: 'gas phase',
-};
 
 /** "Fe+2" → "Fe²⁺", "Fe3O4(s)" → "Fe₃O₄(s)", "e-" → "e⁻". */
 export function formulaUnicode(formula: string): string {
@@ -54,19 +48,11 @@ export function referenceName(label: string): string {
   return m ? m[1]! : label;
 }
 
-function fixed(v: number, d: number): string {
-  let s = v.toFixed(d);
-  if (Number(s) === 0) s = (0).toFixed(d);
-  return s.replace('-', '\u2212');
-}
 
 /** A potential line moved to another reference scale: E_ref = E_SHE − offset. Null for pH lines. */
 export function equationInScale(line: LineCoefficients, offset: number, name: string): string | null {
   if (line.kind !== 'E' || line.intercept === undefined) return null;
-  const a = fixed(line.intercept - offset, 4);
-  const b = line.slope ?? 0;
-  const slope = b === 0 ? '' : ` ${b < 0 ? '\u2212' : '+'} ${Math.abs(b).toFixed(4)} pH`;
-  return `E = ${a}${slope} V vs ${name}`;
+  return lineEquationText(line, { scale: name, offset, minus: '\u2212' });
 }
 
 const r6 = (v: number): number => {
@@ -101,7 +87,7 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
       label: formulaUnicode(r.species),
       formula: r.species,
       name: r.name ?? '',
-      reading: CLASS_READING[r.class],
+      reading: r.verdict ?? verdictOf(r.class, r.species),
       polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
     })),
     boundaries: model.boundaries.map((b) => ({

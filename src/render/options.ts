@@ -2,6 +2,7 @@
  * Figure options: size, fonts, line weights, style and what to show. Lengths are in millimetres
  * (the figure size) or points (fonts, lines); 1 in = 25.4 mm = 72 pt = 96 px (CSS reference pixel).
  */
+import { FigureFitError } from '../errors.js';
 
 export interface FigureOptions {
   /** Figure width and height in mm (the whole figure, caption and legend included). */
@@ -107,7 +108,7 @@ export function parseLength(value: string | number, what: string): number {
 
 /**
  * Merges partial options onto the defaults (nested `show` and `colors` merged key by key).
- * Throws Error for sizes that cannot make a figure (width < 40 mm, height < 30 mm, font < 6 pt).
+ * Throws FigureFitError for sizes that cannot make a figure (width < 40 mm, height < 30 mm, font < 6 pt).
  */
 export function resolveOptions(partial: Partial<Omit<FigureOptions, 'show'>> & { show?: Partial<FigureOptions['show']> } = {}): FigureOptions {
   const o: FigureOptions = {
@@ -120,12 +121,15 @@ export function resolveOptions(partial: Partial<Omit<FigureOptions, 'show'>> & {
   return o;
 }
 
-/** Throws Error with a clear message when options cannot produce a readable figure. */
+/**
+ * Throws with a clear message when options cannot produce a readable figure: FigureFitError (naming
+ * the option: --width, --height, --font-size) for a size that cannot fit, Error for other values.
+ */
 export function validateOptions(o: FigureOptions): void {
-  if (!(o.width >= 40)) throw new Error(`figure width ${o.width} mm is too small (at least 40 mm)`);
-  if (!(o.height >= 30)) throw new Error(`figure height ${o.height} mm is too small (at least 30 mm)`);
-  if (!(o.fontSize >= MIN_FONT_PT)) throw new Error(`font size ${o.fontSize} pt is below the readable minimum of ${MIN_FONT_PT} pt`);
-  if (!(o.fontSize <= 24)) throw new Error(`font size ${o.fontSize} pt is too large (at most 24 pt)`);
+  if (!(o.width >= 40)) throw new FigureFitError('--width', `figure width ${o.width} mm is too small (at least 40 mm)`);
+  if (!(o.height >= 30)) throw new FigureFitError('--height', `figure height ${o.height} mm is too small (at least 30 mm)`);
+  if (!(o.fontSize >= MIN_FONT_PT)) throw new FigureFitError('--font-size', `font size ${o.fontSize} pt is below the readable minimum of ${MIN_FONT_PT} pt`);
+  if (!(o.fontSize <= 24)) throw new FigureFitError('--font-size', `font size ${o.fontSize} pt is too large (at most 24 pt)`);
   if (!(o.lineWidth > 0 && o.lineWidth <= 6)) throw new Error(`line width ${o.lineWidth} pt must be in (0, 6]`);
   if (!['color', 'gray', 'lines'].includes(o.style)) throw new Error(`style "${o.style}" must be color, gray or lines`);
   if (o.secondAxis && !Number.isFinite(o.secondAxis.offset)) throw new Error('second axis offset must be a finite number of volts');

@@ -16,6 +16,7 @@
  * Neighbouring regions of the same class get different tints: a proper colouring of the
  * same-class adjacency graph (depth-first search in a fixed order), see assignFills.
  */
+import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { RegionClass } from '../model.js';
 
 export const CLASS_TINTS: Record<RegionClass, readonly string[]> = {
@@ -25,12 +26,28 @@ export const CLASS_TINTS: Record<RegionClass, readonly string[]> = {
   gas: ['#e7d6ea', '#90889f', '#beaec1'],
 };
 
-/** Words for the class legend (trade terms for the usual reading of a region class). */
+/** The tint group that shows each verdict when a region is reclassified away from its class's own. */
+const VERDICT_GROUP: Record<Verdict, RegionClass> = { immunity: 'element', passivation: 'solid', corrosion: 'dissolved' };
+
+/**
+ * The tint group (and legend swatch) of a region: its class, unless its verdict (the model's, with
+ * the file's `classes:` applied; the rule is diagram/verdict.ts) differs from the verdict of its
+ * class — then the group of that verdict, e.g. Fe₃O₄ reclassified as corrosion is tinted and keyed
+ * with the dissolved (corrosion) regions.
+ */
+export function fillGroup(cls: RegionClass, verdict?: Verdict): RegionClass {
+  if (verdict === undefined || verdict === verdictOf(cls, '')) return cls;
+  return VERDICT_GROUP[verdict];
+}
+
+const GROUP_NOUN: Record<RegionClass, string> = { element: 'metal', solid: 'solid', dissolved: 'dissolved', gas: 'gas' };
+
+/** Words for the class legend: the group and its verdict (trade terms), "gas" alone. */
 export const CLASS_NAMES: Record<RegionClass, string> = {
-  element: 'metal (immunity)',
-  solid: 'solid (passivation)',
-  dissolved: 'dissolved (corrosion)',
-  gas: 'gas',
+  element: `${GROUP_NOUN.element} (${verdictOf('element', '')})`,
+  solid: `${GROUP_NOUN.solid} (${verdictOf('solid', '')})`,
+  dissolved: `${GROUP_NOUN.dissolved} (${verdictOf('dissolved', '')})`,
+  gas: GROUP_NOUN.gas,
 };
 
 /** Parses "#rgb" or "#rrggbb" into 0…255 channels; throws Error on anything else. */
@@ -113,13 +130,33 @@ export function assignFills(
   style: 'color' | 'gray' | 'lines',
   overrides: Record<string, string>,
 ): (string | null)[] {
-  const out: (string | null)[] = regions.map(() => null);
-  if (style === 'lines') return out;
+  if (style === 'lines') return regions.map(() => null);
+  // (1) Overrides first; (2) symmetric neighbour lists; (3) order: largest regions first (they get
+  // the class's first tint, the one shown in the legend), ties and regions without an area keep
+  // the given order; (4) proper colouring by search, else (5) greedy; (6) grays for 'gray'.
   const chosen: (string | null)[] = regions.map((r) => {
     const o = overrides[r.species];
     return o === undefined ? null : normColor(o);
   });
-  // Symmetric neighbour lists (a request may list a neighbour only on one side).
+  const g: Colouring = { regions, nb: symmetricNeighbours(regions), chosen, L: lightnessCache() };
+  const order = regions
+    .map((_, i) => i)
+    .filter((i) => chosen[i] === null)
+    .sort((a, b) => (regions[b]!.area ?? 0) - (regions[a]!.area ?? 0) || a - b);
+  if (!properColouring(g, order)) greedyColouring(g, order);
+  return chosen.map((c) => (c === null ? null : style === 'gray' && c.startsWith('#') ? toGray(c) : c));
+}
+
+/** The state of a colouring: requests, neighbour sets, the tint chosen so far, cached L*. */
+interface Colouring {
+  regions: readonly FillRequest[];
+  nb: Set<number>[];
+  chosen: (string | null)[];
+  L: (c: string) => number;
+}
+
+/** Symmetric neighbour sets (a request may list a neighbour only on one side). */
+function symmetricNeighbours(regions: readonly FillRequest[]): Set<number>[] {
   const nb: Set<number>[] = regions.map(() => new Set<number>());
   regions.forEach((r, i) =>
     r.neighbours.forEach((j) => {
@@ -129,90 +166,93 @@ export function assignFills(
       }
     }),
   );
-  // Largest regions first (they get the class's first tint, the one shown in the legend); ties and
-  // regions without an area keep the given order.
-  const order = regions
-    .map((_, i) => i)
-    .filter((i) => chosen[i] === null)
-    .sort((a, b) => (regions[b]!.area ?? 0) - (regions[a]!.area ?? 0) || a - b);
-  const Lcache = new Map<string, number>();
-  const L = (c: string): number => {
-    let v = Lcache.get(c);
+  return nb;
+}
+
+/** L* of a colour, memoised (NaN for anything that is not #hex). */
+function lightnessCache(): (c: string) => number {
+  const cache = new Map<string, number>();
+  return (c) => {
+    let v = cache.get(c);
     if (v === undefined) {
       v = c.startsWith('#') ? lightness(c) : NaN;
-      Lcache.set(c, v);
+      cache.set(c, v);
     }
     return v;
   };
-  /** Tints of region i not used by a coloured neighbour, most contrast first. */
-  const candidates = (i: number): string[] => {
-    const tints = CLASS_TINTS[regions[i]!.class] ?? CLASS_TINTS.solid;
-    const scored: { t: string; k: number; score: number }[] = [];
-    tints.forEach((t, k) => {
-      let score = Infinity;
-      for (const n of nb[i]!) {
-        const c = chosen[n];
-        if (c === null || c === undefined) continue;
-        if (c === t) return;
-        const d = Math.abs(L(c) - L(t));
-        if (Number.isFinite(d)) score = Math.min(score, d);
-      }
-      scored.push({ t, k, score });
-    });
-    // The first two tints before the third (kept for where three regions of a class meet); then
-    // more contrast, counting ENOUGH_CONTRAST L* or more as equal; ties → the earlier tint.
-    const key = (x: { k: number; score: number }): [number, number] => [x.k >= 2 ? 1 : 0, Math.min(x.score, ENOUGH_CONTRAST)];
-    scored.sort((a, b) => {
-      const [ta, sa] = key(a);
-      const [tb, sb] = key(b);
-      if (ta !== tb) return ta - tb;
-      if (Math.abs(sa - sb) > 1e-9) return sb - sa;
-      return a.k - b.k;
-    });
-    return scored.map((s) => s.t);
-  };
+}
+
+const tintsOf = (g: Colouring, i: number): readonly string[] => CLASS_TINTS[g.regions[i]!.class] ?? CLASS_TINTS.solid;
+
+/** Tints of region i not used by a coloured neighbour, most contrast first. */
+function tintCandidates(g: Colouring, i: number): string[] {
+  const scored: { t: string; k: number; score: number }[] = [];
+  tintsOf(g, i).forEach((t, k) => {
+    let score = Infinity;
+    for (const n of g.nb[i]!) {
+      const c = g.chosen[n];
+      if (c === null || c === undefined) continue;
+      if (c === t) return;
+      const d = Math.abs(g.L(c) - g.L(t));
+      if (Number.isFinite(d)) score = Math.min(score, d);
+    }
+    scored.push({ t, k, score });
+  });
+  // The first two tints before the third (kept for where three regions of a class meet); then
+  // more contrast, counting ENOUGH_CONTRAST L* or more as equal; ties → the earlier tint.
+  const key = (x: { k: number; score: number }): [number, number] => [x.k >= 2 ? 1 : 0, Math.min(x.score, ENOUGH_CONTRAST)];
+  scored.sort((a, b) => {
+    const [ta, sa] = key(a);
+    const [tb, sb] = key(b);
+    if (ta !== tb) return ta - tb;
+    if (Math.abs(sa - sb) > 1e-9) return sb - sa;
+    return a.k - b.k;
+  });
+  return scored.map((x) => x.t);
+}
+
+/** Depth-first search with backtracking for a proper colouring, within a step budget. */
+function properColouring(g: Colouring, order: readonly number[]): boolean {
   let steps = 0;
   const BUDGET = 20000;
   const search = (pos: number): boolean => {
     if (pos === order.length) return true;
     if (++steps > BUDGET) return false;
     const i = order[pos]!;
-    for (const t of candidates(i)) {
-      chosen[i] = t;
+    for (const t of tintCandidates(g, i)) {
+      g.chosen[i] = t;
       if (search(pos + 1)) return true;
     }
-    chosen[i] = null;
+    g.chosen[i] = null;
     return false;
   };
-  if (!search(0)) {
-    // No proper colouring within the tints: greedy, fewest same-colour neighbours, then contrast.
-    for (const i of order) {
-      if (chosen[i] !== null) continue;
-      const tints = CLASS_TINTS[regions[i]!.class] ?? CLASS_TINTS.solid;
-      let best = tints[0]!;
-      let bestKey: [number, number] = [Infinity, -Infinity];
-      for (const t of tints) {
-        let same = 0;
-        let score = Infinity;
-        for (const n of nb[i]!) {
-          const c = chosen[n];
-          if (c === null || c === undefined) continue;
-          if (c === t) same++;
-          const d = Math.abs(L(c) - L(t));
-          if (Number.isFinite(d)) score = Math.min(score, d);
-        }
-        if (same < bestKey[0] || (same === bestKey[0] && score > bestKey[1] + 1e-9)) {
-          best = t;
-          bestKey = [same, score];
-        }
+  return search(0);
+}
+
+/** No proper colouring within the tints: greedy, fewest same-colour neighbours, then contrast. */
+function greedyColouring(g: Colouring, order: readonly number[]): void {
+  for (const i of order) {
+    if (g.chosen[i] !== null) continue;
+    const tints = tintsOf(g, i);
+    let best = tints[0]!;
+    let bestKey: [number, number] = [Infinity, -Infinity];
+    for (const t of tints) {
+      let same = 0;
+      let score = Infinity;
+      for (const n of g.nb[i]!) {
+        const c = g.chosen[n];
+        if (c === null || c === undefined) continue;
+        if (c === t) same++;
+        const d = Math.abs(g.L(c) - g.L(t));
+        if (Number.isFinite(d)) score = Math.min(score, d);
       }
-      chosen[i] = best;
+      if (same < bestKey[0] || (same === bestKey[0] && score > bestKey[1] + 1e-9)) {
+        best = t;
+        bestKey = [same, score];
+      }
     }
+    g.chosen[i] = best;
   }
-  chosen.forEach((c, i) => {
-    out[i] = c === null ? null : style === 'gray' && c.startsWith('#') ? toGray(c) : c;
-  });
-  return out;
 }
 
 /** Ink colours per style: boundaries, water lines, families, grid, operating marks. */

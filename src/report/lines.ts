@@ -1,6 +1,7 @@
 /**
  * The `lines` report: every boundary's balanced reaction and its line equation at T.
  */
+import { lineEquationText } from '../diagram/line-text.js';
 import type { BoundaryModel, DiagramModel } from '../model.js';
 import { table } from './table.js';
 
@@ -25,11 +26,7 @@ export interface DisplayReference {
 
 /** The line equation against a reference electrode (no-electron pH lines are unchanged). */
 export function equationAgainst(line: BoundaryModel['line'], ref: DisplayReference): string {
-  if (line.kind === 'pH') return `pH = ${line.value!.toFixed(3)}`;
-  const a = line.intercept! - ref.offset;
-  const sl = line.slope!;
-  const t = (v: number, d: number) => (Math.abs(v) < 0.5 * 10 ** -d ? (0).toFixed(d) : v.toFixed(d));
-  return Math.abs(sl) < 5e-9 ? `E = ${t(a, 4)} V vs ${ref.label}` : `E = ${t(a, 4)} ${sl < 0 ? '-' : '+'} ${t(Math.abs(sl), 4)} pH V vs ${ref.label}`;
+  return lineEquationText(line, { scale: ref.label, offset: ref.offset });
 }
 
 /** One row per distinct reaction; runs of the same reaction are combined. */

@@ -6,37 +6,13 @@
  */
 import { shortSource } from './format.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
+import { pdfText } from '../render/pdf-text.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts } from './report-data.js';
 import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 type Doc = PDFKit.PDFDocument;
-
-const SUB = '\u2080\u2081\u2082\u2083\u2084\u2085\u2086\u2087\u2088\u2089';
-const SUP: Record<string, string> = { '\u2070': '0', '\u00b9': '1', '\u00b2': '2', '\u00b3': '3', '\u2074': '4', '\u2075': '5', '\u2076': '6', '\u2077': '7', '\u2078': '8', '\u2079': '9', '\u207b': '-', '\u207a': '+' };
-
-/**
- * Text for the standard PDF fonts (WinAnsi): subscript digits become digits, superscript runs
- * "^…", the minus sign a hyphen, a few Greek letters their names; anything else unprintable '?'.
- */
-export function pdfText(s: string): string {
-  return s
-    .replace(/[\u2080-\u2089]/g, (c) => String(SUB.indexOf(c)))
-    .replace(/[\u2070\u00b9\u00b2\u00b3\u2074-\u207b]*[\u2070\u2074-\u207b][\u2070\u00b9\u00b2\u00b3\u2074-\u207b]*/g, (run) => `^${[...run].map((c) => SUP[c]).join('')}`)
-    .replace(/\u2212/g, '-')
-    .replace(/\u2192/g, '->')
-    .replace(/\u0394/g, 'Delta ')
-    .replace(/[\u03b1-\u03c9]/g, (c) => GREEK[c] ?? c)
-    .replace(/\u2264/g, '<=')
-    .replace(/\u2265/g, '>=')
-    .replace(/[^\u0020-\u007e\u00a0-\u00ff\u2013\u2014\u2018\u2019\u201c\u201d\u2026\u2022\u2020\u2021\u2030\u20ac]/g, '?');
-}
-
-const GREEK: Record<string, string> = {
-  '\u03b1': 'alpha', '\u03b2': 'beta', '\u03b3': 'gamma', '\u03b4': 'delta', '\u03b5': 'epsilon', '\u03b8': 'theta', '\u03ba': 'kappa',
-  '\u03bb': 'lambda', '\u03bc': '\u00b5', '\u03bd': 'nu', '\u03c0': 'pi', '\u03c1': 'rho', '\u03c3': 'sigma', '\u03c4': 'tau', '\u03c6': 'phi', '\u03c8': 'psi', '\u03c9': 'omega',
-};
 
 const MARGIN = 56;
 const BODY = 9;

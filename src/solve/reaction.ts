@@ -12,6 +12,7 @@
  * H2O, H+ and e− cancel by the balances. E = E° − (m/n)·s·pH + (s/n)·Σν log a, s = ln10·RT/F;
  * a no-electron line is pH = const.
  */
+import { lineEquationText } from '../diagram/line-text.js';
 import type { LineCoefficients } from '../model.js';
 import { LN10, R } from '../thermo/constants.js';
 import { type Plane, addScaled, ZERO_PLANE } from './plane.js';
@@ -94,7 +95,7 @@ export function balance(
   const line = lineFrom(phi, phi0, n, m, kelvin);
   const terms = parts.map((q, k) => ({ formula: q.p.sp.formula, phase: q.p.sp.phase, nu: nus[k] }));
   const text = reactionText(terms, water, protons, electrons);
-  return { terms, water, protons, electrons, text, line, equation: equationText(line) };
+  return { terms, water, protons, electrons, text, line, equation: lineEquationText(line) };
 }
 
 /** Line coefficients from the reaction plane ΔrG = g + p·pH + e·E (J per reaction as written). */
@@ -103,19 +104,6 @@ export function lineFrom(phi: Plane, phi0: Plane, n: number, m: number, kelvin: 
     return { kind: 'E', intercept: -phi.g / phi.e || 0, slope: -phi.p / phi.e || 0, E0: -phi0.g / phi0.e || 0, n, m };
   }
   return { kind: 'pH', value: -phi.g / phi.p || 0, logK: -phi0.g / (R * kelvin * LN10) || 0, n, m };
-}
-
-export function equationText(line: LineCoefficients): string {
-  if (line.kind === 'pH') return `pH = ${fix(line.value!, 3)}`;
-  const a = fix(line.intercept!, 4);
-  const s = line.slope!;
-  if (Math.abs(s) < 5e-9) return `E = ${a} V vs SHE`;
-  return `E = ${a} ${s < 0 ? '-' : '+'} ${fix(Math.abs(s), 4)} pH V vs SHE`;
-}
-
-function fix(v: number, d: number): string {
-  const t = v.toFixed(d);
-  return /^-0\.0*$/.test(t) ? t.slice(1) : t;
 }
 
 function phaseTag(formula: string, phase: string): string {

@@ -19,7 +19,8 @@ import { mergePieces, type MergeInput } from './merge.js';
 import type { Plane } from './plane.js';
 import { ligandPsiPlane, mainPsiPlane } from './ligand-psi.js';
 import { formationPlane, type WaterContext } from './potentials.js';
-import { balance, equationText, lineFrom, type Participant } from './reaction.js';
+import { lineEquationText } from '../diagram/line-text.js';
+import { balance, lineFrom, type Participant } from './reaction.js';
 import type { SolverInput, SolverSpecies } from './types.js';
 
 export interface LigandCell {
@@ -247,7 +248,7 @@ export function waterLines(input: SolverInput): { hydrogen: WaterLine; oxygen: W
   const mk = (pl: Plane, p0: Plane, n: number, m: number, reaction: string): WaterLine => {
     const line = lineFrom(pl, p0, n, m, T);
     const pts = clipLine(line.intercept!, line.slope!, input.pH, input.E);
-    return { reaction, equation: equationText(line), line, points: pts };
+    return { reaction, equation: lineEquationText(line), line, points: pts };
   };
   return {
     hydrogen: mk(h, h0, 2, 2, '2H+ + 2e- = H2(g)'),

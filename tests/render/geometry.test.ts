@@ -1,6 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { clipPolyline, clipRing, insideRings, rectPole, scaledChebyshev, segmentHitsRect, simplifyCollinear } from '../../src/render/geometry.js';
+import { clipPolyline, clipRing } from '../../src/render/clip.js';
+import { insideRings, rectRing, scaledChebyshev, segmentHitsRect, simplifyCollinear } from '../../src/render/geometry.js';
+import { boxSegments } from '../../src/render/labels.js';
+import { rectPole } from '../../src/render/pole.js';
 import type { Point } from '../../src/render/scene-types.js';
 import { DEFAULT_FIGURE } from '../../src/render/options.js';
 import { buildScene } from '../../src/render/scene.js';
@@ -158,5 +161,13 @@ describe('layout over many sizes (property)', () => {
       ),
       { numRuns: 25, seed: 4 },
     );
+  });
+});
+
+describe('rectangle ring and edges (the one rectangle helper)', () => {
+  it('lists the corners clockwise on the page from the top left, and the four edges between them', () => {
+    const r = { x: 1, y: 2, w: 3, h: 4 };
+    expect(rectRing(r)).toEqual([[1, 2], [4, 2], [4, 6], [1, 6]]);
+    expect(boxSegments(r)).toEqual([[[1, 2], [4, 2]], [[4, 2], [4, 6]], [[4, 6], [1, 6]], [[1, 6], [1, 2]]]);
   });
 });

@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { type FigureOptions } from '../../src/render/options.js';
 import { buildScene } from '../../src/render/scene.js';
-import { CLASS_READING, equationInScale, formulaUnicode, pageData, reactionUnicode, referenceName, sceneToHtml, signMinus } from '../../src/render/html.js';
+import { equationInScale, formulaUnicode, pageData, reactionUnicode, referenceName, sceneToHtml, signMinus } from '../../src/render/html.js';
 import { iron, opts } from './helpers.js';
 
 
@@ -78,7 +78,6 @@ describe('HTML page', () => {
     expect(d.frame.y0).toBeCloseTo(p.y + p.h, 5); // lowest E at the bottom edge
     expect(d.frame.y1).toBeCloseTo(p.y, 5);
     // The read-out words for the region classes (trade terms, common practice).
-    expect(CLASS_READING).toMatchObject({ element: 'immunity', solid: 'passivation', dissolved: 'corrosion' });
     expect(d.regions.find((r) => r.formula === 'Fe')!.reading).toBe('immunity');
     expect(d.regions.find((r) => r.formula === 'Fe+2')!.reading).toBe('corrosion');
     expect(d.regions.find((r) => r.formula === 'Fe2O3')!.reading).toBe('passivation');

@@ -11,7 +11,7 @@ import { readSpec } from '../../src/system/spec.js';
 import { figureInput } from '../../src/figure/compose.js';
 import { figureSettings } from '../../src/figure/options.js';
 import { linearTicks } from '../../src/render/axes.js';
-import { rectPole } from '../../src/render/geometry.js';
+import { rectPole } from '../../src/render/pole.js';
 import { buildScene } from '../../src/render/scene.js';
 import type { Point, ScenePath, SceneText } from '../../src/render/scene-types.js';
 import { allItems } from './helpers.js';

@@ -8,7 +8,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { computeFile } from '../../src/pipeline.js';
-import { pdfText } from '../../src/report/report-pdf.js';
+import { pdfText } from '../../src/render/pdf-text.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
@@ -167,6 +167,6 @@ describe('report: bad input', () => {
 
 describe('pdfText', () => {
   it('maps sub- and superscripts and Greek letters to the standard fonts', () => {
-    expect(pdfText('H\u2082O, 10\u207b\u2076, \u03b3, \u2212')).toBe('H2O, 10^-6, gamma, -');
+    expect(pdfText('H\u2082O, 10\u207b\u2076, \u03b3, \u2212')).toBe('H2O, 10^-6, gamma, \u2013');
   });
 });

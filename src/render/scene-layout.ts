@@ -1,0 +1,78 @@
+/**
+ * Figure layout: tick values, the margins they need, the bands below the plot (axis title,
+ * legend, caption) and above it (title), and so the plot rectangle. Refuses a figure too small.
+ */
+import { FigureFitError } from '../errors.js';
+import { niceTicks, type Tick } from './axes.js';
+import { CAP_HEIGHT, FONT_SAFETY, stringWidth } from './metrics.js';
+import { MIN_FONT_PT } from './options.js';
+import type { FigureBands, SceneBase } from './scene-context.js';
+import { captionLines, legendEntries, legendRows } from './scene-legend.js';
+import type { Rect } from './scene-types.js';
+import { richRuns } from './typeset.js';
+
+/** Tick values, their counts from a first guess of the plot size. */
+function axisTicks(b: SceneBase): { xTicks: Tick[]; yTicks: Tick[]; y2Ticks: Tick[]; off: number } {
+  const { o, model, W, H, fs } = b;
+  const [pH0, pH1] = model.domain.pH;
+  const [E0, E1] = model.domain.E;
+  const guessW = W * 0.78;
+  const guessH = H * 0.62;
+  const off = o.secondAxis?.offset ?? 0;
+  return {
+    xTicks: niceTicks(pH0, pH1, guessW / (fs * 4.2)),
+    yTicks: niceTicks(E0, E1, guessH / (fs * 2.8)),
+    y2Ticks: o.secondAxis ? niceTicks(E0 - off, E1 - off, guessH / (fs * 2.8)) : [],
+    off,
+  };
+}
+
+/** Left and right margins: axis title band, tick labels, gap and tick (or the last x label's overhang). */
+function sideMargins(b: SceneBase, t: ReturnType<typeof axisTicks>): { left: number; right: number } {
+  const { o, model, fs, pad, tickGap, tickLen } = b;
+  const tickW = (ts: Tick[]): number => Math.max(0, ...ts.map((k) => stringWidth(k.label, fs) * FONT_SAFETY));
+  const titleBand = fs * 1.05; // rotated axis title thickness
+  const left = pad + titleBand + 0.45 * fs + tickW(t.yTicks) + tickGap + tickLen;
+  const lastX = t.xTicks[t.xTicks.length - 1];
+  const xOverhang = lastX && Math.abs(lastX.value - model.domain.pH[1]) < 1e-9 ? (stringWidth(lastX.label, fs) * FONT_SAFETY) / 2 : 0;
+  const right = o.secondAxis ? pad + titleBand + 0.45 * fs + tickW(t.y2Ticks) + tickGap + tickLen : Math.max(0.9 * fs, xOverhang + pad);
+  return { left, right };
+}
+
+/**
+ * Lays the figure out: (1) ticks, (2) side margins, (3) caption and legend rows at the inner
+ * width, (4) the bands from the top (title) and from the plot's bottom edge down (tick labels,
+ * axis title, legend, caption), (5) the plot rectangle between them. Throws FigureFitError naming
+ * --width or --height when the plot would be smaller than 4 × 4 × 3 font sizes.
+ */
+export function layoutFigure(b: SceneBase): FigureBands {
+  const { o, model, W, H, fs, pad, tickLen, tickGap } = b;
+  const ticks = axisTicks(b);
+  const { left, right } = sideMargins(b, ticks);
+  const innerW = W - 2 * pad;
+  const capSize = Math.max(MIN_FONT_PT, fs * 0.85);
+  const capLead = capSize * 1.28;
+  const caption = captionLines(b, capSize, innerW);
+  const legSize = b.small;
+  const legRowH = legSize * 1.45;
+  const rows = legendRows(legendEntries(b), legSize, innerW);
+  const showTitle = o.show.title;
+  const titleSize = fs * 1.1;
+  const titleRuns = o.title !== undefined ? richRuns(o.title) : richRuns(`${model.element}\u2013{H2O}, ${model.temperature.celsius.toFixed(0)} \u00b0C`);
+  const top = showTitle ? pad + titleSize * 1.5 : Math.max(pad, 0.65 * fs);
+  const xLabelBase = tickLen + tickGap + CAP_HEIGHT * fs; // below plot bottom
+  const xTitleBase = xLabelBase + 0.5 * fs + CAP_HEIGHT * fs * 1.05 + 0.25 * fs;
+  let below = xTitleBase + 0.25 * fs;
+  const legendTop = below + (rows.length ? 0.5 * fs : 0);
+  below = legendTop + rows.length * legRowH;
+  const captionTop = below + (caption.length ? 0.45 * fs : 0);
+  below = captionTop + caption.length * capLead + pad * 0.6;
+  const plot: Rect = { x: left, y: top, w: W - left - right, h: H - top - below };
+  if (plot.h < 4 * fs * 3 || plot.w < 4 * fs * 4) {
+    throw new FigureFitError(
+      plot.w < 4 * fs * 4 ? '--width' : '--height',
+      `figure ${o.width}×${o.height} mm is too small for the plot with its caption and legend (plot ${(plot.w * 25.4 / 72).toFixed(0)}×${((plot.h * 25.4) / 72).toFixed(0)} mm); make it larger or hide the caption/legend`,
+    );
+  }
+  return { ...ticks, showTitle, titleSize, titleRuns, xLabelBase, xTitleBase, legendRows: rows, legendTop, legSize, legRowH, captionLines: caption, captionTop, capSize, capLead, plot };
+}

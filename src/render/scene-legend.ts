@@ -1,0 +1,126 @@
+/**
+ * The legend and the caption of a figure: which entries and lines there are, how they wrap into
+ * rows (layout), and their scene items once the plot is placed (drawing).
+ */
+import type { RegionClass } from '../model.js';
+import { textBox, baselineForCentre } from './labels.js';
+import { CAP_HEIGHT, runsWidth } from './metrics.js';
+import { CLASS_NAMES, CLASS_TINTS, fillGroup, toGray } from './palette.js';
+import { dashStroke, line, overlayInk, parseDash, PROSE_SAFETY, rectPath, text, wrapText, type LegendEntry, type SceneBase, type SceneContext } from './scene-context.js';
+import type { SceneItem, TextRun } from './scene-types.js';
+import { formulaRuns, plainRuns, powerOfTenRuns, richRuns } from './typeset.js';
+
+/** The caution printed with every caption. */
+export const CAUTION =
+  'Equilibrium thermodynamics only \u2014 not kinetics: no rates, film quality or localized attack. A screening aid, not a design rule.';
+
+/** Caption lines wrapped to the inner width: the caller's lines, then the caution in italics. */
+export function captionLines(b: SceneBase, capSize: number, innerW: number): { text: string; italic: boolean }[] {
+  const out: { text: string; italic: boolean }[] = [];
+  if (!b.o.show.caption) return out;
+  for (const c of b.input.caption ?? []) for (const l of wrapText(c, capSize, innerW)) out.push({ text: l, italic: false });
+  for (const l of wrapText(CAUTION, capSize, innerW)) out.push({ text: l, italic: true });
+  return out;
+}
+
+/** Class swatches, by tint group: a region's class, or the group of the verdict it was reclassified to. */
+function swatchEntries(b: SceneBase): LegendEntry[] {
+  const { o, model } = b;
+  const present = new Set<RegionClass>(model.regions.map((r) => fillGroup(r.class, r.verdict)));
+  const reclassified = (c: RegionClass): string[] => [...new Set(model.regions.filter((r) => r.class !== c && fillGroup(r.class, r.verdict) === c).map((r) => r.species))].sort();
+  const out: LegendEntry[] = [];
+  for (const c of ['element', 'solid', 'dissolved', 'gas'] as RegionClass[]) {
+    if (!present.has(c)) continue;
+    const tint = CLASS_TINTS[c][0]!;
+    const moved = reclassified(c);
+    const runs = moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
+    out.push({ kind: 'swatch', fill: o.style === 'gray' ? toGray(tint) : tint, runs });
+  }
+  return out;
+}
+
+/** Every legend entry in order: swatches, the base boundaries, families, water, overlay layers. */
+export function legendEntries(b: SceneBase): LegendEntry[] {
+  const { o, input, model, ink, lw, thin } = b;
+  if (!o.show.legend) return [];
+  const legend: LegendEntry[] = o.style !== 'lines' ? swatchEntries(b) : [];
+  if ((input.families?.length ?? 0) > 0 || (input.overlays?.length ?? 0) > 0) {
+    const runs: TextRun[] =
+      input.baseLabel !== undefined
+        ? richRuns(input.baseLabel)
+        : [...plainRuns('boundaries, '), { text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...powerOfTenRuns(model.activity)];
+    legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
+  }
+  if ((input.families?.length ?? 0) > 0) {
+    legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs: plainRuns('other activities') });
+  }
+  if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });
+  (input.overlays ?? []).forEach((ov, i) => {
+    legend.push({ kind: 'line', stroke: overlayInk(ink, ov, i), width: 0.8 * lw, dash: parseDash(ov.dash, lw), runs: richRuns(ov.label) });
+  });
+  return legend;
+}
+
+/** Width of an entry's sample (swatch or line) at legend size `legSize`. */
+const sampleW = (e: LegendEntry, legSize: number): number => (e.kind === 'swatch' ? legSize * 1.1 : legSize * 2.6);
+
+/** Width of an entry: sample, gap, text. */
+const entryW = (e: LegendEntry, legSize: number): number => sampleW(e, legSize) + 0.4 * legSize + runsWidth(e.runs, legSize) * PROSE_SAFETY;
+
+/** Entries wrapped greedily into rows of at most `innerW` pt. */
+export function legendRows(legend: LegendEntry[], legSize: number, innerW: number): LegendEntry[][] {
+  const rows: LegendEntry[][] = [];
+  let row: LegendEntry[] = [];
+  let x = 0;
+  for (const e of legend) {
+    const w = entryW(e, legSize);
+    if (row.length > 0 && x + w > innerW) {
+      rows.push(row);
+      row = [];
+      x = 0;
+    }
+    row.push(e);
+    x += w + 1.4 * legSize;
+  }
+  if (row.length) rows.push(row);
+  return rows;
+}
+
+/** Legend rows below the x-axis title: sample (swatch or line) then label, left to right. */
+export function legendItems(ctx: SceneContext): SceneItem[] {
+  const { bands, pad, plot, ink } = ctx;
+  const { legSize, legRowH } = bands;
+  const bottomY = plot.y + plot.h;
+  const out: SceneItem[] = [];
+  bands.legendRows.forEach((row, ri) => {
+    let x = pad;
+    const cy = bottomY + bands.legendTop + ri * legRowH + legRowH / 2;
+    for (const e of row) {
+      const sw = sampleW(e, legSize);
+      if (e.kind === 'swatch') {
+        const s = legSize * 0.95;
+        out.push(rectPath('legend-swatch', { x, y: cy - s / 2, w: sw, h: s }, { fill: e.fill ?? null, stroke: '#4d4d4d', strokeWidth: 0.35 }));
+      } else {
+        const st = dashStroke(e.dash ?? null, e.width!);
+        // A dotted sample starts and ends inside the swatch width (round caps reach half a width out).
+        const inset = st.lineCap === 'round' ? e.width! / 2 : 0;
+        out.push(line('legend-line', [[[x + inset, cy], [x + sw - inset, cy]]], e.stroke!, e.width!, st.dash, { lineCap: st.lineCap }));
+      }
+      const tx = x + sw + 0.4 * legSize;
+      const base = baselineForCentre(e.runs, legSize, cy);
+      out.push(text('legend-label', e.runs, tx, base, legSize, 'start', ink.text, { box: textBox(e.runs, legSize, tx, base, 'start') }));
+      x += entryW(e, legSize) + 1.4 * legSize;
+    }
+  });
+  return out;
+}
+
+/** Caption lines below the legend, left-aligned. */
+export function captionItems(ctx: SceneContext): SceneItem[] {
+  const { bands, pad, plot, ink } = ctx;
+  const bottomY = plot.y + plot.h;
+  return bands.captionLines.map((l, i) => {
+    const y = bottomY + bands.captionTop + CAP_HEIGHT * bands.capSize + i * bands.capLead;
+    return text('caption', plainRuns(l.text, l.italic), pad, y, bands.capSize, 'start', ink.text);
+  });
+}
