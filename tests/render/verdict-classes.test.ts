@@ -12,7 +12,7 @@ import { pageData } from '../../src/render/html.js';
 import { CLASS_TINTS } from '../../src/render/palette.js';
 import { buildScene } from '../../src/render/scene.js';
 import { runsUnicode } from '../../src/render/typeset.js';
-import { probe } from '../../src/report/probe.js';
+import { probe } from '../../src/analysis/probe.js';
 import { readSpec } from '../../src/system/spec.js';
 import { allItems, texts } from './helpers.js';
 
