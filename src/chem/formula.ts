@@ -282,7 +282,7 @@ export function formulaWarnings(text: string): string[] {
   if (digits.length < 2 && !singleElement) return [];
   return [
     `formula "${formula}" reads as ${head}${digits} with charge ${f.charge > 0 ? '+' : ''}${f.charge}; ` +
-      `if an ion with charge ${sign}${digits.slice(-1)} is meant, write "${suggestion}" (charge is a sign then a number)`,
+      `if ${head}${digits.slice(0, -1)} with charge ${sign}${digits.slice(-1)} is meant, write "${suggestion}" (charge is a sign then a number)`,
   ];
 }
 
