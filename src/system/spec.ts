@@ -8,6 +8,7 @@
 import { isElement } from '../chem/elements.js';
 import { FormulaError, formulaWarnings, parseFormula } from '../chem/formula.js';
 import type { Phase } from '../model.js';
+import { InputError } from './errors.js';
 import { Fields } from './fields.js';
 import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
 import { type Operating, readOperating } from './operating.js';
@@ -101,6 +102,9 @@ export const TOP_KEYS = [
 ] as const;
 
 const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
+
+/** The free-text `description` (any value), at most this many characters as JSON. */
+export const MAX_DESCRIPTION = 20_000;
 
 /** Temperatures the program accepts, °C (liquid water, IAPWS-IF97 region 1). */
 export const T_RANGE = { min: 0, max: 350 };
@@ -208,6 +212,10 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   const title = o.title === undefined ? undefined : f.string(o.title, 'title', 'a title text', 200);
   const grid = f.optNumber(o.grid, 'grid', 200, { integer: true, min: 10, max: 4000 });
 
+  if (o.description !== undefined) {
+    const n = JSON.stringify(o.description).length;
+    if (n > MAX_DESCRIPTION) throw new InputError(file, 'description', `a description of at most ${MAX_DESCRIPTION} characters`, `${n}`);
+  }
   const extra: Record<string, unknown> = {};
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];

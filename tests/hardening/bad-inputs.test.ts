@@ -127,6 +127,19 @@ describe('hostile inputs too big for the catalogue (generated)', () => {
     expect(r.stderr).toContain(`${'k'.repeat(100)}…`);
   });
 
+  it('a YAML flow list of 60 000 items (quadratic in the parser) is refused before parsing', async () => {
+    const f = join(out, 'flow.yaml');
+    writeFileSync(f, `element: Fe\ndescription: [${'1,'.repeat(60_000)}1]\n`);
+    await expectRefused(f, 'at most 50000 lines and list items', join(out, 'flow.svg'));
+  });
+
+  it('the work-budget refusal names the largest grid that fits', async () => {
+    const r = await runCli(['draw', join(BAD, 'work-budget.json'), '-o', join(out, 'budget.svg')]);
+    expect(r.code).toBe(2);
+    // 1e9 / (2000 × 9) = 55 555.6 → grid ≤ 235
+    expect(r.stderr).toContain('use grid ≤ 235, got 4000² × 2000 × 9 = 2.9e+11');
+  });
+
   it('an alias bomb in JSON-compatible YAML flow style is refused', async () => {
     const f = join(out, 'bomb2.yml');
     const lv = Array.from({ length: 12 }, (_, k) => `l${k + 1}: &l${k + 1} [${Array(10).fill(`*l${k}`).join(',')}]`);
