@@ -5,7 +5,8 @@
  *
  * Steps for one file or a set (`commitOutputs`):
  *  1. refuse a target that is a directory; create missing directories (optional);
- *  2. remove stale temporary files of ours from each output directory (temp-files.ts);
+ *  2. remove stale temporary files of ours from each output directory (temp-files.ts), and a
+ *     commit lock left by a killed run (its pid dead, or older than 30 s);
  *  3. write every file to a fresh temporary file in its own directory, opened with
  *     O_CREAT|O_EXCL|O_NOFOLLOW (exclusive: an existing file or link of that name is an error,
  *     never followed), then fsync and close it;
@@ -26,7 +27,7 @@
  * them. Every I/O failure becomes an OutputError (exit status 3) naming the output path.
  */
 import { constants, lstatSync, mkdirSync } from 'node:fs';
-import { open, readFile, rename, rm, stat, unlink } from 'node:fs/promises';
+import { lstat, open, readFile, rename, rm, unlink } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { OutputError } from '../errors.js';
 import { errnoCode, toOutputError } from './output-errors.js';
@@ -40,8 +41,10 @@ export interface OutputFile {
 export interface CommitOptions {
   /** Create missing directories on the way to each output (default true). */
   makeDirs?: boolean;
-  /** Called after every temporary file is written and synced, just before the first rename (tests). */
+  /** Called after every temporary file is written and synced, before the lock and the renames (tests). */
   beforeRename?: () => void | Promise<void>;
+  /** Called after each rename but the last (tests: widens the window a concurrent run could use). */
+  betweenRenames?: () => void | Promise<void>;
   /** Longest wait for another run's commit lock, ms (default 10 000). */
   lockWaitMs?: number;
   /** Source of temporary names (default tempName(): random); tests plant links at a known name. */
@@ -70,8 +73,12 @@ export async function commitOutputs(files: OutputFile[], options: CommitOptions 
   }
   // Step 1: targets and their directories.
   for (const f of files) prepareTarget(f.path, options.makeDirs ?? true);
-  // Step 2: stale temps of ours.
-  for (const dir of new Set(files.map((f) => dirname(resolve(f.path))))) sweepStaleTemps(dir);
+  // Step 2: stale temps and a stale commit lock of ours (left by a killed run).
+  for (const dir of new Set(files.map((f) => dirname(resolve(f.path))))) {
+    sweepStaleTemps(dir);
+    const lock = join(dir, LOCK_NAME);
+    if (await lockIsStale(lock)) await unlink(lock).catch(() => undefined);
+  }
   const temps: { tmp: string; path: string }[] = [];
   let lock: string | undefined;
   try {
@@ -81,9 +88,9 @@ export async function commitOutputs(files: OutputFile[], options: CommitOptions 
       // only a file we created ourselves is ever removed (never a planted one at that name)
       await writeTemp(tmp, f.path, f.data, () => temps.push({ tmp, path: f.path }));
     }
+    await options.beforeRename?.();
     // Step 4: the commit lock for a set.
     if (files.length > 1) lock = await takeLock(dirname(resolve(files[files.length - 1]!.path)), files[files.length - 1]!.path, options.lockWaitMs ?? 10_000);
-    await options.beforeRename?.();
     // Step 5: renames in order, then the directories synced.
     while (temps.length > 0) {
       const t = temps[0]!;
@@ -94,6 +101,7 @@ export async function commitOutputs(files: OutputFile[], options: CommitOptions 
       }
       unregisterTemp(t.tmp);
       temps.shift();
+      if (temps.length > 0) await options.betweenRenames?.();
     }
     for (const dir of new Set(files.map((f) => dirname(resolve(f.path))))) await syncDir(dir);
   } finally {
@@ -180,10 +188,11 @@ async function takeLock(dir: string, target: string, waitMs: number): Promise<st
   }
 }
 
-/** A lock is stale when it is not a regular file of ours to read, its pid is dead, or it is old. */
+/** A lock is stale when it is a regular file whose pid is dead, or older than LOCK_STALE_MS. */
 async function lockIsStale(lock: string): Promise<boolean> {
   try {
-    const st = await stat(lock);
+    const st = await lstat(lock);
+    if (!st.isFile()) return false;
     if (Date.now() - st.mtimeMs > LOCK_STALE_MS) return true;
     const pid = Number((await readFile(lock, 'utf8')).trim());
     return Number.isInteger(pid) && pid > 0 && pid !== process.pid && !pidAlive(pid);
