@@ -116,6 +116,19 @@ export async function commitOutputs(files: OutputFile[], options: CommitOptions 
   }
 }
 
+/**
+ * Creates an output directory (and its parents) for a verb that writes several files into one
+ * (e.g. a demo folder); a file in the way, permissions, a read-only disk become OutputError.
+ */
+export function makeOutputDir(dir: string): void {
+  try {
+    mkdirSync(dir, { recursive: true });
+    if (!lstatSync(dir).isDirectory()) throw new OutputError(dir, 'it is not a directory');
+  } catch (e) {
+    throw toOutputError(dir, e);
+  }
+}
+
 /** Refuses a directory as the target; creates missing parent directories when asked. */
 function prepareTarget(path: string, makeDirs: boolean): void {
   try {

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { EXIT, OutputError } from '../../src/errors.js';
 import { causeOf, toOutputError } from '../../src/io/output-errors.js';
-import { commitOutputs, writeOutput } from '../../src/io/safe-write.js';
+import { commitOutputs, makeOutputDir, writeOutput } from '../../src/io/safe-write.js';
 import { liveTemps, sweepStaleTemps, TEMP_PATTERN, tempName } from '../../src/io/temp-files.js';
 import { tmpDir } from '../helpers/tmp.js';
 
@@ -133,6 +133,22 @@ describe('I/O failures become OutputError naming the path and the cause', () => 
     const dir = tmpDir();
     const e = await refused(writeOutput(join(dir, 'no', 'f.svg'), 'x', { makeDirs: false }));
     expect(e.reason).toBe('a directory on the way does not exist');
+  });
+
+  it('an output directory onto an existing file (a demo folder): exit 3, the file unchanged', () => {
+    const dir = tmpDir();
+    writeFileSync(join(dir, 'plots'), 'a file');
+    let e: unknown;
+    try {
+      makeOutputDir(join(dir, 'plots'));
+    } catch (x) {
+      e = x;
+    }
+    expect(e).toBeInstanceOf(OutputError);
+    expect((e as OutputError).message).toBe(`cannot write ${join(dir, 'plots')}: a file is in the way where a directory is needed`);
+    expect(readFileSync(join(dir, 'plots'), 'utf8')).toBe('a file');
+    makeOutputDir(join(dir, 'new', 'plots'));
+    expect(lstatSync(join(dir, 'new', 'plots')).isDirectory()).toBe(true);
   });
 
   it('the same file twice in one set', async () => {
