@@ -28,7 +28,7 @@
  */
 import { constants, lstatSync, mkdirSync } from 'node:fs';
 import { lstat, open, readFile, rename, rm, unlink } from 'node:fs/promises';
-import { dirname, join, resolve } from 'node:path';
+import { basename, dirname, join, resolve } from 'node:path';
 import { OutputError } from '../errors.js';
 import { errnoCode, toOutputError } from './output-errors.js';
 import { pidAlive, registerTemp, sweepStaleTemps, tempName, unregisterTemp } from './temp-files.js';
@@ -146,6 +146,10 @@ async function writeTemp(tmp: string, target: string, data: string | Uint8Array,
   try {
     fh = await open(tmp, TEMP_FLAGS, 0o666);
   } catch (e) {
+    // With a random name this only happens when something was planted there: never follow it.
+    if (errnoCode(e) === 'EEXIST' || errnoCode(e) === 'ELOOP') {
+      throw new OutputError(target, `something already exists at the temporary name ${basename(tmp)} (not followed, not removed)`, { cause: e });
+    }
     throw toOutputError(target, e);
   }
   registerTemp(tmp);
