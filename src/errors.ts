@@ -23,6 +23,14 @@ export const EXIT = {
 
 export type ExitStatus = (typeof EXIT)[keyof typeof EXIT];
 
+/**
+ * Text echoed from the user into a message, capped: at most `max` characters, the rest replaced
+ * by "…" (so a 200 000-character key gives a one-line message, not a 200 KB one).
+ */
+export function capText(text: string, max: number): string {
+  return text.length > max ? `${text.slice(0, max)}…` : text;
+}
+
 /** Base class: every error ephmap raises on purpose. */
 export abstract class EphmapError extends Error {
   abstract readonly code: string;
@@ -41,8 +49,8 @@ export class InputError extends EphmapError {
   readonly expected: string;
 
   constructor(file: string, field: string, expected: string, got?: string) {
-    const where = field ? `${file}: ${field}` : file;
-    super(`${where}: expected ${expected}${got !== undefined ? `, got ${got}` : ''}`);
+    const where = field ? `${capText(file, 200)}: ${capText(field, 100)}` : capText(file, 200);
+    super(`${where}: expected ${expected}${got !== undefined ? `, got ${capText(got, 120)}` : ''}`);
     this.name = 'InputError';
     this.file = file;
     this.field = field;

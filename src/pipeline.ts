@@ -6,6 +6,7 @@ import type { BoundaryModel, DiagramModel } from './model.js';
 import { solve, type Solution } from './solve/solve.js';
 import { gridMap } from './solve/grid.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
+import { checkWorkBudget, familiesRequested } from './system/budget.js';
 import { readSystemFile } from './system/read.js';
 import { readSpec, type SystemSpec } from './system/spec.js';
 import { InputError } from './system/errors.js';
@@ -24,6 +25,8 @@ export function loadSpec(path: string): SystemSpec {
 
 export function compute(spec: SystemSpec): Computed {
   const built = buildSystem(spec);
+  const species = built.input.species.length + (built.input.ligands ?? []).reduce((n, l) => n + l.species.length, 0);
+  checkWorkBudget({ grid: spec.grid, species, families: familiesRequested(spec.extra) }, spec.file);
   const solution = solve(built.input);
   const model = buildModel(built.input, solution, {
     activity: spec.activity,

@@ -73,6 +73,8 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
   const water: Partial<BuiltSystem['water']> = {};
   if (spec.species) {
     list = [];
+    // Each species once: by library name and formula, or from the library and inline, alike.
+    const seen = new Map<string, string>();
     for (const s of spec.species) {
       let r: ResolvedSpecies;
       if (s.fromLibrary) {
@@ -85,6 +87,13 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
       } else {
         r = { ...s, dfG: s.dfG!, f: parseFormula(s.formula) };
       }
+      const key = `${r.formula}|${r.phase}`;
+      const first = seen.get(key);
+      const given = `${s.field} (${s.fromLibrary ? JSON.stringify(s.fromLibrary) : 'inline'})`;
+      if (first !== undefined) {
+        throw new InputError(spec.file, s.field, `each species once: ${r.formula} (${r.phase}) is given both at ${first} and at ${given}; remove one of the two`);
+      }
+      seen.set(key, given);
       const wkey = WATER_FORMULAS[`${r.f.text}|${r.phase}`];
       if (wkey) water[wkey] = r;
       else list.push(r);
@@ -109,6 +118,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
     }
   }
   // Exclusions match a formula with or without a phase tag, or a name.
+  const hadMain = list.some((s) => (s.f.elements[spec.element] ?? 0) > 0);
   for (const ex of spec.exclude) {
     const { formula, phase } = splitPhase(ex);
     const before = list.length;
@@ -125,6 +135,9 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
       if (!known) throw new InputError(spec.file, 'exclude', 'formulas or names of species in the system or the library', JSON.stringify(ex));
       warnings.push(`exclude: ${ex} is not in this system; nothing left out`);
     }
+  }
+  if (hadMain && !list.some((s) => (s.f.elements[spec.element] ?? 0) > 0)) {
+    throw new InputError(spec.file, 'exclude', `a list that leaves at least one species containing ${spec.element}`, `every species of ${spec.element} left out`);
   }
   // Alternatives from other compilations.
   for (const [formula, id] of Object.entries(spec.pick)) {

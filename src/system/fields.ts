@@ -7,6 +7,21 @@ import { InputError, show } from './errors.js';
 /** C0 controls except tab and newline, DEL, C1 controls, unpaired UTF-16 surrogates, U+FFFE/U+FFFF. */
 const BAD_CHAR = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\ufffe\uffff]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
 
+/**
+ * Invisible characters that can make a label read differently from what it is: bidirectional
+ * embeddings, overrides, isolates and marks (U+202A–202E, U+2066–2069, U+200E/200F, U+061C), the
+ * zero-width space, word joiner and invisible operators (U+200B, U+2060–2064) and a BOM inside
+ * text (U+FEFF). Zero-width joiner and non-joiner (U+200C/200D) stay allowed: scripts and emoji
+ * sequences need them.
+ */
+const HIDDEN_CHAR = /[\u202a-\u202e\u2066-\u2069\u200e\u200f\u061c\u200b\u2060-\u2064\ufeff]/;
+
+/** Keys refused in every user map: they reach an object's prototype machinery. */
+export const FORBIDDEN_KEYS: readonly string[] = ['__proto__', 'constructor', 'prototype'];
+
+/** The strict decimal syntax of a number typed as text (no hex, no blanks, no Infinity). */
+const NUMBER_TEXT = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
 /** The known key nearest to `k` (edit distance ≤ 2, case-insensitive), for "did you mean". */
 export function closest(k: string, keys: readonly string[]): string | undefined {
   let best: string | undefined;
@@ -107,7 +122,34 @@ export class Fields {
       const code = bad[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0');
       throw new InputError(this.file, this.at(field), `${what} without control characters`, `U+${code} at character ${bad.index + 1}`);
     }
+    const hidden = HIDDEN_CHAR.exec(s);
+    if (hidden) {
+      const code = hidden[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0');
+      throw new InputError(this.file, this.at(field), `${what} without invisible or text-direction characters`, `U+${code} at character ${hidden.index + 1}`);
+    }
     return s;
+  }
+
+  /**
+   * The own entries of a user map (key → value), refusing a non-object and the keys
+   * FORBIDDEN_KEYS; `what` describes the map for the message.
+   */
+  entries(v: unknown, field: string, what: string): [string, unknown][] {
+    if (!v || typeof v !== 'object' || Array.isArray(v)) this.fail(field, what, v);
+    const list = Object.entries(v as Record<string, unknown>);
+    for (const [k] of list) {
+      if (FORBIDDEN_KEYS.includes(k)) throw new InputError(this.file, this.at(`${field}.${k}`), `keys other than ${FORBIDDEN_KEYS.join(', ')}`, `the key ${JSON.stringify(k)}`);
+    }
+    return list;
+  }
+
+  /**
+   * A number typed as text (a command-line option): strict decimal syntax, so that "" or " "
+   * (which Number() reads as 0), "0x7" or "Infinity" are refused, then the checks of number().
+   */
+  numberText(text: string, field: string, opts: Parameters<Fields['number']>[2] = {}): number {
+    if (!NUMBER_TEXT.test(text)) this.fail(field, 'a decimal number such as 25 or 1e-6', text);
+    return this.number(Number(text), field, opts);
   }
 
   boolean(v: unknown, field: string): boolean {

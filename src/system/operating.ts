@@ -44,12 +44,10 @@ export function readReference(f: Fields, v: unknown, field: string): string | Cu
 }
 
 export function readOperating(f: Fields, extra: Record<string, unknown>): Operating {
-  const op: Operating = { classes: {}, points: [], boxes: [], paths: [] };
+  const op: Operating = { classes: Object.create(null), points: [], boxes: [], paths: [] };
   if (extra.reference !== undefined) op.reference = readReference(f, extra.reference, 'reference');
   if (extra.classes !== undefined) {
-    const c = extra.classes;
-    if (!c || typeof c !== 'object' || Array.isArray(c)) f.fail('classes', 'a map of formula → immunity, passivation or corrosion', c);
-    for (const [k, v] of Object.entries(c as Record<string, unknown>)) op.classes[k] = f.oneOf(v, `classes.${k}`, VERDICTS);
+    for (const [k, v] of f.entries(extra.classes, 'classes', 'a map of formula → immunity, passivation or corrosion')) op.classes[k] = f.oneOf(v, `classes.${k}`, VERDICTS);
   }
   const label = (v: unknown, field: string, k: number, kind: string) => (v === undefined ? `${kind} ${k + 1}` : f.string(v, field, 'a label text', 80));
   if (extra.points !== undefined) {

@@ -3,12 +3,19 @@
  * (alias bombs, deep nesting, huge files, binary data, duplicate keys) is refused with an InputError
  * naming the file and, where one can be told, the field.
  */
-import { readFileSync, statSync } from 'node:fs';
+import { readFileSync, type Stats, statSync } from 'node:fs';
 import { extname } from 'node:path';
 import { parseDocument } from 'yaml';
 import { InputError } from './errors.js';
+import { FORBIDDEN_KEYS } from './fields.js';
 
 const MAX_BYTES = 4 * 1024 * 1024;
+/**
+ * YAML only: at most this many lines plus commas before parsing. The YAML parser's time and
+ * memory grow faster than linearly with the number of nodes (a 3.8 MB flow list took 46 s and
+ * 1.9 GB); a system file within every documented limit needs a few tens of thousands.
+ */
+export const MAX_YAML_ITEMS = 50_000;
 const MAX_DEPTH = 32;
 const NESTING = `nesting at most ${MAX_DEPTH} levels deep`;
 
@@ -16,7 +23,7 @@ export function readSystemFile(path: string): unknown {
   let text: string;
   try {
     const st = statSync(path);
-    if (!st.isFile()) throw new InputError(path, '', 'a readable system file (.json, .yaml or .yml)', 'a directory');
+    if (!st.isFile()) throw new InputError(path, '', 'a readable system file (.json, .yaml or .yml)', kindOf(st));
     if (st.size > MAX_BYTES) throw new InputError(path, '', `a system file under ${MAX_BYTES / 1048576} MiB`, `${st.size} bytes`);
     text = readFileSync(path, 'utf8');
   } catch (e) {
@@ -26,6 +33,16 @@ export function readSystemFile(path: string): unknown {
     throw new InputError(path, '', 'a readable system file (.json, .yaml or .yml)', got);
   }
   return parseSystemText(text, path);
+}
+
+/** What a path that is not a regular file is, in plain words (never opened: a FIFO would block). */
+function kindOf(st: Stats): string {
+  if (st.isDirectory()) return 'a directory';
+  if (st.isFIFO()) return 'a named pipe (FIFO)';
+  if (st.isCharacterDevice()) return 'a character device (such as /dev/zero)';
+  if (st.isBlockDevice()) return 'a block device';
+  if (st.isSocket()) return 'a socket';
+  return 'not a regular file';
 }
 
 /** Parses the text of a system file; `path` gives the format (by extension) and names the file in messages. */
@@ -47,6 +64,10 @@ export function parseSystemText(text: string, path: string): unknown {
     const dup = duplicateJsonKey(text);
     if (dup) throw new InputError(path, dup, 'each key once in an object', 'the key a second time');
   } else if (ext === '.yaml' || ext === '.yml') {
+    // Line ends: CR LF and a lone CR (old Mac files) both end a line.
+    text = text.replace(/\r\n?/g, '\n');
+    const items = countItems(text);
+    if (items > MAX_YAML_ITEMS) throw new InputError(path, '', `a YAML file of at most ${MAX_YAML_ITEMS} lines and list items (lines plus commas)`, `${items}`);
     const deep = deepFlow(text);
     if (deep !== null) throw new InputError(path, deep, NESTING, 'deeper nesting');
     let doc: ReturnType<typeof parseDocument>;
@@ -62,6 +83,12 @@ export function parseSystemText(text: string, path: string): unknown {
       const line = err.linePos?.[0]?.line ?? (err.pos ? text.slice(0, err.pos[0]).split('\n').length : 0);
       throw new InputError(path, line ? `line ${line}` : '', 'valid YAML', err.message.split('\n')[0]);
     }
+    const tag = doc.warnings.find((w) => w.code === 'TAG_RESOLVE_FAILED');
+    if (tag) {
+      const at = tag.pos?.[0] ?? 0;
+      const name = /^!\S*/.exec(text.slice(at))?.[0] ?? 'a custom tag';
+      throw new InputError(path, topKeyAt(text, at) || `line ${text.slice(0, at).split('\n').length}`, 'plain YAML values (no custom tags such as !!js/function or !Ref)', `the tag ${JSON.stringify(name)}`);
+    }
     try {
       data = doc.toJS({ maxAliasCount: 50 });
     } catch (e) {
@@ -75,12 +102,21 @@ export function parseSystemText(text: string, path: string): unknown {
   return data;
 }
 
-/** Field path (e.g. `figure.a.a`) of the first value nested deeper than MAX_DEPTH. */
+/**
+ * Walks the parsed data: the field path (e.g. `figure.a.a`) of the first value nested deeper than
+ * MAX_DEPTH, or of the first key that is one of FORBIDDEN_KEYS, is refused.
+ */
 function checkDepth(v: unknown, path: string, depth: number, field: string): void {
   if (depth > MAX_DEPTH) throw new InputError(path, shorten(field), NESTING, 'deeper nesting');
   if (v && typeof v === 'object') {
     if (Array.isArray(v)) v.forEach((x, k) => checkDepth(x, path, depth + 1, `${field}[${k}]`));
-    else for (const [k, x] of Object.entries(v as Record<string, unknown>)) checkDepth(x, path, depth + 1, field ? `${field}.${k}` : k);
+    else {
+      for (const [k, x] of Object.entries(v as Record<string, unknown>)) {
+        const at = field ? `${field}.${k}` : k;
+        if (FORBIDDEN_KEYS.includes(k)) throw new InputError(path, shorten(at), `keys other than ${FORBIDDEN_KEYS.join(', ')}`, `the key ${JSON.stringify(k)}`);
+        checkDepth(x, path, depth + 1, at);
+      }
+    }
   }
 }
 
@@ -128,6 +164,16 @@ function duplicateJsonKey(text: string): string | null {
     }
   }
   return null;
+}
+
+/** Lines plus commas of a text: an upper bound on the nodes a YAML parser builds from it. */
+function countItems(text: string): number {
+  let n = 1;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10 || c === 44) n++;
+  }
+  return n;
 }
 
 /** The top-level YAML key (a line starting in column 0 with `key:`) at or before `offset`. */

@@ -85,11 +85,20 @@ export function readAmount(f: Fields, v: unknown, field: string): Amount {
       f.fail(field, `a formula after "as" (e.g. "as Fe")`, as);
     }
   }
-  if (unit === 'mol/kg') return { kind: 'molality', value: x };
-  if (unit === 'mmol/kg') return { kind: 'molality', value: x / 1000 };
-  if (unit === 'g/l') return { kind: 'mg/L', value: x * 1000, as };
-  return { kind: 'mg/L', value: x, as }; // mg/L, ppm (dilute water: 1 ppm ≈ 1 mg/L)
+  let a: Amount;
+  if (unit === 'mol/kg') a = { kind: 'molality', value: x };
+  else if (unit === 'mmol/kg') a = { kind: 'molality', value: x / 1000 };
+  else if (unit === 'g/l') a = { kind: 'mg/L', value: x * 1000, as };
+  else a = { kind: 'mg/L', value: x, as }; // mg/L, ppm (dilute water: 1 ppm ≈ 1 mg/L)
+  // The same bounds as a plain number: at most 100 mol/kg; by mass at most 1e6 mg/L (1 kg/L).
+  if (a.kind === 'molality' && a.value > MAX_MOLALITY) f.fail(field, `a concentration of at most ${MAX_MOLALITY} mol/kg`, v);
+  if (a.kind === 'mg/L' && a.value > MAX_MG_PER_L) f.fail(field, `a concentration of at most ${MAX_MG_PER_L} mg/L (1 kg/L)`, v);
+  return a;
 }
+
+/** Upper bounds of a concentration given as text: the molality bound of a plain number, and by mass 1 kg/L. */
+export const MAX_MOLALITY = 100;
+export const MAX_MG_PER_L = 1e6;
 
 export function readSolutionSettings(f: Fields, o: Record<string, unknown>): SolutionSettings {
   let I = 0;
@@ -102,12 +111,10 @@ export function readSolutionSettings(f: Fields, o: Record<string, unknown>): Sol
     from = 'given';
   }
   if (o.background !== undefined) {
-    const b = o.background;
-    if (!b || typeof b !== 'object' || Array.isArray(b)) f.fail('background', 'a map of salt or ion → mol/kg, e.g. {NaCl: 0.5}', b);
     const parts: string[] = [];
-    for (const [k, v] of Object.entries(b as Record<string, unknown>)) {
+    for (const [k, v] of f.entries(o.background, 'background', 'a map of salt or ion → mol/kg, e.g. {NaCl: 0.5}')) {
       const m = f.number(v, `background.${k}`, { min: 0, max: 10 });
-      const salt = SALTS[k];
+      const salt = Object.hasOwn(SALTS, k) ? SALTS[k] : undefined;
       if (salt) {
         I += backgroundElectrolyte(salt.map(([charge, count]) => ({ charge, count })), m);
       } else {

@@ -8,6 +8,7 @@
 import { isElement } from '../chem/elements.js';
 import { FormulaError, formulaWarnings, parseFormula } from '../chem/formula.js';
 import type { Phase } from '../model.js';
+import { InputError } from './errors.js';
 import { Fields } from './fields.js';
 import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
 import { type Operating, readOperating } from './operating.js';
@@ -103,6 +104,9 @@ export const TOP_KEYS = [
 
 const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
 
+/** The free-text `description` (any value), at most this many characters as JSON. */
+export const MAX_DESCRIPTION = 20_000;
+
 /** Temperatures the program accepts, °C (liquid water, IAPWS-IF97 region 1). */
 export const T_RANGE = { min: 0, max: 350 };
 
@@ -130,14 +134,12 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   }
   const solution = readSolutionSettings(f, o);
 
-  const ligands: Record<string, number> = {};
-  const ligandAmounts: Record<string, Amount> = {};
-  const ligandGroups: Record<string, Record<string, number>> = {};
+  // User maps are built without a prototype (and their keys checked by f.entries).
+  const ligands: Record<string, number> = Object.create(null);
+  const ligandAmounts: Record<string, Amount> = Object.create(null);
+  const ligandGroups: Record<string, Record<string, number>> = Object.create(null);
   if (o.ligands !== undefined) {
-    if (!o.ligands || typeof o.ligands !== 'object' || Array.isArray(o.ligands)) {
-      f.fail('ligands', 'a map of element symbol → total activity, e.g. {S: 1e-3}', o.ligands);
-    }
-    for (const [k, v] of Object.entries(o.ligands as Record<string, unknown>)) {
+    for (const [k, v] of f.entries(o.ligands, 'ligands', 'a map of element symbol → total activity, e.g. {S: 1e-3}')) {
       const what = 'an element symbol (e.g. S, C, Cl, N) or a neutral group formula such as CN as key';
       let comp: Record<string, number>;
       if (isElement(k)) comp = { [k]: 1 };
@@ -164,10 +166,9 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     }
   }
 
-  const ligandSpecies: Record<string, 'all' | string[]> = {};
+  const ligandSpecies: Record<string, 'all' | string[]> = Object.create(null);
   if (o.ligandSpecies !== undefined) {
-    if (!o.ligandSpecies || typeof o.ligandSpecies !== 'object' || Array.isArray(o.ligandSpecies)) f.fail('ligandSpecies', 'a map of ligand → "all" or a list of formulas', o.ligandSpecies);
-    for (const [k, v] of Object.entries(o.ligandSpecies as Record<string, unknown>)) {
+    for (const [k, v] of f.entries(o.ligandSpecies, 'ligandSpecies', 'a map of ligand → "all" or a list of formulas')) {
       if (!(k in ligandGroups)) f.fail(`ligandSpecies.${k}`, `a ligand named under ligands (${Object.keys(ligandGroups).join(', ') || 'none given'})`, k);
       ligandSpecies[k] = v === 'all' ? 'all' : f.stringList(v, `ligandSpecies.${k}`);
     }
@@ -206,15 +207,18 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   if (o.assumeConstantG !== undefined) {
     assumeConstantG = typeof o.assumeConstantG === 'boolean' ? o.assumeConstantG : f.stringList(o.assumeConstantG, 'assumeConstantG');
   }
-  const pick: Record<string, string> = {};
+  const pick: Record<string, string> = Object.create(null);
   if (o.pick !== undefined) {
-    if (!o.pick || typeof o.pick !== 'object' || Array.isArray(o.pick)) f.fail('pick', 'a map of formula → alternative id', o.pick);
-    for (const [k, v] of Object.entries(o.pick as Record<string, unknown>)) pick[k] = f.string(v, `pick.${k}`, 'an alternative id');
+    for (const [k, v] of f.entries(o.pick, 'pick', 'a map of formula → alternative id')) pick[k] = f.string(v, `pick.${k}`, 'an alternative id');
   }
   const extrapolation = o.extrapolation === undefined ? 'cp' : f.oneOf(o.extrapolation, 'extrapolation', ['cp', 'constant-h-s'] as const);
   const title = o.title === undefined ? undefined : f.string(o.title, 'title', 'a title text', 200);
   const grid = f.optNumber(o.grid, 'grid', 200, { integer: true, min: 10, max: 4000 });
 
+  if (o.description !== undefined) {
+    const n = JSON.stringify(o.description).length;
+    if (n > MAX_DESCRIPTION) throw new InputError(file, 'description', `a description of at most ${MAX_DESCRIPTION} characters`, `${n}`);
+  }
   const extra: Record<string, unknown> = {};
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];

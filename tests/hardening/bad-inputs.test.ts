@@ -5,6 +5,7 @@
  * ok/ look suspicious but are valid: exit 0 and an output file. Atomic output: a failed run never
  * touches an existing output and leaves no temporary files.
  */
+import { execFileSync } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -105,6 +106,40 @@ describe('hostile inputs too big for the catalogue (generated)', () => {
     await expectRefused(f, 'description[0]', join(out, 'deep1m.svg'));
   });
 
+  it('/dev/zero as input: named as a character device, never read (not "a directory")', async () => {
+    const r = await runCli(['draw', '/dev/zero', '-o', join(out, 'zero.svg')]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toBe('ephmap: /dev/zero: expected a readable system file (.json, .yaml or .yml), got a character device (such as /dev/zero)\n');
+  });
+
+  it('a FIFO as input: named as a named pipe, never opened (opening would block)', async () => {
+    const f = join(out, 'pipe.yaml');
+    execFileSync('mkfifo', [f]);
+    await expectRefused(f, 'got a named pipe (FIFO)', join(out, 'pipe.svg'));
+  });
+
+  it('a 200 000-character unknown key gives a one-line message of bounded length', async () => {
+    const f = join(out, 'longkey.json');
+    writeFileSync(f, `{"element": "Fe", "${'k'.repeat(200_000)}": 1}`);
+    const r = await runCli(['draw', f, '-o', join(out, 'longkey.svg')]);
+    expect(r.code).toBe(2);
+    expect(r.stderr.length).toBeLessThan(f.length + 1000);
+    expect(r.stderr).toContain(`${'k'.repeat(100)}…`);
+  });
+
+  it('a YAML flow list of 60 000 items (quadratic in the parser) is refused before parsing', async () => {
+    const f = join(out, 'flow.yaml');
+    writeFileSync(f, `element: Fe\ndescription: [${'1,'.repeat(60_000)}1]\n`);
+    await expectRefused(f, 'at most 50000 lines and list items', join(out, 'flow.svg'));
+  });
+
+  it('the work-budget refusal names the largest grid that fits', async () => {
+    const r = await runCli(['draw', join(BAD, 'work-budget.json'), '-o', join(out, 'budget.svg')]);
+    expect(r.code).toBe(2);
+    // 1e9 / (2000 × 9) = 55 555.6 → grid ≤ 235
+    expect(r.stderr).toContain('use grid ≤ 235, got 4000² × 2000 × 9 = 2.9e+11');
+  });
+
   it('an alias bomb in JSON-compatible YAML flow style is refused', async () => {
     const f = join(out, 'bomb2.yml');
     const lv = Array.from({ length: 12 }, (_, k) => `l${k + 1}: &l${k + 1} [${Array(10).fill(`*l${k}`).join(',')}]`);
@@ -154,6 +189,16 @@ describe('ok/: valid input that looks suspicious', () => {
     const target = join(out, 'unicode.svg');
     expect((await runCli(['draw', join(OK, 'title-unicode.yaml'), '-o', target])).code).toBe(0);
     expect(readFileSync(target, 'utf8')).toContain('鉄');
+  });
+
+  it('CR-only line ends read like LF: same diagram as the LF file', async () => {
+    const a = join(out, 'cr.json');
+    const b = join(out, 'lf.json');
+    expect((await runCli(['draw', join(OK, 'cr-line-ends.yaml'), '-o', a])).code).toBe(0);
+    const lf = join(out, 'lf.yaml');
+    writeFileSync(lf, readFileSync(join(OK, 'cr-line-ends.yaml'), 'utf8').replace(/\r/g, '\n'));
+    expect((await runCli(['draw', lf, '-o', b])).code).toBe(0);
+    expect(readFileSync(a, 'utf8')).toBe(readFileSync(b, 'utf8'));
   });
 
   it('Fe2+ warns (suggesting Fe+2) but is not an error', async () => {

@@ -1,0 +1,15 @@
+/**
+ * Spreadsheet safety for CSV cells that carry user text (labels, names, notes — never numbers):
+ * a spreadsheet opening the file runs a cell as a formula when it starts with `=`, `+`, `-` or `@`
+ * (also after leading spaces, and in their full-width forms), and tab or carriage return at the
+ * start can shift or hide it. Common practice (the spreadsheet-injection guidance of web-security
+ * checklists): prefix such a cell with a single quote `'`, which spreadsheets show as text.
+ * This helper only neutralises; quoting for the CSV syntax (RFC 4180) is the writer's job.
+ *
+ * Example: neutraliseCsvCell('=HYPERLINK("x")') === `'=HYPERLINK("x")`; neutraliseCsvCell('Fe+2') === 'Fe+2'.
+ */
+const FORMULA_START = /^[ \u00a0]*[=+\-@\uff1d\uff0b\uff0d\uff20]|^[\t\r]/;
+
+export function neutraliseCsvCell(text: string): string {
+  return FORMULA_START.test(text) ? `'${text}` : text;
+}
