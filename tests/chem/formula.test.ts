@@ -156,11 +156,6 @@ describe('formulaWarnings', () => {
     expect(w[0]).toContain(`"${suggestion}"`);
   });
 
-  it('Fe8O19H21- : the advice names the other composition, never "charge -1 … write charge -1"', () => {
-    const [w] = formulaWarnings('Fe8O19H21-');
-    expect(w).toBe('formula "Fe8O19H21-" reads as Fe8O19H21 with charge -1; if Fe8O19H2 with charge -1 is meant, write "Fe8O19H2-1" (charge is a sign then a number)');
-  });
-
   it.each(['Fe+2', 'HFeO2-', 'Fe(OH)2+', 'MnO4-', 'NH4+', 'SO4-2', 'Fe2O3', 'C60-', 'Fe(OH', ''])('%s gives none', (text) => {
     expect(formulaWarnings(text)).toEqual([]);
   });
