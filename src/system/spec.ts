@@ -56,7 +56,7 @@ export interface SystemSpec {
   /** Species (or all, true) whose ΔfG° is taken as constant with T when S° and ΔfH° are missing. */
   assumeConstantG: boolean | string[];
   pick: Record<string, string>;
-  extrapolation: 'cp' | 'constant-h-s';
+  extrapolation: 'best' | 'cp' | 'constant-h-s';
   title?: string;
   grid: number;
   /** Reference electrode, verdict reclassifications, operating points, envelopes and paths. */
@@ -208,7 +208,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     if (!o.pick || typeof o.pick !== 'object' || Array.isArray(o.pick)) f.fail('pick', 'a map of formula → alternative id', o.pick);
     for (const [k, v] of Object.entries(o.pick as Record<string, unknown>)) pick[k] = f.string(v, `pick.${k}`, 'an alternative id');
   }
-  const extrapolation = o.extrapolation === undefined ? 'cp' : f.oneOf(o.extrapolation, 'extrapolation', ['cp', 'constant-h-s'] as const);
+  const extrapolation = o.extrapolation === undefined ? 'best' : f.oneOf(o.extrapolation, 'extrapolation', ['best', 'cp', 'constant-h-s'] as const);
   const title = o.title === undefined ? undefined : f.string(o.title, 'title', 'a title text', 200);
   const grid = f.optNumber(o.grid, 'grid', 200, { integer: true, min: 10, max: 4000 });
 

@@ -1,0 +1,96 @@
+/**
+ * Carrying one species' Gibbs energy from 25 °C, 1 bar to the system's temperature and pressure,
+ * and recording how it was done (the species' temperature model) so outputs can say so.
+ *
+ * Models ('best', the default extrapolation, picks per species the best one its data allow):
+ *   'iapws'          H2O(l): IAPWS-IF97 Gibbs function (thermo/water-gibbs.ts)
+ *   'published'      aqueous species with published revised-HKF parameters (thermo/hkf.ts)
+ *   'estimated'      aqueous species with HKF parameters estimated from charge, S°, Cp°
+ *                    (thermo/hkf-estimate.ts); also any species whose S° had to be estimated
+ *   'cp-polynomial'  solids, liquids, gases with a Maier–Kelley Cp(T) (thermo/cp-poly.ts)
+ *   'constant-cp'    constant Cp° (thermo/gibbs.ts)
+ *   'constant-h-s'   no Cp°: constant ΔH and ΔS
+ *   'constant-g'     the user's assumeConstantG override
+ * The explicit extrapolations 'cp' and 'constant-h-s' use the constant-Cp forms for every species.
+ * S° comes from the data, else third-law from ΔfH°, else (library species only) the additive
+ * estimate of data/entropy-estimate.ts, which flags the species estimated.
+ */
+import { elementEntropy } from '../data/element-entropies.js';
+import { libraryEntropyEstimator } from '../data/entropy-estimate.js';
+import type { LibrarySpecies } from '../data/library.js';
+import type { TemperatureModel } from '../solve/types.js';
+import { polynomialG } from '../thermo/cp-poly.js';
+import { apparentG, entropyFromFormation } from '../thermo/gibbs.js';
+import { hkfG } from '../thermo/hkf.js';
+import { estimateHkf } from '../thermo/hkf-estimate.js';
+import type { WaterState } from '../thermo/water.js';
+import { waterApparentG } from '../thermo/water-gibbs.js';
+import type { ResolvedSpecies } from './build.js';
+
+export type ExtrapolationMode = 'best' | 'cp' | 'constant-h-s';
+
+export interface CarryContext {
+  mode: ExtrapolationMode;
+  water: WaterState;
+  lib: readonly LibrarySpecies[];
+  /** The user's assumeConstantG choice for this species. */
+  constantG: boolean;
+}
+
+export interface Carried {
+  /** Apparent G at T, P, kJ/mol; undefined when the species cannot be carried ('undetermined'). */
+  G: number | undefined;
+  model: TemperatureModel;
+  estimated: boolean;
+  /** What was estimated, for the record ('S°', 'HKF parameters'). */
+  estimatedWhat: string[];
+}
+
+/** S° of a library species (given or third-law), for the estimator's fit. */
+export function libraryEntropy(s: LibrarySpecies): number | undefined {
+  if (s.S !== undefined) return s.S;
+  if (s.dfH === undefined) return undefined;
+  return entropyFromFormation(s.dfG, s.dfH, s.elements, s.charge, elementEntropy);
+}
+
+/** S° of a resolved species and whether it was estimated; undefined where no route exists. */
+function entropyOf(s: ResolvedSpecies, ctx: CarryContext): { S: number; estimated: boolean } | undefined {
+  if (s.S !== undefined) return { S: s.S, estimated: false };
+  if (s.dfH !== undefined) return { S: entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy), estimated: false };
+  if (!s.library) return undefined;
+  const est = libraryEntropyEstimator(ctx.lib, libraryEntropy).estimate({ elements: s.f.elements, charge: s.f.charge, phase: s.phase });
+  return est ? { S: est.S, estimated: true } : undefined;
+}
+
+/** Carries `s` to the water state's T and P (see the module comment). */
+export function carrySpecies(s: ResolvedSpecies, ctx: CarryContext): Carried {
+  const st = ctx.water;
+  const atRef = Math.abs(st.celsius - 25) < 1e-9 && st.path === 'atmospheric';
+  const isWater = s.phase === 'l' && s.formula === 'H2O';
+  const ent = entropyOf(s, ctx);
+  if (!ent) {
+    if (ctx.constantG) return { G: s.dfG, model: 'constant-g', estimated: false, estimatedWhat: [] };
+    return { G: atRef ? s.dfG : undefined, model: 'undetermined', estimated: false, estimatedWhat: [] };
+  }
+  const estimatedWhat = ent.estimated ? ['S°'] : [];
+  const done = (G: number, model: TemperatureModel): Carried => ({
+    G: atRef ? s.dfG : G,
+    model,
+    estimated: estimatedWhat.length > 0,
+    estimatedWhat,
+  });
+  const d = { dfG: s.dfG, S: ent.S, Cp: s.Cp };
+  if (ctx.mode !== 'best') {
+    const model = ctx.mode === 'cp' && s.Cp !== undefined ? 'constant-cp' : 'constant-h-s';
+    return done(apparentG(d, st.kelvin, ctx.mode), model);
+  }
+  if (isWater) return done(waterApparentG(s.dfG, ent.S, st.kelvin, st.pressureMPa), 'iapws');
+  if (s.phase === 'aq') {
+    const solvent = { kelvin: st.kelvin, pressureMPa: Math.max(st.pressureMPa, st.saturationPressureMPa), density: st.density };
+    if (s.hkf) return done(hkfG(s.dfG, ent.S, s.hkf, s.f.charge, solvent), 'published');
+    estimatedWhat.push('HKF parameters');
+    return done(hkfG(s.dfG, ent.S, estimateHkf(s.f.charge, ent.S, s.Cp), s.f.charge, solvent), 'estimated');
+  }
+  if (s.cpPolynomial) return done(polynomialG(s.dfG, ent.S, s.cpPolynomial, st.kelvin), 'cp-polynomial');
+  return done(apparentG(d, st.kelvin, 'cp'), s.Cp !== undefined ? 'constant-cp' : 'constant-h-s');
+}
