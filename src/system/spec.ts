@@ -11,6 +11,8 @@ import type { Phase } from '../model.js';
 import { Fields } from './fields.js';
 import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
 import { type Operating, readOperating } from './operating.js';
+import type { CpPolynomial } from '../thermo/cp-poly.js';
+import { HKF_KEYS, type HkfParameters } from '../thermo/hkf.js';
 
 export interface InlineSpecies {
   formula: string;
@@ -19,6 +21,10 @@ export interface InlineSpecies {
   dfH?: number;
   S?: number;
   Cp?: number;
+  /** Revised HKF parameters (aqueous), tabulated units (src/thermo/hkf.ts). */
+  hkf?: HkfParameters;
+  /** Maier–Kelley Cp(T) = a + bT + cT⁻², J/(mol·K) (solids, liquids, gases). */
+  cpPolynomial?: CpPolynomial;
   activity?: number;
   /** A concentration given instead of an activity. */
   concentration?: Amount;
@@ -100,7 +106,7 @@ export const TOP_KEYS = [
   'description',
 ] as const;
 
-const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
+const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'hkf', 'cpPolynomial', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
 
 /** Temperatures the program accepts, °C (liquid water, IAPWS-IF97 region 1). */
 export const T_RANGE = { min: 0, max: 350 };
@@ -235,7 +241,7 @@ function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[])
   for (const w of formulaWarnings(formula)) warnings.push(`${f.file}: ${field}.formula: ${w}`);
   const label = `${field} (${formula})`;
   if (o.dfG === undefined) {
-    if (o.phase !== undefined || o.dfH !== undefined || o.S !== undefined || o.Cp !== undefined) {
+    if (o.phase !== undefined || o.dfH !== undefined || o.S !== undefined || o.Cp !== undefined || o.hkf !== undefined || o.cpPolynomial !== undefined) {
       f.fail(`${label}.dfG`, 'ΔfG° in kJ/mol (required for an inline species)');
     }
     // Only a formula (and activity/pressure): take the data from the library.
@@ -262,6 +268,21 @@ function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[])
     field,
   };
   if (sp.activity !== undefined && sp.concentration) f.fail(`${label}.concentration`, 'either activity or concentration, not both');
+  if (o.hkf !== undefined) {
+    if (phase !== 'aq') f.fail(`${label}.hkf`, 'HKF parameters only on dissolved (aq) species');
+    const h = f.object(o.hkf, `${label}.hkf`, HKF_KEYS);
+    const get = (k: string): number => f.number(h[k], `${label}.hkf.${k}`, { min: -1e6, max: 1e6 });
+    sp.hkf = { a1: get('a1'), a2: get('a2'), a3: get('a3'), a4: get('a4'), c1: get('c1'), c2: get('c2'), omega: get('omega') };
+  }
+  if (o.cpPolynomial !== undefined) {
+    if (phase === 'aq') f.fail(`${label}.cpPolynomial`, 'a heat-capacity polynomial only on solids, liquids and gases (use hkf for aq)');
+    const c = f.object(o.cpPolynomial, `${label}.cpPolynomial`, ['a', 'b', 'c']);
+    const get = (k: string): number => f.number(c[k], `${label}.cpPolynomial.${k}`, { min: -1e9, max: 1e9 });
+    sp.cpPolynomial = { a: get('a'), b: get('b'), c: get('c') };
+  }
+  if ((sp.hkf || sp.cpPolynomial) && sp.S === undefined && sp.dfH === undefined) {
+    f.fail(`${label}.S`, 'S° in J/(mol·K) (or dfH) with hkf or cpPolynomial');
+  }
   if (sp.concentration && phase !== 'aq') f.fail(`${label}.concentration`, 'a concentration only on dissolved (aq) species');
   if (sp.activity !== undefined && phase !== 'aq') f.fail(`${label}.activity`, 'activity only on dissolved (aq) species; use pressure for gases');
   if (sp.pressure !== undefined && phase !== 'g') f.fail(`${label}.pressure`, 'pressure only on gases (phase "g")');
