@@ -23,7 +23,7 @@ import { polynomialG } from '../thermo/cp-poly.js';
 import { apparentG, entropyFromFormation } from '../thermo/gibbs.js';
 import { hkfG } from '../thermo/hkf.js';
 import { estimateHkf } from '../thermo/hkf-estimate.js';
-import type { WaterState } from '../thermo/water.js';
+import { type WaterState, waterState } from '../thermo/water.js';
 import { waterApparentG } from '../thermo/water-gibbs.js';
 import type { ResolvedSpecies } from './build.js';
 
@@ -93,4 +93,25 @@ export function carrySpecies(s: ResolvedSpecies, ctx: CarryContext): Carried {
   }
   if (s.cpPolynomial) return done(polynomialG(s.dfG, ent.S, s.cpPolynomial, st.kelvin), 'cp-polynomial');
   return done(apparentG(d, st.kelvin, 'cp'), s.Cp !== undefined ? 'constant-cp' : 'constant-h-s');
+}
+
+/**
+ * How a library species is carried to temperature by the default model (for `catalog`): its
+ * temperature model and what is estimated. Evaluated at 100 °C (the labels do not depend on T).
+ */
+export function libraryTemperatureModel(s: LibrarySpecies, lib: readonly LibrarySpecies[]): { model: TemperatureModel; estimated: boolean; estimatedWhat: string[] } {
+  const r: ResolvedSpecies = {
+    formula: s.formula, phase: s.phase, dfG: s.dfG, dfH: s.dfH, S: s.S, Cp: s.Cp, field: s.formula, library: true,
+    f: { text: s.formula, elements: s.elements, charge: s.charge },
+    ...(s.hkf ? { hkf: s.hkf } : {}),
+    ...(s.cpPolynomial ? { cpPolynomial: s.cpPolynomial } : {}),
+  };
+  const c = carrySpecies(r, { mode: 'best', water: waterAt100(), lib, constantG: false });
+  return { model: c.model, estimated: c.estimated, estimatedWhat: c.estimatedWhat };
+}
+
+let state100: WaterState | undefined;
+function waterAt100(): WaterState {
+  state100 ??= waterState(100);
+  return state100;
 }

@@ -64,3 +64,16 @@ describe('every library species is carried to temperature', () => {
     expect(model('Fe2O3').model).toBe('constant-cp');
   });
 });
+
+describe('catalog data name the temperature model', () => {
+  it('ZnOH+ estimated (S° and HKF parameters), OH- published, H2O(l) by IAPWS', async () => {
+    const { catalogEntries } = await import('../../src/report/catalog.js');
+    const all = catalogEntries(lib);
+    const get = (f: string, p: string) => all.find((e) => e.formula === f && e.phase === p)!;
+    expect(get('ZnOH+', 'aq').temperatureModel).toBe('estimated');
+    expect(get('ZnOH+', 'aq').estimated).toEqual(['S°', 'HKF parameters']);
+    expect(get('OH-', 'aq').temperatureModel).toBe('published');
+    expect(get('OH-', 'aq').estimated).toBeUndefined();
+    expect(get('H2O', 'l').temperatureModel).toBe('iapws');
+  });
+});
