@@ -115,3 +115,41 @@ function waterAt100(): WaterState {
   state100 ??= waterState(100);
   return state100;
 }
+
+export interface CarriedProperties extends Carried {
+  /** Entropy at T, J/(mol·K): −(∂G/∂T)_P. */
+  S?: number;
+  /** Heat capacity at T, J/(mol·K): −T(∂²G/∂T²)_P. */
+  Cp?: number;
+  /** Apparent enthalpy at T, kJ/mol: ΔfH° + [G(T) − ΔfG°] + T·S(T) − T_r·S°; where ΔfH° is known. */
+  H?: number;
+}
+
+/**
+ * G, S, Cp and H of a species at the context's T and P by the same model as carrySpecies, the
+ * derivatives taken at constant pressure by central differences (step 0.02 K) of the model's own G —
+ * for reaction properties (ΔrH, ΔrS, ΔrCp, log K) at any temperature.
+ * Worked example: H2O(l) at 25 °C, 1 bar → S = 69.91, Cp = 75.3 J/(mol·K) (IAPWS; test).
+ */
+export function carryProperties(s: ResolvedSpecies, ctx: CarryContext): CarriedProperties {
+  const c = carrySpecies(s, ctx);
+  if (c.G === undefined) return c;
+  const h = 0.02;
+  const st = ctx.water;
+  const P = Math.max(st.pressureMPa, st.saturationPressureMPa);
+  const at = (dT: number): number => {
+    const w = waterState(st.celsius + dT, Math.max(P, 0.1));
+    return carrySpecies(s, { ...ctx, water: { ...w, path: 'user' } }).G!;
+  };
+  const lo = at(-h);
+  const mid = at(0);
+  const hi = at(h);
+  const S = (-(hi - lo) / (2 * h)) * 1000;
+  const Cp = -st.kelvin * ((hi - 2 * mid + lo) / (h * h)) * 1000;
+  const out: CarriedProperties = { ...c, S, Cp };
+  if (s.dfH !== undefined) {
+    const Sref = s.S ?? entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy);
+    out.H = s.dfH + (c.G - s.dfG) + (st.kelvin * S - 298.15 * Sref) / 1000;
+  }
+  return out;
+}

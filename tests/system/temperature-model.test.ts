@@ -77,3 +77,19 @@ describe('catalog data name the temperature model', () => {
     expect(get('H2O', 'l').temperatureModel).toBe('iapws');
   });
 });
+
+describe('carryProperties (S, Cp, H from the model, for reaction properties)', () => {
+  it('H2O(l) at 25 °C: S° 69.91 (library), Cp 75.3 J/(mol K) (IAPWS: 4.1813 kJ/(kg K)), H = ΔfH°', async () => {
+    const { carryProperties } = await import('../../src/system/carry.js');
+    const p = carryProperties(resolved(findSpecies(lib, 'H2O(l)')!), { mode: 'best', water: waterState(25), lib, constantG: false });
+    expect(p.S!).toBeCloseTo(69.91, 1);
+    expect(p.Cp!).toBeCloseTo(4.1813 * 18.015268, 0);
+    expect(p.H!).toBeCloseTo(-285.83, 1);
+  });
+  it('ΔrH of water ionization at 25 °C is 55.8 kJ/mol (NBS82 ΔfH° of OH- and H2O; common practice)', async () => {
+    const { carryProperties } = await import('../../src/system/carry.js');
+    const ctx = { mode: 'best' as const, water: waterState(25), lib, constantG: false };
+    const H = (k: string) => carryProperties(resolved(findSpecies(lib, k)!), ctx).H!;
+    expect(H('H+(aq)') + H('OH-(aq)') - H('H2O(l)')).toBeCloseTo(-229.994 + 285.83, 1);
+  });
+});
