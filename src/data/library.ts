@@ -14,6 +14,8 @@ import { basename, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseFormula, splitPhase, sameFormula, FormulaError } from '../chem/formula.js';
 import type { Phase } from '../model.js';
+import { checkParameterBlock, type CpPolynomialRecord, HKF_FIELDS, type HkfRecord, POLY_FIELDS } from './parameter-blocks.js';
+export type { CpPolynomialRecord, HkfRecord } from './parameter-blocks.js';
 
 /** The thermodynamic values one compilation gives for a species. */
 export interface SpeciesValues {
@@ -66,19 +68,6 @@ export interface SpeciesRecord extends SpeciesValues {
   cpPolynomial?: CpPolynomialRecord;
 }
 
-export interface HkfRecord {
-  a1: number; a2: number; a3: number; a4: number; c1: number; c2: number; omega: number;
-  /** Key of the file's `sources` map. */
-  source: string;
-  recalled?: boolean;
-}
-
-export interface CpPolynomialRecord {
-  a: number; b: number; c: number;
-  source: string;
-  recalled?: boolean;
-}
-
 /** A whole species file. */
 export interface SpeciesFile {
   $schema?: string;
@@ -123,29 +112,6 @@ const SPECIES_KEYS = new Set([
   'formula', 'phase', 'name', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled',
   'uncertainty', 'metastable', 'alternatives', 'note', 'aliases', 'hkf', 'cpPolynomial',
 ]);
-const HKF_FIELDS = ['a1', 'a2', 'a3', 'a4', 'c1', 'c2', 'omega'] as const;
-const POLY_FIELDS = ['a', 'b', 'c'] as const;
-
-/** Checks an `hkf` or `cpPolynomial` block: the numeric fields, a source key, the recalled flag. */
-function checkParameterBlock(
-  file: string,
-  at: string,
-  o: unknown,
-  fields: readonly string[],
-  sources: Record<string, string>,
-): void {
-  const fail = (field: string, msg: string): never => {
-    throw new LibraryError(file, field ? `${at}.${field}` : at, msg);
-  };
-  if (!isObject(o)) fail('', `must be an object { ${fields.join(', ')}, source, recalled? }`);
-  const b = o as Record<string, unknown>;
-  for (const k of Object.keys(b)) if (![...fields, 'source', 'recalled'].includes(k)) fail(k, 'unknown field');
-  for (const k of fields) if (!isNum(b[k])) fail(k, 'required, a finite number');
-  if (!isText(b.source) || !Object.prototype.hasOwnProperty.call(sources, b.source as string)) {
-    fail('source', 'required, a key of the file\'s "sources" map');
-  }
-  if (b.recalled !== undefined && typeof b.recalled !== 'boolean') fail('recalled', 'must be true or false');
-}
 const ALT_KEYS = new Set(['id', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled', 'uncertainty', 'note']);
 const ELEMENT_RE = /^[A-Z][a-z]?$/;
 const KEY_RE = /^[A-Za-z][A-Za-z0-9_-]*$/;
@@ -239,11 +205,11 @@ export function validateSpeciesFile(file: string, data: unknown): LibrarySpecies
     checkValues(file, at, o, sourceMap);
     if (o.hkf !== undefined) {
       if (o.phase !== 'aq') fail(`${at}.hkf`, 'only aqueous species take HKF parameters');
-      checkParameterBlock(file, `${at}.hkf`, o.hkf, HKF_FIELDS, sourceMap);
+      checkParameterBlock(o.hkf, HKF_FIELDS, sourceMap, (f, m) => fail(f ? `${at}.hkf.${f}` : `${at}.hkf`, m));
     }
     if (o.cpPolynomial !== undefined) {
       if (o.phase === 'aq') fail(`${at}.cpPolynomial`, 'aqueous species take "hkf" parameters, not a heat-capacity polynomial');
-      checkParameterBlock(file, `${at}.cpPolynomial`, o.cpPolynomial, POLY_FIELDS, sourceMap);
+      checkParameterBlock(o.cpPolynomial, POLY_FIELDS, sourceMap, (f, m) => fail(f ? `${at}.cpPolynomial.${f}` : `${at}.cpPolynomial`, m));
     }
     if (o.metastable !== undefined && typeof o.metastable !== 'boolean') fail(`${at}.metastable`, 'must be true or false');
     if (o.aliases !== undefined) {
