@@ -192,6 +192,9 @@ function gAt(s: ResolvedSpecies, spec: SystemSpec, ctx: Omit<CarryContext, 'cons
   if (c.G === undefined) {
     throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C (or list it under assumeConstantG)`);
   }
+  if (!Number.isFinite(c.G)) {
+    throw new InputError(spec.file, `${s.field} (${s.formula})`, `temperature data that give a finite G at ${spec.temperature} °C (check its hkf or cpPolynomial values)`);
+  }
   if (Math.abs(spec.temperature - 25) > 1e-9) {
     if (c.model === 'constant-g') warnings.push(`${CONST_G_WARN}${s.formula}`);
     if (c.model === 'constant-h-s' && Math.abs(spec.temperature - 25) > 50) warnings.push(`${CP_WARN}${s.formula}`);

@@ -42,3 +42,4 @@ describe('inline temperature data', () => {
     for (const s of h.input.species) expect(s.temperatureModel, s.formula).toBe('constant-h-s');
   });
 });
+
