@@ -61,7 +61,8 @@ describe('every library species is carried to temperature', () => {
     expect(model('Cl-').model).toBe('published');
     expect(model('ZnOH+').model).toBe('estimated');
     expect(model('ZnOH+').estimatedWhat).toEqual(['S°', 'HKF parameters']);
-    expect(model('Fe2O3').model).toBe('constant-cp');
+    expect(model('Fe2O3').model).toBe('cp-polynomial');
+    expect(model('Fe3O4').model).toBe('constant-cp');
   });
 });
 
