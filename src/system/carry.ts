@@ -54,10 +54,12 @@ export function libraryEntropy(s: LibrarySpecies): number | undefined {
 }
 
 /** S° of a resolved species and whether it was estimated; undefined where no route exists. */
-function entropyOf(s: ResolvedSpecies, ctx: CarryContext): { S: number; estimated: boolean } | undefined {
+function entropyOf(s: ResolvedSpecies, ctx: CarryContext, atRef: boolean): { S: number; estimated: boolean } | undefined {
   if (s.S !== undefined) return { S: s.S, estimated: false };
   if (s.dfH !== undefined) return { S: entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy), estimated: false };
   if (!s.library) return undefined;
+  // At the reference state the value is not used: only that it would be estimated.
+  if (atRef) return { S: Number.NaN, estimated: true };
   const est = libraryEntropyEstimator(ctx.lib, libraryEntropy).estimate({ elements: s.f.elements, charge: s.f.charge, phase: s.phase });
   return est ? { S: est.S, estimated: true } : undefined;
 }
@@ -67,32 +69,36 @@ export function carrySpecies(s: ResolvedSpecies, ctx: CarryContext): Carried {
   const st = ctx.water;
   const atRef = Math.abs(st.celsius - 25) < 1e-9 && st.path === 'atmospheric';
   const isWater = s.phase === 'l' && s.formula === 'H2O';
-  const ent = entropyOf(s, ctx);
+  const ent = entropyOf(s, ctx, atRef);
   if (!ent) {
     if (ctx.constantG) return { G: s.dfG, model: 'constant-g', estimated: false, estimatedWhat: [] };
     return { G: atRef ? s.dfG : undefined, model: 'undetermined', estimated: false, estimatedWhat: [] };
   }
   const estimatedWhat = ent.estimated ? ['S°'] : [];
-  const done = (G: number, model: TemperatureModel): Carried => ({
-    G: atRef ? s.dfG : G,
+  // At 25 °C, 1 atm the tabulated ΔfG° is used as is: only the label is worked out (no model run).
+  const done = (G: () => number, model: TemperatureModel): Carried => ({
+    G: atRef ? s.dfG : G(),
     model,
     estimated: estimatedWhat.length > 0,
     estimatedWhat,
   });
   const d = { dfG: s.dfG, S: ent.S, Cp: s.Cp };
   if (ctx.mode !== 'best') {
-    const model = ctx.mode === 'cp' && s.Cp !== undefined ? 'constant-cp' : 'constant-h-s';
-    return done(apparentG(d, st.kelvin, ctx.mode), model);
+    const mode = ctx.mode;
+    const model = mode === 'cp' && s.Cp !== undefined ? 'constant-cp' : 'constant-h-s';
+    return done(() => apparentG(d, st.kelvin, mode), model);
   }
-  if (isWater) return done(waterApparentG(s.dfG, ent.S, st.kelvin, st.pressureMPa), 'iapws');
+  if (isWater) return done(() => waterApparentG(s.dfG, ent.S, st.kelvin, st.pressureMPa), 'iapws');
   if (s.phase === 'aq') {
     const solvent = { kelvin: st.kelvin, pressureMPa: Math.max(st.pressureMPa, st.saturationPressureMPa), density: st.density };
-    if (s.hkf) return done(hkfG(s.dfG, ent.S, s.hkf, s.f.charge, solvent), 'published');
+    const published = s.hkf;
+    if (published) return done(() => hkfG(s.dfG, ent.S, published, s.f.charge, solvent), 'published');
     estimatedWhat.push('HKF parameters');
-    return done(hkfG(s.dfG, ent.S, estimateHkf(s.f.charge, ent.S, s.Cp), s.f.charge, solvent), 'estimated');
+    return done(() => hkfG(s.dfG, ent.S, estimateHkf(s.f.charge, ent.S, s.Cp), s.f.charge, solvent), 'estimated');
   }
-  if (s.cpPolynomial) return done(polynomialG(s.dfG, ent.S, s.cpPolynomial, st.kelvin), 'cp-polynomial');
-  return done(apparentG(d, st.kelvin, 'cp'), s.Cp !== undefined ? 'constant-cp' : 'constant-h-s');
+  const poly = s.cpPolynomial;
+  if (poly) return done(() => polynomialG(s.dfG, ent.S, poly, st.kelvin), 'cp-polynomial');
+  return done(() => apparentG(d, st.kelvin, 'cp'), s.Cp !== undefined ? 'constant-cp' : 'constant-h-s');
 }
 
 /**
