@@ -94,3 +94,19 @@ describe('carryProperties (S, Cp, H from the model, for reaction properties)', (
     expect(H('H+(aq)') + H('OH-(aq)') - H('H2O(l)')).toBeCloseTo(-229.994 + 285.83, 1);
   });
 });
+
+describe('the HKF estimator against published parameters', () => {
+  it('for the library ions with published parameters (SH88) and Cp°, estimated G at 200 °C is within 4 kJ/mol of the published one', async () => {
+    const { hkfG } = await import('../../src/thermo/hkf.js');
+    const { estimateHkf } = await import('../../src/thermo/hkf-estimate.js');
+    const w = waterState(200);
+    const st = { kelvin: w.kelvin, pressureMPa: w.pressureMPa, density: w.density };
+    const ions = lib.filter((s) => s.hkf && s.charge !== 0 && s.S !== undefined);
+    expect(ions.length).toBeGreaterThanOrEqual(8);
+    for (const s of ions) {
+      const pub = hkfG(s.dfG, s.S!, s.hkf!, s.charge, st);
+      const est = hkfG(s.dfG, s.S!, estimateHkf(s.charge, s.S!, s.Cp), s.charge, st);
+      expect(Math.abs(est - pub), s.formula).toBeLessThan(4);
+    }
+  });
+});
