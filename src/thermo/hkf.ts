@@ -12,7 +12,7 @@
  * For a charged species ω changes with T and P through the g-function (g-function.ts):
  *   r_e,ref = z²/(ω_r/η + z/3.082),  r_e = r_e,ref + |z|·g,  ω = η(z²/r_e − z/(3.082 + g)),
  * η = 1.66027e5 Å·cal/mol; H+ has ω = 0 and all parameters zero by convention.
- * Units: parameters as tabulated in the compilations (SUPCRT-style scaling): a1·10 (cal/(mol·bar)),
+ * Units: parameters as tabulated in the compilations (their scaled form): a1·10 (cal/(mol·bar)),
  * a2·10⁻² (cal/mol), a3 (cal·K/(mol·bar)), a4·10⁻⁴ (cal·K/mol), c1 (cal/(mol·K)), c2·10⁻⁴ (cal·K/mol),
  * ω·10⁻⁵ (cal/mol) — i.e. the file holds a1 = 1.839 for a1 = 0.1839 cal/(mol·bar). ΔfG° in kJ/mol,
  * S° in J/(mol·K); the result in kJ/mol (4.184 J/cal).
