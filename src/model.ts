@@ -98,6 +98,10 @@ export interface SpeciesSummary {
   molality?: number;
   /** log10 γ applied. */
   logGamma?: number;
+  /** How G was carried from 25 °C to T ('iapws', 'published', 'estimated', 'cp-polynomial', 'constant-cp', 'constant-h-s', 'constant-g', 'undetermined'). */
+  temperatureModel?: string;
+  /** True where S° or equation-of-state parameters were estimated. */
+  estimated?: boolean;
   pressure?: number;
   G: number;       // apparent G at T, kJ/mol
   source?: string;

@@ -18,6 +18,8 @@ import { basename, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseFormula, splitPhase, sameFormula, FormulaError } from '../chem/formula.js';
 import type { Phase } from '../model.js';
+import { checkParameterBlock, type CpPolynomialRecord, HKF_FIELDS, type HkfRecord, POLY_FIELDS } from './parameter-blocks.js';
+export type { CpPolynomialRecord, HkfRecord } from './parameter-blocks.js';
 
 /** The thermodynamic values one compilation gives for a species. */
 export interface SpeciesValues {
@@ -64,6 +66,10 @@ export interface SpeciesRecord extends SpeciesValues {
   alternatives?: SpeciesAlternative[];
   note?: string;
   aliases?: string[];
+  /** Revised HKF parameters (aqueous species), tabulated units (see src/thermo/hkf.ts). */
+  hkf?: HkfRecord;
+  /** Maier–Kelley heat capacity a + bT + cT⁻², J/(mol·K) (solids, liquids, gases). */
+  cpPolynomial?: CpPolynomialRecord;
 }
 
 /** A whole species file. */
@@ -112,7 +118,7 @@ const PHASES: readonly Phase[] = ['s', 'l', 'g', 'aq'];
 const FILE_KEYS = new Set(['$schema', 'element', 'sources', 'species']);
 const SPECIES_KEYS = new Set([
   'formula', 'phase', 'name', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled',
-  'uncertainty', 'metastable', 'alternatives', 'note', 'aliases',
+  'uncertainty', 'metastable', 'alternatives', 'note', 'aliases', 'hkf', 'cpPolynomial',
 ]);
 const ALT_KEYS = new Set(['id', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled', 'uncertainty', 'note']);
 const ELEMENT_RE = /^[A-Z][a-z]?$/;
@@ -208,6 +214,14 @@ export function validateSpeciesFile(file: string, data: unknown): LibrarySpecies
     if (parsed.charge !== 0 && o.phase !== 'aq') fail(`${at}.phase`, 'a charged species must be "aq"');
     if (!isText(o.name)) fail(`${at}.name`, 'required, a non-empty string');
     checkValues(file, at, o, sourceMap);
+    if (o.hkf !== undefined) {
+      if (o.phase !== 'aq') fail(`${at}.hkf`, 'only aqueous species take HKF parameters');
+      checkParameterBlock(o.hkf, HKF_FIELDS, sourceMap, (f, m) => fail(f ? `${at}.hkf.${f}` : `${at}.hkf`, m));
+    }
+    if (o.cpPolynomial !== undefined) {
+      if (o.phase === 'aq') fail(`${at}.cpPolynomial`, 'aqueous species take "hkf" parameters, not a heat-capacity polynomial');
+      checkParameterBlock(o.cpPolynomial, POLY_FIELDS, sourceMap, (f, m) => fail(f ? `${at}.cpPolynomial.${f}` : `${at}.cpPolynomial`, m));
+    }
     if (o.metastable !== undefined && typeof o.metastable !== 'boolean') fail(`${at}.metastable`, 'must be true or false');
     if (o.aliases !== undefined) {
       if (!Array.isArray(o.aliases) || !o.aliases.every(isText)) fail(`${at}.aliases`, 'must be an array of non-empty strings');

@@ -24,6 +24,8 @@ function summary(element: string, sp: SolverSpecies, role: 'main' | 'ligand'): S
   if (sp.logGamma !== undefined) s.logGamma = sp.logGamma;
   if (sp.phase === 'g') s.pressure = sp.activity;
   if (sp.source) s.source = sp.source;
+  if (sp.temperatureModel) s.temperatureModel = sp.temperatureModel;
+  if (sp.estimated) s.estimated = true;
   return s;
 }
 

@@ -2,6 +2,7 @@
  * The `catalog` report: the built-in species with their data and sources.
  */
 import type { LibrarySpecies } from '../data/library.js';
+import { libraryTemperatureModel } from '../system/carry.js';
 import { table } from './table.js';
 
 export interface CatalogEntry {
@@ -21,6 +22,10 @@ export interface CatalogEntry {
   alternatives?: { id: string; dfG: number; dfH: number | null; S: number | null; Cp: number | null; source: string; sourceText: string; note?: string }[];
   note?: string;
   file: string;
+  /** How the default model carries it to temperature (src/system/carry.ts). */
+  temperatureModel: string;
+  /** What of its temperature data is estimated (S°, HKF parameters); absent when nothing is. */
+  estimated?: string[];
 }
 
 export function catalogEntries(lib: readonly LibrarySpecies[], element?: string): CatalogEntry[] {
@@ -39,7 +44,11 @@ export function catalogEntries(lib: readonly LibrarySpecies[], element?: string)
       recalled: s.recalled === true,
       metastable: s.metastable === true,
       file: s.file,
+      temperatureModel: '',
     };
+    const tm = libraryTemperatureModel(s, lib);
+    e.temperatureModel = tm.model;
+    if (tm.estimated) e.estimated = tm.estimatedWhat;
     if (s.valueSourceText) e.valueSources = { ...s.valueSourceText } as Record<string, string>;
     if (s.uncertainty) e.uncertainty = { ...s.uncertainty } as Record<string, number>;
     if (s.note) e.note = s.note;

@@ -95,7 +95,7 @@ function conditions(c: Computed): [string, string][] {
   out.push(['Gas pressures (water lines)', `p(H\u2082) = ${fmtNum(m.waterLines.pressures.H2)} bar, p(O\u2082) = ${fmtNum(m.waterLines.pressures.O2)} bar`]);
   out.push(['Reference electrode', referenceText(c)]);
   out.push(['Diagram range', `pH ${fmtNum(m.domain.pH[0])} to ${fmtNum(m.domain.pH[1])}; E ${fmtNum(m.domain.E[0])} to ${fmtNum(m.domain.E[1])} V vs SHE`]);
-  out.push(['Temperature extrapolation', spec.extrapolation === 'cp' ? 'constant heat capacity (Cp)' : 'constant \u0394H and \u0394S']);
+  out.push(['Temperature extrapolation', spec.extrapolation === 'best' ? 'best per species (HKF for aqueous species, IAPWS for water, Cp for solids and gases)' : spec.extrapolation === 'cp' ? 'constant heat capacity (Cp)' : 'constant \u0394H and \u0394S']);
   return out;
 }
 

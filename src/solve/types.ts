@@ -22,7 +22,17 @@ export interface SolverSpecies {
   /** Molality (mol/kg) where the amount was given as a concentration. */
   molality?: number;
   source?: string;
+  /** How G was carried from 25 °C to T (see src/system/carry.ts). */
+  temperatureModel?: TemperatureModel;
+  /** True where S° or the equation-of-state parameters were estimated rather than published. */
+  estimated?: boolean;
 }
+
+/**
+ * How a species' G was carried to T: 'iapws' (water), 'published' or 'estimated' (HKF parameters),
+ * 'cp-polynomial', 'constant-cp', 'constant-h-s', 'constant-g' (user override), 'undetermined'.
+ */
+export type TemperatureModel = 'iapws' | 'published' | 'estimated' | 'cp-polynomial' | 'constant-cp' | 'constant-h-s' | 'constant-g' | 'undetermined';
 
 export interface LigandInput {
   element: string;

@@ -65,7 +65,8 @@ function elementSpec(spec: AlloySpec, el: string): SystemSpec {
 }
 
 /** Step 2: mixed compounds at T. */
-function mixedSpecies(spec: AlloySpec, kelvin: number, warnings: string[]): SolverSpecies[] {
+function mixedSpecies(spec: AlloySpec, water: BuiltSystem['solution']['water'], warnings: string[]): SolverSpecies[] {
+  const ctx = { mode: spec.base.extrapolation, water, lib: loadLibrary() };
   const els = Object.keys(spec.composition);
   const ligandEls = Object.values(spec.base.ligandGroups).flatMap((g) => Object.keys(g));
   const meta = spec.base.metastable;
@@ -87,11 +88,7 @@ function mixedSpecies(spec: AlloySpec, kelvin: number, warnings: string[]): Solv
     const r = { ...fromLibrary(lib, `library ${lib.file}: ${lib.formula}`), implicit: true };
     const grouped = groupElements(r.f.elements, spec.base.ligandGroups);
     if (!grouped) continue;
-    if (Math.abs(spec.base.temperature - 25) > 1e-9 && r.S === undefined && r.dfH === undefined) {
-      warnings.push(`left out away from 25 °C (the library has no S° or ΔfH° for it): ${r.formula}`);
-      continue;
-    }
-    const G = gAt(r, spec.base, kelvin, warnings);
+    const G = gAt(r, spec.base, ctx, warnings).G;
     const act = r.phase === 'aq' ? Math.min(...els.filter((e) => grouped[e]).map((e) => spec.activities[e])) : r.phase === 'g' ? 1 : undefined;
     out.push({
       formula: r.formula,
@@ -122,7 +119,7 @@ export function buildAlloySystem(spec: AlloySpec): BuiltAlloy {
   const sources = new Set(builds.flatMap((b) => b.sources));
   for (const b of builds) warnings.push(...b.warnings);
   const rawWarnings: string[] = [];
-  const mixed = mixedSpecies(spec, kelvin, rawWarnings);
+  const mixed = mixedSpecies(spec, builds[0].solution.water, rawWarnings);
   warnings.push(...collapseCpWarnings(rawWarnings));
   for (const s of mixed) if (s.source) sources.add(s.source);
   let species = [...builds.flatMap((b) => b.input.species), ...mixed];

@@ -4,13 +4,15 @@
  * and attach the activities used.
  */
 import { type Formula, parseFormula, splitPhase } from '../chem/formula.js';
-import { elementEntropy } from '../data/element-entropies.js';
 import { LIGAND_DEFAULTS } from '../data/ligand-sets.js';
 import { type LibrarySpecies, findSpecies, loadLibrary, pickAlternative, speciesFor } from '../data/library.js';
 import type { Phase } from '../model.js';
 import type { LigandInput, SolverInput, SolverSpecies } from '../solve/types.js';
 import { KELVIN } from '../thermo/constants.js';
-import { apparentG, entropyFromFormation, type ThermoData } from '../thermo/gibbs.js';
+import type { CpPolynomial } from '../thermo/cp-poly.js';
+import type { ThermoData } from '../thermo/gibbs.js';
+import type { HkfParameters } from '../thermo/hkf.js';
+import { type Carried, type CarryContext, carrySpecies } from './carry.js';
 import { InputError } from './errors.js';
 import type { SystemSpec } from './spec.js';
 import { type Amount, molality, type SolutionAtT, solutionAt } from './solution.js';
@@ -29,6 +31,10 @@ export interface ResolvedSpecies extends ThermoData {
   field: string;
   /** Taken from the library's set without the user naming it. */
   implicit?: boolean;
+  /** Comes from the built-in library (its S° may then be estimated; see carry.ts). */
+  library?: boolean;
+  hkf?: HkfParameters;
+  cpPolynomial?: CpPolynomial;
 }
 
 export interface BuiltSystem {
@@ -63,6 +69,9 @@ export function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
     recalled: s.recalled,
     f: { text: s.formula, elements: s.elements, charge: s.charge },
     field,
+    library: true,
+    ...(s.hkf ? { hkf: s.hkf } : {}),
+    ...(s.cpPolynomial ? { cpPolynomial: s.cpPolynomial } : {}),
   };
 }
 
@@ -196,26 +205,21 @@ export function groupElements(elements: Record<string, number>, groups: Record<s
   return out;
 }
 
-/** Carry data to T; S° from ΔfH° where missing; error where neither is there. */
-export function gAt(s: ResolvedSpecies, spec: SystemSpec, kelvin: number, warnings: string[]): number {
-  if (Math.abs(spec.temperature - 25) > 1e-9) {
-    let S = s.S;
-    if (S === undefined) {
-      if (s.dfH === undefined) {
-        if (constantG(spec, s.formula)) {
-          warnings.push(`${CONST_G_WARN}${s.formula}`);
-          return s.dfG;
-        }
-        throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C (or list it under assumeConstantG)`);
-      }
-      S = entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy);
-    }
-    if (s.Cp === undefined && spec.extrapolation === 'cp' && Math.abs(spec.temperature - 25) > 50) {
-      warnings.push(`${CP_WARN}${s.formula}`);
-    }
-    return apparentG({ ...s, S }, kelvin, spec.extrapolation);
+/** Carry a species to T (carry.ts); an inline species that cannot be carried is refused. */
+export function gAt(s: ResolvedSpecies, spec: SystemSpec, ctx: Omit<CarryContext, 'constantG'>, warnings: string[]): Carried & { G: number } {
+  const c = carrySpecies(s, { ...ctx, constantG: constantG(spec, s.formula) });
+  if (c.G === undefined) {
+    throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C (or list it under assumeConstantG)`);
   }
-  return s.dfG;
+  if (!Number.isFinite(c.G)) {
+    throw new InputError(spec.file, `${s.field} (${s.formula})`, `temperature data that give a finite G at ${spec.temperature} °C (check its hkf or cpPolynomial values)`);
+  }
+  if (Math.abs(spec.temperature - 25) > 1e-9) {
+    if (c.model === 'constant-g') warnings.push(`${CONST_G_WARN}${s.formula}`);
+    if (c.model === 'constant-h-s' && Math.abs(spec.temperature - 25) > 50) warnings.push(`${CP_WARN}${s.formula}`);
+    if (c.estimated) warnings.push(`${EST_WARN}${s.formula}`);
+  }
+  return c as Carried & { G: number };
 }
 
 export function buildSystem(spec: SystemSpec): BuiltSystem {
@@ -224,6 +228,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
   const { main: resolved, water } = resolveSpecies(spec, warnings);
   const sol = solutionAt(spec.file, spec.temperature, spec.pressure, spec.solution);
   warnings.push(...sol.warnings);
+  const ctx = { mode: spec.extrapolation, water: sol.water, lib: loadLibrary() };
   const corrected = spec.solution.ionicStrength > 0 && spec.solution.model !== 'ideal';
   /** Activity (and molality, log γ) of a dissolved species from the amount given for it. */
   const dissolved = (a: Amount & { isDefault?: boolean }, z: number, asFormula: string) => {
@@ -246,10 +251,6 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
       throw new InputError(spec.file, `${s0.field} (${s0.formula})`, `whole units of the ligand group ${g}`);
     }
     const s: ResolvedSpecies = { ...s0, f: { ...s0.f, elements: grouped } };
-    if (s.implicit && Math.abs(spec.temperature - 25) > 1e-9 && s.S === undefined && s.dfH === undefined && !constantG(spec, s.formula)) {
-      warnings.push(`${LEFT_OUT_WARN}${s.formula}`);
-      continue;
-    }
     const els = Object.keys(s.f.elements);
     const bad = els.find((e) => !allowed.has(e));
     if (bad && groupEls.has(bad)) {
@@ -263,7 +264,8 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
     if (!hasMain && !lig) {
       throw new InputError(spec.file, `${s.field} (${s.formula})`, `a species containing ${spec.element}${ligandEls.length ? ` or a ligand (${ligandEls.join(', ')})` : ''}`);
     }
-    const G = gAt(s, spec, kelvin, warnings);
+    const carried = gAt(s, spec, ctx, warnings);
+    const G = carried.G;
     let act: number | undefined;
     let logA = 0;
     let lg: number | undefined;
@@ -292,7 +294,9 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
       logActivity: logA,
       activity: act,
       source: s.source,
+      temperatureModel: carried.model,
     };
+    if (carried.estimated) sv.estimated = true;
     if (lg !== undefined && (lg !== 0 || mol !== undefined)) sv.logGamma = lg;
     if (mol !== undefined) sv.molality = mol;
     if (s.source) sources.add(s.source);
@@ -308,9 +312,9 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
     return { element: L, activity: spec.ligands[L], species: sp };
   });
   const wG = {
-    H2O: gAt(water.H2O, spec, kelvin, warnings),
-    H2: gAt(water.H2, spec, kelvin, warnings),
-    O2: gAt(water.O2, spec, kelvin, warnings),
+    H2O: gAt(water.H2O, spec, ctx, warnings).G,
+    H2: gAt(water.H2, spec, ctx, warnings).G,
+    O2: gAt(water.O2, spec, ctx, warnings).G,
   };
   for (const w of Object.values(water)) if (w.source) sources.add(w.source);
   return {
@@ -334,7 +338,7 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
 
 const CP_WARN = 'no Cp: ';
 const CONST_G_WARN = 'constant G: ';
-const LEFT_OUT_WARN = 'left out: ';
+const EST_WARN = 'estimated: ';
 
 /** The user's explicit override: take ΔfG° as constant with T for this species (no S°, no ΔfH°). */
 function constantG(spec: SystemSpec, formula: string): boolean {
@@ -344,9 +348,9 @@ function constantG(spec: SystemSpec, formula: string): boolean {
 /** One warning for all species used without Cp far from 25 °C. */
 export function collapseCpWarnings(ws: string[]): string[] {
   const cp = ws.filter((w) => w.startsWith(CP_WARN)).map((w) => w.slice(CP_WARN.length));
-  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN) && !w.startsWith(LEFT_OUT_WARN));
-  const out = ws.filter((w) => w.startsWith(LEFT_OUT_WARN)).map((w) => w.slice(LEFT_OUT_WARN.length));
-  if (out.length) rest.push(`left out away from 25 °C (the library has no S° or ΔfH° for them; see assumeConstantG): ${[...new Set(out)].join(', ')}`);
+  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN) && !w.startsWith(EST_WARN));
+  const est = ws.filter((w) => w.startsWith(EST_WARN)).map((w) => w.slice(EST_WARN.length));
+  if (est.length) rest.push(`carried to temperature with estimated data (S° or equation-of-state parameters; see species/README.md): ${[...new Set(est)].join(', ')}`);
   const cg = ws.filter((w) => w.startsWith(CONST_G_WARN)).map((w) => w.slice(CONST_G_WARN.length));
   if (cg.length) rest.push(`ΔfG° taken as constant with temperature (assumeConstantG; no S° or ΔfH°, a rough assumption): ${[...new Set(cg)].join(', ')}`);
   if (cp.length) rest.push(`species without Cp° used more than 50 K from 25 °C (constant ΔH and ΔS for them): ${[...new Set(cp)].join(', ')}`);

@@ -12,6 +12,8 @@ import { InputError } from './errors.js';
 import { Fields } from './fields.js';
 import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
 import { type Operating, readOperating } from './operating.js';
+import type { CpPolynomial } from '../thermo/cp-poly.js';
+import { HKF_KEYS, type HkfParameters } from '../thermo/hkf.js';
 
 export interface InlineSpecies {
   formula: string;
@@ -20,6 +22,10 @@ export interface InlineSpecies {
   dfH?: number;
   S?: number;
   Cp?: number;
+  /** Revised HKF parameters (aqueous), tabulated units (src/thermo/hkf.ts). */
+  hkf?: HkfParameters;
+  /** Maier–Kelley Cp(T) = a + bT + cT⁻², J/(mol·K) (solids, liquids, gases). */
+  cpPolynomial?: CpPolynomial;
   activity?: number;
   /** A concentration given instead of an activity. */
   concentration?: Amount;
@@ -57,7 +63,7 @@ export interface SystemSpec {
   /** Species (or all, true) whose ΔfG° is taken as constant with T when S° and ΔfH° are missing. */
   assumeConstantG: boolean | string[];
   pick: Record<string, string>;
-  extrapolation: 'cp' | 'constant-h-s';
+  extrapolation: 'best' | 'cp' | 'constant-h-s';
   title?: string;
   grid: number;
   /** Reference electrode, verdict reclassifications, operating points, envelopes and paths. */
@@ -102,7 +108,7 @@ export const TOP_KEYS = [
   'elements',
 ] as const;
 
-const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
+const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'hkf', 'cpPolynomial', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
 
 /** The free-text `description` (any value), at most this many characters as JSON. */
 export const MAX_DESCRIPTION = 20_000;
@@ -211,7 +217,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   if (o.pick !== undefined) {
     for (const [k, v] of f.entries(o.pick, 'pick', 'a map of formula → alternative id')) pick[k] = f.string(v, `pick.${k}`, 'an alternative id');
   }
-  const extrapolation = o.extrapolation === undefined ? 'cp' : f.oneOf(o.extrapolation, 'extrapolation', ['cp', 'constant-h-s'] as const);
+  const extrapolation = o.extrapolation === undefined ? 'best' : f.oneOf(o.extrapolation, 'extrapolation', ['best', 'cp', 'constant-h-s'] as const);
   const title = o.title === undefined ? undefined : f.string(o.title, 'title', 'a title text', 200);
   const grid = f.optNumber(o.grid, 'grid', 200, { integer: true, min: 10, max: 4000 });
 
@@ -242,7 +248,7 @@ function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[])
   for (const w of formulaWarnings(formula)) warnings.push(`${f.file}: ${field}.formula: ${w}`);
   const label = `${field} (${formula})`;
   if (o.dfG === undefined) {
-    if (o.phase !== undefined || o.dfH !== undefined || o.S !== undefined || o.Cp !== undefined) {
+    if (o.phase !== undefined || o.dfH !== undefined || o.S !== undefined || o.Cp !== undefined || o.hkf !== undefined || o.cpPolynomial !== undefined) {
       f.fail(`${label}.dfG`, 'ΔfG° in kJ/mol (required for an inline species)');
     }
     // Only a formula (and activity/pressure): take the data from the library.
@@ -269,6 +275,21 @@ function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[])
     field,
   };
   if (sp.activity !== undefined && sp.concentration) f.fail(`${label}.concentration`, 'either activity or concentration, not both');
+  if (o.hkf !== undefined) {
+    if (phase !== 'aq') f.fail(`${label}.hkf`, 'HKF parameters only on dissolved (aq) species');
+    const h = f.object(o.hkf, `${label}.hkf`, HKF_KEYS);
+    const get = (k: string): number => f.number(h[k], `${label}.hkf.${k}`, { min: -1e6, max: 1e6 });
+    sp.hkf = { a1: get('a1'), a2: get('a2'), a3: get('a3'), a4: get('a4'), c1: get('c1'), c2: get('c2'), omega: get('omega') };
+  }
+  if (o.cpPolynomial !== undefined) {
+    if (phase === 'aq') f.fail(`${label}.cpPolynomial`, 'a heat-capacity polynomial only on solids, liquids and gases (use hkf for aq)');
+    const c = f.object(o.cpPolynomial, `${label}.cpPolynomial`, ['a', 'b', 'c']);
+    const get = (k: string): number => f.number(c[k], `${label}.cpPolynomial.${k}`, { min: -1e9, max: 1e9 });
+    sp.cpPolynomial = { a: get('a'), b: get('b'), c: get('c') };
+  }
+  if ((sp.hkf || sp.cpPolynomial) && sp.S === undefined && sp.dfH === undefined) {
+    f.fail(`${label}.S`, 'S° in J/(mol·K) (or dfH) with hkf or cpPolynomial');
+  }
   if (sp.concentration && phase !== 'aq') f.fail(`${label}.concentration`, 'a concentration only on dissolved (aq) species');
   if (sp.activity !== undefined && phase !== 'aq') f.fail(`${label}.activity`, 'activity only on dissolved (aq) species; use pressure for gases');
   if (sp.pressure !== undefined && phase !== 'g') f.fail(`${label}.pressure`, 'pressure only on gases (phase "g")');

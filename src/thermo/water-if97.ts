@@ -83,3 +83,33 @@ export function if97Region1SpecificVolume(kelvin: number, pressureMPa: number): 
   // R in kJ/(kg K) → ×1e3 J/(kg K); p* in MPa → ×1e6 Pa.
   return (IF97_R * 1e3 * kelvin * if97Region1GammaPi(kelvin, pressureMPa)) / (IF97_R1_PSTAR * 1e6);
 }
+
+/**
+ * Dimensionless Gibbs free energy of IF97 region 1 and its τ derivative (IF97 eq. 7, Table 4):
+ *   γ = Σ n_i (7.1 − π)^I_i (τ − 1.222)^J_i,   γ_τ = Σ n_i (7.1 − π)^I_i J_i (τ − 1.222)^(J_i−1).
+ * Specific Gibbs energy g = R·T·γ, specific entropy s = R(τγ_τ − γ) (IF97 Table 3), on IF97's
+ * own zero (liquid at the triple point: u = s = 0).
+ * Worked example (IF97 Table 5, recalled from memory): T = 300 K, p = 3 MPa → s = 0.392294792 kJ/(kg K).
+ */
+export function if97Region1Gamma(kelvin: number, pressureMPa: number): { gamma: number; gammaTau: number } {
+  const a = 7.1 - pressureMPa / IF97_R1_PSTAR;
+  const b = IF97_R1_TSTAR / kelvin - 1.222;
+  let gamma = 0;
+  let gammaTau = 0;
+  for (const [I, J, n] of R1) {
+    gamma += n * a ** I * b ** J;
+    gammaTau += n * a ** I * J * b ** (J - 1);
+  }
+  return { gamma, gammaTau };
+}
+
+/** Specific Gibbs energy g = R T γ of IF97 region 1, kJ/kg (IF97's zero; see if97Region1Gamma). */
+export function if97Region1SpecificGibbs(kelvin: number, pressureMPa: number): number {
+  return IF97_R * kelvin * if97Region1Gamma(kelvin, pressureMPa).gamma;
+}
+
+/** Specific entropy s = R(τγ_τ − γ) of IF97 region 1, kJ/(kg K) (IF97's zero). */
+export function if97Region1SpecificEntropy(kelvin: number, pressureMPa: number): number {
+  const { gamma, gammaTau } = if97Region1Gamma(kelvin, pressureMPa);
+  return IF97_R * ((IF97_R1_TSTAR / kelvin) * gammaTau - gamma);
+}

@@ -3,6 +3,8 @@
  * independent hand calculation by the Nernst route (each species reduced to Fe(s), E° from ΔrG° at
  * T with the SHE at T), except within 0.5 mV of a boundary; and every JSON polygon vertex must lie on
  * an exact boundary (two species tied within 0.1 mV) or on the domain edge.
+ * The hand formula is the constant-Cp one, so the system file asks for `extrapolation: cp` (the
+ * default 'best' carries ions by the HKF equation of state; see tests/thermo/species-model.test.ts).
  * Data: Wagman et al. (1982) NBS tables, J. Phys. Chem. Ref. Data 11 Suppl. 2 — recalled from memory.
  */
 import { describe, expect, it } from 'vitest';
@@ -54,7 +56,7 @@ function handAnswer(T: number, a: number, pH: number, E: number): { best: string
 function systemFile(t: number): string {
   const dir = tmpDir();
   const sp = SPECIES.map(({ formula, phase, dfG, dfH, S, Cp }) => ({ formula, phase, dfG, dfH, S, ...(Cp ? { Cp } : {}), source: 'NBS 1982 (recalled from memory)' }));
-  return writeTmp(dir, `fe-${t}.json`, JSON.stringify({ element: 'Fe', temperature: t, activity: 1e-6, pH: [0, 14], E: [-1.4, 1.6], species: sp }));
+  return writeTmp(dir, `fe-${t}.json`, JSON.stringify({ element: 'Fe', temperature: t, extrapolation: 'cp', activity: 1e-6, pH: [0, 14], E: [-1.4, 1.6], species: sp }));
 }
 
 describe.each([25, 150, 250])('iron, seven inline species at %i °C', (t) => {
