@@ -11,6 +11,7 @@ import type { Phase } from '../model.js';
 import { Fields } from './fields.js';
 import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
 import { type Operating, readOperating } from './operating.js';
+import { type CompositionSpec, readComposition } from './composition.js';
 
 export interface InlineSpecies {
   formula: string;
@@ -64,6 +65,8 @@ export interface SystemSpec {
   /** Everything else the later stages read (figure, points, ...), validated where used. */
   extra: Record<string, unknown>;
   warnings: string[];
+  /** Composition mode (src/system/composition.ts): totals of the bath as made up. */
+  composition?: CompositionSpec;
 }
 
 export const TOP_KEYS = [
@@ -98,6 +101,7 @@ export const TOP_KEYS = [
   'classes',
   'families',
   'description',
+  'composition',
 ] as const;
 
 const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
@@ -115,6 +119,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   if (!isElement(element)) f.fail('element', 'an element symbol such as "Fe" (case matters)', element);
   if (element === 'H' || element === 'O') f.fail('element', 'an element other than H or O (water is always present)', element);
 
+  const comp = o.composition === undefined ? undefined : readComposition(f, o, element);
   const temperature = f.optNumber(o.temperature, 'temperature', 25, { min: T_RANGE.min, max: T_RANGE.max });
   if (temperature > 300) warnings.push(`temperature ${temperature} °C is above 300 °C: data extrapolated beyond their usual range`);
   const pressure = o.pressure === undefined ? undefined : f.number(o.pressure, 'pressure', { positive: true, max: 100 });
@@ -125,7 +130,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     const a = typeof o.concentration === 'number' ? { kind: 'molality' as const, value: f.number(o.concentration, 'concentration', { positive: true, max: 100 }) } : readAmount(f, o.concentration, 'concentration');
     amount = { ...a, isDefault: false };
   }
-  const solution = readSolutionSettings(f, o);
+  const solution = readSolutionSettings(f, comp ? comp.rest : o);
 
   const ligands: Record<string, number> = {};
   const ligandAmounts: Record<string, Amount> = {};
@@ -161,6 +166,14 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     }
   }
 
+  if (comp) {
+    // Composition mode: the ligands are the composition's; their totals stand in as amounts.
+    Object.assign(ligandGroups, comp.ligandGroups);
+    for (const [k, a] of Object.entries(comp.composition.ligands)) {
+      ligandAmounts[k] = a;
+      ligands[k] = a.value;
+    }
+  }
   const ligandSpecies: Record<string, 'all' | string[]> = {};
   if (o.ligandSpecies !== undefined) {
     if (!o.ligandSpecies || typeof o.ligandSpecies !== 'object' || Array.isArray(o.ligandSpecies)) f.fail('ligandSpecies', 'a map of ligand → "all" or a list of formulas', o.ligandSpecies);
@@ -216,7 +229,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];
   }
-  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, assumeConstantG, pick, extrapolation, title, grid, extra, warnings };
+  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, assumeConstantG, pick, extrapolation, title, grid, extra, warnings, ...(comp ? { composition: comp.composition } : {}) };
 }
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {
