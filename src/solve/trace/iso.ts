@@ -9,7 +9,7 @@ import type { TraceField } from './field.js';
 import type { GridSample } from './grid.js';
 import { refineCrossing } from './refine.js';
 
-export function traceIsoLines<S>(field: TraceField<S>, g: GridSample<S>, level: number, tolT = 1e-6): [number, number][][] {
+export function traceIsoLines<S>(field: TraceField<S>, g: GridSample<S>, level: number, tolT = 1e-8): [number, number][][] {
   if (!field.value) return [];
   const floor = -1e3;
   const vals = Float64Array.from(g.value, (v) => (Number.isFinite(v) ? v : floor));

@@ -28,7 +28,7 @@ export interface TraceOptions {
   tolT: number;
 }
 
-export const TRACE_DEFAULTS: TraceOptions = { tolT: 1e-6 };
+export const TRACE_DEFAULTS: TraceOptions = { tolT: 1e-8 };
 
 export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: TraceOptions = TRACE_DEFAULTS): { regions: TracedRegion[]; boundaries: TracedBoundary[] } {
   const L = field.labels;
