@@ -8,6 +8,8 @@
  *   solver/bare-loop ratio: R           — grid solver throughput over a bare typed-array min-of-planes loop; target ≥ 0.5
  *   Cu-S 500x500 ms: T                  — copper–sulfur map with ligand recursion on a 500×500 grid; target ≤ 200
  *   peak RSS MB: M                      — a 1000×1000 grid map in a fresh process; target ≤ 150
+ *   composition 300x300 ms: T           — silver cyanide bath, composition mode, refined; target ≤ 1500
+ *   composition points solved per second — point solutions (grid, refinement, iso-lines) per second
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -17,6 +19,7 @@ import { fileURLToPath } from 'node:url';
 import { computeFile, compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { gridMap } from '../solve/grid.js';
+import { benchComposition } from './composition.js';
 import { readSpec } from '../system/spec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -116,6 +119,11 @@ async function main(): Promise<void> {
     // 5. Peak RSS of a 1000×1000 map in a fresh process.
     const r = spawnSync(process.execPath, [fileURLToPath(import.meta.url), '--rss-child'], { encoding: 'utf8' });
     console.log(`peak RSS MB: ${Number(r.stdout).toFixed(1)}`);
+
+    // 6. Composition mode: Ag–CN bath, 300×300, refined boundaries and iso-solubility lines.
+    const cb = benchComposition(300, 3);
+    console.log(`composition 300x300 ms: ${cb.ms.toFixed(0)}`);
+    console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

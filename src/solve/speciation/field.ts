@@ -4,7 +4,6 @@
  * log10 of the total dissolved element. States are compact (potentials, solids, I) for warm starts.
  */
 import type { TraceField } from '../trace/field.js';
-import { dissolvedElement, elementShares } from './describe.js';
 import type { PointSolver, PointState } from './point.js';
 
 export interface SpeciationNode {
@@ -16,13 +15,13 @@ export interface SpeciationNode {
 
 export function speciationField(solver: PointSolver): TraceField<SpeciationNode> {
   const P = solver.problem;
-  const work = new Float64Array(P.species.length);
   return {
     labels: P.species.length,
     solve(x, y, warm) {
-      const s = solver.solve(x, y, warm?.ok ? warm.warm : undefined);
-      if (s.status !== 'ok') return { ok: false, dissolved: NaN };
-      return { ok: true, warm: { u: s.u, active: s.active, I: s.ionicStrength }, shares: Float64Array.from(elementShares(P, s, work)), dissolved: dissolvedElement(P, s) };
+      const shares = new Float64Array(P.species.length);
+      const s = solver.solveShares(x, y, warm?.ok ? warm.warm : undefined, shares);
+      if (!s) return { ok: false, dissolved: NaN };
+      return { ok: true, warm: s.state, shares, dissolved: s.dissolved };
     },
     scores(s, out) {
       if (!s.ok) return false;

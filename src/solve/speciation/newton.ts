@@ -44,7 +44,7 @@ export function molalities(P: SpeciationProblem, lk: Float64Array, u: Float64Arr
     let x = lk[i];
     for (let c = 0; c < nc; c++) x += P.A[i * nc + c] * u[c];
     if (x > 300) return false;
-    m[i] = 10 ** x;
+    m[i] = Math.exp(x * Math.LN10);
   }
   return true;
 }

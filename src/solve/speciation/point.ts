@@ -44,12 +44,27 @@ export interface PointSolver {
   problem: SpeciationProblem;
   gamma: GammaSettings;
   solve(pH: number, E: number, warm?: PointState): PointSolution;
+  /**
+   * The grid's fast path: solve and write the shares of the main element (dissolved by molality,
+   * solids by amount) into `shares`; returns the state for warm starts and the dissolved total,
+   * or null where the point could not be solved.
+   */
+  solveShares(pH: number, E: number, warm: PointState | undefined, shares: Float64Array): { state: PointState; dissolved: number } | null;
+  /** Number of points solved so far (for the bench). */
+  readonly solves: number;
 }
 
 export interface PointSolverOptions {
   newton?: NewtonOptions;
   /** Skip the fallback (tests of the failure report). */
   noFallback?: boolean;
+}
+
+interface Core {
+  u: Float64Array;
+  active: number[];
+  lambda: Float64Array;
+  I: number;
 }
 
 /** A point solver over a problem; owns its work arrays (not re-entrant). */
@@ -61,33 +76,64 @@ export function pointSolver(P: SpeciationProblem, gamma: GammaSettings, opts: Po
   const logK = new Float64Array(ns);
   const lg = new Float64Array(P.nAq);
   const newton = opts.newton ?? NEWTON_DEFAULTS;
+  const fallback: NewtonOptions = { maxIterations: 400, tol: newton.tol, maxStep: 0.5 };
   const fixedI = gamma.ionicStrength === 'auto' ? undefined : gamma.ionicStrength;
+  if (fixedI !== undefined) fillLogGamma(P, gamma, fixedI, lg);
+  let solves = 0;
+  let reason = '';
+
+  /** Steps 3–4 from a start; results in w.m, lg; null with `reason` set on failure. */
+  const attempt = (pH: number, u: Float64Array, active: number[], I0: number, opt: NewtonOptions): Core | null => {
+    let I = fixedI ?? I0;
+    for (let round = 0; round < 60; round++) {
+      if (fixedI === undefined) fillLogGamma(P, gamma, I, lg);
+      for (let i = 0; i < ns; i++) lk[i] = i < P.nAq ? logK[i] - lg[i] : logK[i];
+      const r = assemblage(P, lk, u, active, w, opt);
+      if (typeof r === 'string') {
+        reason = r;
+        return null;
+      }
+      if (fixedI !== undefined) return { u, active: r.active, lambda: r.lambda, I };
+      const In = Math.min(20, speciationIonicStrength(P, w.m, pH, logGammaAt(gamma, 1, I)));
+      if (Math.abs(In - I) <= 1e-11 * (1 + I)) return { u, active: r.active, lambda: r.lambda, I };
+      I = round < 10 ? In : 0.5 * (I + In);
+      active = r.active;
+    }
+    reason = 'the ionic strength did not settle';
+    return null;
+  };
+  /** Steps 1, 2 and 5. */
+  const run = (pH: number, E: number, warm?: PointState): Core | null => {
+    solves++;
+    for (let i = 0; i < ns; i++) logK[i] = P.kg[i] + P.kp[i] * pH + P.ke[i] * E;
+    const first = warm ? attempt(pH, Float64Array.from(warm.u), warm.active, warm.I, newton) : attempt(pH, coldStart(P, logK), [], 0, newton);
+    if (first || opts.noFallback) return first;
+    return attempt(pH, coldStart(P, logK), [], 0, fallback);
+  };
   return {
     problem: P,
     gamma,
+    get solves() {
+      return solves;
+    },
     solve(pH, E, warm) {
-      for (let i = 0; i < ns; i++) logK[i] = P.kg[i] + P.kp[i] * pH + P.ke[i] * E;
-      const attempt = (u: Float64Array, active: number[], I0: number, opt: NewtonOptions): PointSolution | string => {
-        let I = fixedI ?? I0;
-        for (let round = 0; round < 60; round++) {
-          fillLogGamma(P, gamma, I, lg);
-          for (let i = 0; i < ns; i++) lk[i] = i < P.nAq ? logK[i] - lg[i] : logK[i];
-          const r = assemblage(P, lk, u, active, w, opt);
-          if (typeof r === 'string') return r;
-          const m = Float64Array.from(w.m.subarray(0, P.nAq));
-          if (fixedI !== undefined) return { status: 'ok', pH, E, u, active: r.active, lambda: r.lambda, m, logGamma: Float64Array.from(lg), logK: Float64Array.from(logK), ionicStrength: I };
-          const In = Math.min(20, speciationIonicStrength(P, m, pH, logGammaAt(gamma, 1, I)));
-          if (Math.abs(In - I) <= 1e-11 * (1 + I)) return { status: 'ok', pH, E, u, active: r.active, lambda: r.lambda, m, logGamma: Float64Array.from(lg), logK: Float64Array.from(logK), ionicStrength: I };
-          I = round < 10 ? In : 0.5 * (I + In);
-          active = r.active;
-        }
-        return 'the ionic strength did not settle';
-      };
-      const first = warm ? attempt(Float64Array.from(warm.u), warm.active.slice(), warm.I, newton) : attempt(coldStart(P, logK), [], 0, newton);
-      if (typeof first !== 'string') return first;
-      const second = opts.noFallback ? first : attempt(coldStart(P, logK), [], 0, { maxIterations: 400, tol: newton.tol, maxStep: 0.5 });
-      if (typeof second !== 'string') return second;
-      return { status: 'failed', reason: second, pH, E, u: new Float64Array(nc).fill(NaN), active: [], lambda: new Float64Array(0), m: new Float64Array(P.nAq).fill(NaN), logGamma: Float64Array.from(lg), logK: Float64Array.from(logK), ionicStrength: NaN };
+      const c = run(pH, E, warm);
+      if (!c) return { status: 'failed', reason, pH, E, u: new Float64Array(nc).fill(NaN), active: [], lambda: new Float64Array(0), m: new Float64Array(P.nAq).fill(NaN), logGamma: Float64Array.from(lg), logK: Float64Array.from(logK), ionicStrength: NaN };
+      return { status: 'ok', pH, E, u: c.u, active: c.active, lambda: c.lambda, m: Float64Array.from(w.m.subarray(0, P.nAq)), logGamma: Float64Array.from(lg), logK: Float64Array.from(logK), ionicStrength: c.I };
+    },
+    solveShares(pH, E, warm, shares) {
+      const c = run(pH, E, warm);
+      if (!c) return null;
+      const T = P.totals[0];
+      let dissolved = 0;
+      for (let i = 0; i < P.nAq; i++) {
+        const x = P.A[i * nc] * w.m[i];
+        shares[i] = x / T;
+        dissolved += x;
+      }
+      for (let i = P.nAq; i < ns; i++) shares[i] = 0;
+      for (let k = 0; k < c.active.length; k++) shares[c.active[k]] = (P.A[c.active[k] * nc] * c.lambda[k]) / T;
+      return { state: { u: c.u, active: c.active, I: c.I }, dissolved };
     },
   };
 }
@@ -120,18 +166,22 @@ export function coldStart(P: SpeciationProblem, logK: Float64Array): Float64Arra
 function assemblage(P: SpeciationProblem, lk: Float64Array, u: Float64Array, active0: number[], w: NewtonWork, opt: NewtonOptions): { active: number[]; lambda: Float64Array } | string {
   const nc = P.components.length;
   const ns = P.species.length;
-  let active = active0.slice();
+  let active = active0;
   let lam = new Float64Array(nc);
-  const seen = new Set<string>();
+  let seen: Set<string> | undefined;
   for (let round = 0; round < 40; round++) {
-    const key = active.slice().sort((a, b) => a - b).join(',');
-    if (seen.has(key) && round > 0) return 'the phase assemblage cycles';
-    seen.add(key);
+    if (round > 0) {
+      // Only a changed assemblage can cycle; keys are built then, not on the common first pass.
+      seen ??= new Set([active0.slice().sort((a, b) => a - b).join(',')]);
+      const key = active.slice().sort((a, b) => a - b).join(',');
+      if (seen.has(key)) return 'the phase assemblage cycles';
+      seen.add(key);
+    }
     const r = newtonSolve(P, lk, active, u, lam, w, opt);
     if (!r.ok) return r.reason!;
     // Drop the solid with the most negative amount.
     let worst = -1;
-    let wv = -1e-14 * Math.max(...P.totals);
+    let wv = -1e-14 * P.totals[0];
     for (let k = 0; k < active.length; k++) if (lam[k] < wv) {
       wv = lam[k];
       worst = k;
