@@ -123,7 +123,7 @@ async function main(): Promise<void> {
     // 6. Composition mode: Ag–CN bath, 300×300, refined boundaries and iso-solubility lines.
     const cb = benchComposition(300, 3);
     console.log(`composition 300x300 ms: ${cb.ms.toFixed(0)}`);
-    console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves)`);
+    console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves; CPU ${cb.cpuMs.toFixed(0)} ms)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

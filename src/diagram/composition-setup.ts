@@ -4,7 +4,7 @@
  * (src/system/build.ts), so that the two kinds agree where they should.
  */
 import { InputError } from '../errors.js';
-import { solveFor } from '../solve/speciation/index.js';
+import { describePoint, solveFor, type SpeciationResult } from '../solve/speciation/index.js';
 import { type PointSolver, type PointSolverOptions } from '../solve/speciation/point.js';
 import { speciationProblem } from '../solve/speciation/problem.js';
 import { waterContext } from '../solve/solve.js';
@@ -34,4 +34,9 @@ export function compositionSetup(spec: SystemSpec, opts: PointSolverOptions = {}
   const warnings = [...built.warnings];
   if (problem.leftOut.length) warnings.push(`composition mode: gases are not part of the bath and are left out: ${problem.leftOut.join(', ')}`);
   return { built, solver, totals: Object.fromEntries(components.map((c, k) => [c, totals[k]])), warnings };
+}
+
+/** The answer at one point (probe in composition mode): full speciation, solids, shares, status. */
+export function speciationAt(setup: CompositionSetup, pH: number, E: number): SpeciationResult {
+  return describePoint(setup.solver.problem, setup.solver.solve(pH, E));
 }

@@ -49,3 +49,16 @@ describe('composition key', () => {
     refuse({ element: 'Ag', ionicStrength: 'auto' }, 'ionicStrength');
   });
 });
+
+describe('composition files and the fixed-activity pipeline', () => {
+  test('compute() refuses a composition file instead of taking totals as activities', async () => {
+    const { compute } = await import('../../src/pipeline.js');
+    const spec = readSpec({ element: 'Ag', composition: { Ag: 0.2, CN: 0.6 } }, 'bath.yaml');
+    expect(() => compute(spec)).toThrow(InputError);
+    try {
+      compute(spec);
+    } catch (e) {
+      expect((e as InputError).field).toBe('composition');
+    }
+  });
+});

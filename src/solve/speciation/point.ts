@@ -67,6 +67,9 @@ interface Core {
   I: number;
 }
 
+/** Largest ionic strength considered, mol/kg (far beyond any activity model's range; warned elsewhere). */
+const I_MAX = 20;
+
 /** A point solver over a problem; owns its work arrays (not re-entrant). */
 export function pointSolver(P: SpeciationProblem, gamma: GammaSettings, opts: PointSolverOptions = {}): PointSolver {
   const ns = P.species.length;
@@ -84,20 +87,44 @@ export function pointSolver(P: SpeciationProblem, gamma: GammaSettings, opts: Po
 
   /** Steps 3–4 from a start; results in w.m, lg; null with `reason` set on failure. */
   const attempt = (pH: number, u: Float64Array, active: number[], I0: number, opt: NewtonOptions): Core | null => {
-    let I = fixedI ?? I0;
-    for (let round = 0; round < 60; round++) {
-      if (fixedI === undefined) fillLogGamma(P, gamma, I, lg);
+    if (fixedI !== undefined) {
       for (let i = 0; i < ns; i++) lk[i] = i < P.nAq ? logK[i] - lg[i] : logK[i];
       const r = assemblage(P, lk, u, active, w, opt);
       if (typeof r === 'string') {
         reason = r;
         return null;
       }
-      if (fixedI !== undefined) return { u, active: r.active, lambda: r.lambda, I };
-      const In = Math.min(20, speciationIonicStrength(P, w.m, pH, logGammaAt(gamma, 1, I)));
-      if (Math.abs(In - I) <= 1e-11 * (1 + I)) return { u, active: r.active, lambda: r.lambda, I };
-      I = round < 10 ? In : 0.5 * (I + In);
+      return { u, active: r.active, lambda: r.lambda, I: fixedI };
+    }
+    // Step 4: I(speciation(I)) = I. Plain iteration first; if it does not settle (the Davies term
+    // makes γ rise again at high I), bisection on g(I) = I_new − I over [0, 20], g(0) ≥ 0 ≥ g(20).
+    const at = (I: number): { I: number; r: { active: number[]; lambda: Float64Array } } | null => {
+      fillLogGamma(P, gamma, I, lg);
+      for (let i = 0; i < ns; i++) lk[i] = i < P.nAq ? logK[i] - lg[i] : logK[i];
+      const r = assemblage(P, lk, u, active, w, opt);
+      if (typeof r === 'string') {
+        reason = r;
+        return null;
+      }
       active = r.active;
+      return { I: Math.min(I_MAX, speciationIonicStrength(P, w.m, pH, logGammaAt(gamma, 1, I))), r };
+    };
+    let I = I0;
+    for (let round = 0; round < 12; round++) {
+      const q = at(I);
+      if (!q) return null;
+      if (Math.abs(q.I - I) <= 1e-11 * (1 + I)) return { u, active: q.r.active, lambda: q.r.lambda, I };
+      I = q.I;
+    }
+    let lo = 0;
+    let hi = I_MAX;
+    for (let k = 0; k < 200; k++) {
+      I = 0.5 * (lo + hi);
+      const q = at(I);
+      if (!q) return null;
+      if (Math.abs(q.I - I) <= 1e-11 * (1 + I) || hi - lo <= 1e-13 * (1 + I)) return { u, active: q.r.active, lambda: q.r.lambda, I };
+      if (q.I > I) lo = I;
+      else hi = I;
     }
     reason = 'the ionic strength did not settle';
     return null;
