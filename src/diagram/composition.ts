@@ -14,6 +14,7 @@ import type { PointSolution } from '../solve/speciation/point.js';
 import type { SpeciationProblem } from '../solve/speciation/problem.js';
 import { type GridSample, sampleGrid } from '../solve/trace/grid.js';
 import { traceIsoLines } from '../solve/trace/iso.js';
+import { joinTriplePoints } from '../solve/trace/junctions.js';
 import { traceRegions, type TracedBoundary } from '../solve/trace/regions.js';
 import type { SolverSpecies } from '../solve/types.js';
 import type { SystemSpec } from '../system/spec.js';
@@ -56,6 +57,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     if (sp.name) m.name = sp.name;
     return m;
   });
+  const triples = joinTriplePoints(field, g, traced.boundaries);
   const boundaries = traced.boundaries.map((b) => boundaryModel(setup, b));
   // Step 3: iso-solubility lines.
   const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? [])])].sort((a, b) => a - b);
@@ -75,7 +77,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     species: P.species.map((s) => summary(input.element, s, (s.elements[input.element] ?? 0) > 0 ? 'main' : 'ligand')),
     regions,
     boundaries,
-    triplePoints: [],
+    triplePoints: triples.map((t) => ({ species: t.labels.map((k) => P.species[k].formula), pH: t.x, E: t.y })),
     waterLines: { ...waterLines(input), pressures: input.pressures },
     warnings,
     sources: setup.built.sources,

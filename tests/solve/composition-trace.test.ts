@@ -41,11 +41,12 @@ describe('refined boundaries (silver cyanide bath)', () => {
     for (const b of bath.model.boundaries) {
       const [i, j] = b.between.map(idx);
       const pts = b.points;
-      sample(pts.map((p, k) => k), 40).forEach((k) => {
+      // Interior vertices (the ends are on the frame or at a triple point, checked below).
+      sample(pts.map((p, k) => k).slice(1, -1), 40).forEach((k) => {
         const [pH, E] = pts[k];
         // Bisect across the boundary: along E where it runs flatter than the frame's diagonal, else along pH.
-        const [x0, y0] = pts[Math.max(0, k - 1)];
-        const [x1, y1] = pts[Math.min(pts.length - 1, k + 1)];
+        const [x0, y0] = pts[Math.max(1, k - 1)];
+        const [x1, y1] = pts[Math.min(pts.length - 2, k + 1)];
         const alongE = Math.abs(y1 - y0) / 4 < Math.abs(x1 - x0) / 14;
         const at = (d: number) => (alongE ? shareDiff(pH, E + d, i, j) : shareDiff(pH + d, E, i, j));
         const w = alongE ? 0.005 : 0.05;
@@ -149,4 +150,41 @@ describe('limits: the fixed-activity diagram recovered', () => {
     const b = comp.boundaries.find((x) => [...x.between].sort().join('/') === 'Ag/Ag(CN)2-')!;
     expect(onFixedLine(b, fixed, (p) => p[0] > 12.5)).toBeGreaterThan(5);
   });
+});
+
+describe('triple points', () => {
+  const fe = computeComposition(readSpec({ element: 'Fe', composition: { Fe: 1e-6 } }, 'fe.yaml'), { grid: 100 });
+  for (const [name, c] of [['silver cyanide bath', bath], ['iron, 1e-6 mol/kg', fe]] as const) {
+    test(`${name}: the three forms of each triple point surround it, and every boundary end is on the frame or at a triple point`, () => {
+      const Q = c.setup.solver.problem;
+      const sh = new Float64Array(Q.species.length);
+      expect(c.model.triplePoints.length).toBeGreaterThan(1);
+      for (const t of c.model.triplePoints) {
+        // Either the three hold equal shares there, or (where shares jump, two solids of one
+        // component swapping) the three forms are what the solver finds round it.
+        elementShares(Q, c.setup.solver.solve(t.pH, t.E), sh);
+        const three = t.species.map((f) => sh[Q.species.findIndex((s) => s.formula === f)]);
+        if (Math.max(...three) - Math.min(...three) < 1e-6) continue;
+        const seen = new Set<string>();
+        for (let k = 0; k < 16; k++) {
+          const a = (2 * Math.PI * k) / 16;
+          const s = c.setup.solver.solve(t.pH + 0.01 * Math.cos(a), t.E + 0.003 * Math.sin(a));
+          elementShares(Q, s, sh);
+          let best = 0;
+          for (let q = 1; q < sh.length; q++) if (sh[q] > sh[best]) best = q;
+          seen.add(Q.species[best].formula);
+        }
+        expect([...seen].sort()).toEqual([...t.species].sort());
+      }
+      const [p0, p1] = c.model.domain.pH;
+      const [e0, e1] = c.model.domain.E;
+      for (const b of c.model.boundaries) {
+        for (const [x, y] of [b.points[0], b.points[b.points.length - 1]]) {
+          const onFrame = Math.abs(x - p0) < 1e-9 || Math.abs(x - p1) < 1e-9 || Math.abs(y - e0) < 1e-9 || Math.abs(y - e1) < 1e-9;
+          const atTriple = c.model.triplePoints.some((t) => t.pH === x && t.E === y);
+          expect(onFrame || atTriple, `${b.between} end ${x}, ${y}`).toBe(true);
+        }
+      }
+    });
+  }
 });
