@@ -1,13 +1,14 @@
 /**
- * Triple points of a TraceField and the boundary ends that meet there. Boundary runs stop one grid
- * cell short of a triple point (the ring's vertices there border a third label). Steps: 1. pair the
- * ends of boundaries whose label pairs share one label and whose ends lie within two cells;
- * 2. solve s_f = s_g = s_h for the three labels by Newton's method in (x, y) with a finite-difference
- * Jacobian, from the ends' midpoint; where the scores jump (two solids of one component swap at a
- * line, their shares are discontinuous there) Newton cannot converge, and the junction is the
- * intersection of the two boundaries' end segments (refined vertices; error of order curvature ×
- * cell²); 3. accept a point within three cells of both ends around which the point solver finds
- * exactly the three labels, and extend the two ends to it. Otherwise the ends stay as they are (a gap under one cell), never a wrong
+ * Triple points of a TraceField and the boundary ends that meet there. Boundary runs stop short of a
+ * triple point (the ring's vertices there border a third label). Steps: 1. pair the ends of
+ * boundaries whose label pairs share one label and whose ends lie within three cells; 2. solve
+ * s_f = s_g = s_h for the three labels by damped Newton in (x, y) with a finite-difference Jacobian,
+ * from the ends' midpoint or either end, accepted when converged with no fourth label above; where
+ * the scores jump (two solids of one component swap at a line, their shares are discontinuous)
+ * Newton cannot converge, and the junction is the intersection of the two ends' last segments
+ * (refined vertices; error of order curvature × cell²), accepted only when the point solver finds
+ * exactly the three labels round it; 3. extend the two ends to it. Otherwise the ends stay as they
+ * are (a gap of a cell or two, e.g. at the tip of a wedge thinner than a cell), never a wrong
  * junction.
  */
 import { argmax, type TraceField } from './field.js';
