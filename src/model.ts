@@ -80,6 +80,8 @@ export interface CompositionModel {
   ionicStrength: number | 'auto';
   /** Grid the regions were traced on, and points that could not be solved (undetermined). */
   grid: { nx: number; ny: number; failed: number };
+  /** Where the point solver failed: polygons (grid resolution, not refined) to show as undetermined. */
+  undetermined: Polygon[];
 }
 
 export interface DiagramModel {

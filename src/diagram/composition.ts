@@ -15,7 +15,7 @@ import type { SpeciationProblem } from '../solve/speciation/problem.js';
 import { type GridSample, sampleGrid } from '../solve/trace/grid.js';
 import { traceIsoLines } from '../solve/trace/iso.js';
 import { joinTriplePoints } from '../solve/trace/junctions.js';
-import { traceRegions, type TracedBoundary } from '../solve/trace/regions.js';
+import { traceRegions, type TracedBoundary, undeterminedPolygons } from '../solve/trace/regions.js';
 import type { SolverSpecies } from '../solve/types.js';
 import type { SystemSpec } from '../system/spec.js';
 import { KELVIN } from '../thermo/constants.js';
@@ -81,7 +81,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     waterLines: { ...waterLines(input), pressures: input.pressures },
     warnings,
     sources: setup.built.sources,
-    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed } },
+    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: undeterminedPolygons(g) },
     isoSolubility,
   };
   return { setup, grid: g as GridSample<unknown>, model };

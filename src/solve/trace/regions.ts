@@ -47,7 +47,7 @@ export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: Tra
       return field.scores(s, sc) ? marginOf(sc, f) : -1;
     };
     const polys = contourRings(g, m, 0).map((poly) =>
-      poly.map((ring) => ring.map((v) => refineVertex(field, g, v, m, marginAt, sc, opt))),
+      poly.map((ring) => ring.map((v) => refineVertex(field, g, f, v, m, marginAt, sc, opt))),
     );
     // Step 4: orientation and area.
     let area = 0;
@@ -69,7 +69,7 @@ export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: Tra
 
 interface RefinedVertex { x: number; y: number; nb: number }
 
-function refineVertex<S>(field: TraceField<S>, g: GridSample<S>, v: ContourVertex, m: Float64Array, marginAt: (x: number, y: number, w: S) => number, sc: Float64Array, opt: TraceOptions): RefinedVertex {
+function refineVertex<S>(field: TraceField<S>, g: GridSample<S>, f: number, v: ContourVertex, m: Float64Array, marginAt: (x: number, y: number, w: S) => number, sc: Float64Array, opt: TraceOptions): RefinedVertex {
   if (v.frame || v.a === undefined) return { x: v.x, y: v.y, nb: -2 };
   const a = v.a;
   const b = v.b!;
@@ -81,10 +81,16 @@ function refineVertex<S>(field: TraceField<S>, g: GridSample<S>, v: ContourVerte
   const at = (t: number): [number, number] => [xa + (xb - xa) * t, ya + (yb - ya) * t];
   const c = refineCrossing((t) => marginAt(...at(t), warm), m[a], m[b], opt.tolT);
   const [x, y] = at(c.t);
+  // The neighbour: the label just across (scores may jump there, e.g. two solids swapping); where a
+  // grid node lies exactly on the boundary that is f again, and the best other label at the
+  // crossing (which ties with f there) is taken instead.
   const [xo, yo] = at(c.tOut);
-  const s = field.solve(xo, yo, warm);
-  const nb = field.scores(s, sc) ? argmax(sc) : -1;
-  return { x, y, nb };
+  if (!field.scores(field.solve(xo, yo, warm), sc)) return { x, y, nb: -1 };
+  const across = argmax(sc);
+  if (across !== f) return { x, y, nb: across };
+  if (!field.scores(field.solve(x, y, warm), sc)) return { x, y, nb: -1 };
+  sc[f] = -Infinity;
+  return { x, y, nb: argmax(sc) };
 }
 
 function runs(ring: RefinedVertex[], f: number): { between: [number, number]; points: [number, number][] }[] {
@@ -130,4 +136,16 @@ export function signedArea(pts: [number, number][]): number {
     s += x1 * y2 - x2 * y1;
   }
   return 0.5 * s;
+}
+
+/** Polygons (grid resolution) round the nodes where the field could not be solved (label −1). */
+export function undeterminedPolygons<S>(g: GridSample<S>): [number, number][][][] {
+  const m = Float64Array.from(g.label, (l) => (l < 0 ? 1 : -1));
+  if (!m.some((v) => v > 0)) return [];
+  return contourRings(g, m, 0).map((poly) => poly.map((ring, r) => {
+    const pts = dedupe(ring.map((v) => [v.x, v.y] as [number, number]));
+    const a = signedArea(pts);
+    if ((r === 0 && a < 0) || (r > 0 && a > 0)) pts.reverse();
+    return pts;
+  }));
 }
