@@ -65,7 +65,28 @@ export interface WaterLine {
   points: [number, number][];
 }
 
+/** An iso-solubility line (composition mode): total dissolved main element = level, mol/kg. */
+export interface IsoSolubilityLine {
+  level: number;
+  /** Polylines of [pH, E]; closed ones repeat no vertex. */
+  lines: [number, number][][];
+}
+
+/** The bath as made up (composition mode): totals in mol/kg of water, by component. */
+export interface CompositionModel {
+  totals: Record<string, number>;
+  units: 'mol/kg';
+  /** How the ionic strength was set: a number (mol/kg) or 'auto' (from the speciation). */
+  ionicStrength: number | 'auto';
+  /** Grid the regions were traced on, and points that could not be solved (undetermined). */
+  grid: { nx: number; ny: number; failed: number };
+  /** Where the point solver failed: polygons (grid resolution, not refined) to show as undetermined. */
+  undetermined: Polygon[];
+}
+
 export interface DiagramModel {
+  /** Kind of diagram (absent in older models: 'fixed-activity'). */
+  kind?: 'fixed-activity' | 'composition';
   ephmap: string;
   element: string;
   temperature: { celsius: number; kelvin: number };
@@ -85,6 +106,9 @@ export interface DiagramModel {
   reference?: { id: string; label: string; offset: number };
   warnings: string[];
   sources: string[];
+  /** Composition mode: the totals, and the iso-solubility lines of the dissolved element. */
+  composition?: CompositionModel;
+  isoSolubility?: IsoSolubilityLine[];
 }
 
 export interface SpeciesSummary {

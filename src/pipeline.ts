@@ -24,6 +24,11 @@ export function loadSpec(path: string): SystemSpec {
 }
 
 export function compute(spec: SystemSpec): Computed {
+  // A composition-mode file through the fixed-activity pipeline would take totals as free
+  // activities — the very error composition mode exists to avoid. Refuse until it is wired in.
+  if (spec.composition) {
+    throw new InputError(spec.file, 'composition', 'a fixed-activity system file here (this command does not take composition mode yet; remove composition and give activity/ligands instead)');
+  }
   const built = buildSystem(spec);
   const species = built.input.species.length + (built.input.ligands ?? []).reduce((n, l) => n + l.species.length, 0);
   checkWorkBudget({ grid: spec.grid, species, families: familiesRequested(spec.extra) }, spec.file);

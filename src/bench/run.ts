@@ -10,6 +10,8 @@
  *   alloy points 300x300 ms: T          — Fe–Cr–Ni assemblage LP at every node of a 300×300 grid (point
  *                                         solver only, no tracing yet; issue 18's traced map: ≤ 2000)
  *   peak RSS MB: M                      — a 1000×1000 grid map in a fresh process; target ≤ 150
+ *   composition 300x300 ms: T           — silver cyanide bath, composition mode, refined; target ≤ 1500
+ *   composition points solved per second — point solutions (grid, refinement, iso-lines) per second
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -22,6 +24,7 @@ import { supportAt } from '../solve/alloy/assemblage.js';
 import { gridMap } from '../solve/grid.js';
 import { buildAlloySystem } from '../system/alloy-build.js';
 import { readAlloySpec } from '../system/alloy-spec.js';
+import { benchComposition } from './composition.js';
 import { readSpec } from '../system/spec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -129,6 +132,11 @@ async function main(): Promise<void> {
     // 6. Peak RSS of a 1000×1000 map in a fresh process.
     const r = spawnSync(process.execPath, [fileURLToPath(import.meta.url), '--rss-child'], { encoding: 'utf8' });
     console.log(`peak RSS MB: ${Number(r.stdout).toFixed(1)}`);
+
+    // 6. Composition mode: Ag–CN bath, 300×300, refined boundaries and iso-solubility lines.
+    const cb = benchComposition(300, 3);
+    console.log(`composition 300x300 ms: ${cb.ms.toFixed(0)}`);
+    console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves; CPU ${cb.cpuMs.toFixed(0)} ms)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -14,6 +14,7 @@ import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } 
 import { type Operating, readOperating } from './operating.js';
 import type { CpPolynomial } from '../thermo/cp-poly.js';
 import { HKF_KEYS, type HkfParameters } from '../thermo/hkf.js';
+import { type CompositionSpec, readComposition } from './composition.js';
 
 export interface InlineSpecies {
   formula: string;
@@ -71,6 +72,8 @@ export interface SystemSpec {
   /** Everything else the later stages read (figure, points, ...), validated where used. */
   extra: Record<string, unknown>;
   warnings: string[];
+  /** Composition mode (src/system/composition.ts): totals of the bath as made up. */
+  composition?: CompositionSpec;
 }
 
 export const TOP_KEYS = [
@@ -106,6 +109,7 @@ export const TOP_KEYS = [
   'families',
   'description',
   'elements',
+  'composition',
 ] as const;
 
 const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'hkf', 'cpPolynomial', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
@@ -128,6 +132,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   if (!isElement(element)) f.fail('element', 'an element symbol such as "Fe" (case matters)', element);
   if (element === 'H' || element === 'O') f.fail('element', 'an element other than H or O (water is always present)', element);
 
+  const comp = o.composition === undefined ? undefined : readComposition(f, o, element);
   const temperature = f.optNumber(o.temperature, 'temperature', 25, { min: T_RANGE.min, max: T_RANGE.max });
   if (temperature > 300) warnings.push(`temperature ${temperature} °C is above 300 °C: data extrapolated beyond their usual range`);
   const pressure = o.pressure === undefined ? undefined : f.number(o.pressure, 'pressure', { positive: true, max: 100 });
@@ -138,7 +143,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     const a = typeof o.concentration === 'number' ? { kind: 'molality' as const, value: f.number(o.concentration, 'concentration', { positive: true, max: 100 }) } : readAmount(f, o.concentration, 'concentration');
     amount = { ...a, isDefault: false };
   }
-  const solution = readSolutionSettings(f, o);
+  const solution = readSolutionSettings(f, comp ? comp.rest : o);
 
   // User maps are built without a prototype (and their keys checked by f.entries).
   const ligands: Record<string, number> = Object.create(null);
@@ -172,6 +177,14 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     }
   }
 
+  if (comp) {
+    // Composition mode: the ligands are the composition's; their totals stand in as amounts.
+    Object.assign(ligandGroups, comp.ligandGroups);
+    for (const [k, a] of Object.entries(comp.composition.ligands)) {
+      ligandAmounts[k] = a;
+      ligands[k] = a.value;
+    }
+  }
   const ligandSpecies: Record<string, 'all' | string[]> = Object.create(null);
   if (o.ligandSpecies !== undefined) {
     for (const [k, v] of f.entries(o.ligandSpecies, 'ligandSpecies', 'a map of ligand → "all" or a list of formulas')) {
@@ -229,7 +242,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];
   }
-  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, assumeConstantG, pick, extrapolation, title, grid, extra, warnings };
+  return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, assumeConstantG, pick, extrapolation, title, grid, extra, warnings, ...(comp ? { composition: comp.composition } : {}) };
 }
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {

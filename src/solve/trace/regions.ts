@@ -1,0 +1,151 @@
+/**
+ * Regions and boundaries of a TraceField from a grid sample. Steps: 1. for each label present, its
+ * margin field (score minus the best other score; −1 where undetermined); 2. marching squares on
+ * it at 0 (contour.ts); 3. every crossing refined on its grid segment with the point solver
+ * (refine.ts) and its neighbour label read just across; 4. rings oriented (outer counter-clockwise,
+ * holes clockwise) with their area; 5. boundary polylines: maximal runs of consecutive refined
+ * vertices of a ring that share the same neighbour, emitted once per pair (from the lower label).
+ */
+import { argmax, marginOf, type TraceField } from './field.js';
+import { contourRings, type ContourVertex } from './contour.js';
+import type { GridSample } from './grid.js';
+import { refineCrossing } from './refine.js';
+
+export interface TracedRegion {
+  label: number;
+  /** Polygons: outer ring then holes, [x, y] vertices, not closed. */
+  polygons: [number, number][][][];
+  area: number;
+}
+
+export interface TracedBoundary {
+  between: [number, number];
+  points: [number, number][];
+}
+
+export interface TraceOptions {
+  /** Stop refining when the bracket is shorter than this fraction of a grid cell. */
+  tolT: number;
+}
+
+export const TRACE_DEFAULTS: TraceOptions = { tolT: 1e-8 };
+
+export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: TraceOptions = TRACE_DEFAULTS): { regions: TracedRegion[]; boundaries: TracedBoundary[] } {
+  const L = field.labels;
+  const n = g.nx * g.ny;
+  const present = [...new Set(g.label)].filter((k) => k >= 0).sort((a, b) => a - b);
+  const sc = new Float64Array(L);
+  const regions: TracedRegion[] = [];
+  const boundaries: TracedBoundary[] = [];
+  for (const f of present) {
+    // Step 1: margin field.
+    const m = new Float64Array(n);
+    for (let k = 0; k < n; k++) m[k] = g.label[k] < 0 ? -1 : marginOf(g.scores.subarray(k * L, (k + 1) * L), f);
+    // Steps 2–3: contour and refine.
+    const marginAt = (x: number, y: number, warm: S) => {
+      const s = field.solve(x, y, warm);
+      return field.scores(s, sc) ? marginOf(sc, f) : -1;
+    };
+    const polys = contourRings(g, m, 0).map((poly) =>
+      poly.map((ring) => ring.map((v) => refineVertex(field, g, f, v, m, marginAt, sc, opt))),
+    );
+    // Step 4: orientation and area.
+    let area = 0;
+    const polygons = polys.map((poly) =>
+      poly.map((ring, r) => {
+        const pts = dedupe(ring.map((v) => [v.x, v.y] as [number, number]));
+        const a = signedArea(pts);
+        if ((r === 0 && a < 0) || (r > 0 && a > 0)) pts.reverse();
+        area += r === 0 ? Math.abs(a) : -Math.abs(a);
+        return pts;
+      }),
+    );
+    regions.push({ label: f, polygons, area });
+    // Step 5: boundary runs.
+    for (const poly of polys) for (const ring of poly) boundaries.push(...runs(ring, f));
+  }
+  return { regions, boundaries };
+}
+
+interface RefinedVertex { x: number; y: number; nb: number }
+
+function refineVertex<S>(field: TraceField<S>, g: GridSample<S>, f: number, v: ContourVertex, m: Float64Array, marginAt: (x: number, y: number, w: S) => number, sc: Float64Array, opt: TraceOptions): RefinedVertex {
+  if (v.frame || v.a === undefined) return { x: v.x, y: v.y, nb: -2 };
+  const a = v.a;
+  const b = v.b!;
+  const xa = g.x[0] + ((g.x[1] - g.x[0]) * (a % g.nx)) / (g.nx - 1);
+  const ya = g.y[0] + ((g.y[1] - g.y[0]) * Math.floor(a / g.nx)) / (g.ny - 1);
+  const xb = g.x[0] + ((g.x[1] - g.x[0]) * (b % g.nx)) / (g.nx - 1);
+  const yb = g.y[0] + ((g.y[1] - g.y[0]) * Math.floor(b / g.nx)) / (g.ny - 1);
+  const warm = g.label[a] >= 0 ? g.states[a] : g.states[b];
+  const at = (t: number): [number, number] => [xa + (xb - xa) * t, ya + (yb - ya) * t];
+  const c = refineCrossing((t) => marginAt(...at(t), warm), m[a], m[b], opt.tolT);
+  const [x, y] = at(c.t);
+  // The neighbour: the label just across (scores may jump there, e.g. two solids swapping); where a
+  // grid node lies exactly on the boundary that is f again, and the best other label at the
+  // crossing (which ties with f there) is taken instead.
+  const [xo, yo] = at(c.tOut);
+  if (!field.scores(field.solve(xo, yo, warm), sc)) return { x, y, nb: -1 };
+  const across = argmax(sc);
+  if (across !== f) return { x, y, nb: across };
+  if (!field.scores(field.solve(x, y, warm), sc)) return { x, y, nb: -1 };
+  sc[f] = -Infinity;
+  return { x, y, nb: argmax(sc) };
+}
+
+function runs(ring: RefinedVertex[], f: number): { between: [number, number]; points: [number, number][] }[] {
+  const out: { between: [number, number]; points: [number, number][] }[] = [];
+  const N = ring.length;
+  // Start after a break so that cyclic runs are not split.
+  let start = ring.findIndex((v, k) => v.nb !== ring[(k + N - 1) % N].nb || v.nb < 0);
+  if (start < 0) start = 0;
+  let cur: RefinedVertex[] = [];
+  const flush = () => {
+    if (cur.length >= 2 && cur[0].nb > f) out.push({ between: [f, cur[0].nb], points: cur.map((v) => [v.x, v.y]) });
+    cur = [];
+  };
+  for (let k = 0; k < N; k++) {
+    const v = ring[(start + k) % N];
+    if (v.nb < 0) {
+      flush();
+      continue;
+    }
+    if (cur.length && cur[0].nb !== v.nb) flush();
+    cur.push(v);
+  }
+  flush();
+  return out;
+}
+
+function dedupe(pts: [number, number][]): [number, number][] {
+  const out: [number, number][] = [];
+  for (const p of pts) {
+    const q = out[out.length - 1];
+    if (!q || Math.abs(q[0] - p[0]) > 1e-12 || Math.abs(q[1] - p[1]) > 1e-12) out.push(p);
+  }
+  while (out.length > 1 && Math.abs(out[0][0] - out[out.length - 1][0]) < 1e-12 && Math.abs(out[0][1] - out[out.length - 1][1]) < 1e-12) out.pop();
+  return out;
+}
+
+/** Shoelace area, positive counter-clockwise. */
+export function signedArea(pts: [number, number][]): number {
+  let s = 0;
+  for (let k = 0; k < pts.length; k++) {
+    const [x1, y1] = pts[k];
+    const [x2, y2] = pts[(k + 1) % pts.length];
+    s += x1 * y2 - x2 * y1;
+  }
+  return 0.5 * s;
+}
+
+/** Polygons (grid resolution) round the nodes where the field could not be solved (label −1). */
+export function undeterminedPolygons<S>(g: GridSample<S>): [number, number][][][] {
+  const m = Float64Array.from(g.label, (l) => (l < 0 ? 1 : -1));
+  if (!m.some((v) => v > 0)) return [];
+  return contourRings(g, m, 0).map((poly) => poly.map((ring, r) => {
+    const pts = dedupe(ring.map((v) => [v.x, v.y] as [number, number]));
+    const a = signedArea(pts);
+    if ((r === 0 && a < 0) || (r > 0 && a > 0)) pts.reverse();
+    return pts;
+  }));
+}
