@@ -9,6 +9,7 @@ import { ReactionError, type ReactionSubject } from '../chem/reaction-parse.js';
 import { cellText } from '../report/cell-format.js';
 import { stableJson } from '../report/json.js';
 import { InputError } from '../system/errors.js';
+import { NUMBER_TEXT } from '../system/fields.js';
 import { listReferences } from '../thermo/reference.js';
 import { fileLookup } from '../system/lookup.js';
 import type { Extrapolation } from '../thermo/gibbs.js';
@@ -62,12 +63,12 @@ export function registerCell(program: Command, deps: CellDeps): void {
       }
       const electrons = opts.electrons === undefined ? undefined : num(opts.electrons, '--electrons', 'a positive number of electrons');
       if (electrons !== undefined && !(electrons > 0)) throw new InputError(CLI, '--electrons', 'a positive number of electrons', opts.electrons);
-      const pH = opts.ph === undefined ? undefined : num(opts.ph, '--ph', 'a pH value (number)');
+      const pH = opts.ph === undefined ? undefined : num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 });
       let temperatures: number[];
       if (opts.range !== undefined) {
         const parts = opts.range.split(':');
         const bad = () => new InputError(CLI, '--range', 'FROM:TO:STEP in °C with TO ≥ FROM and STEP > 0, at most 1001 rows', JSON.stringify(opts.range));
-        if (parts.length !== 3 || parts.some((p) => p.trim() === '' || !Number.isFinite(Number(p)))) throw bad();
+        if (parts.length !== 3 || parts.some((p) => !NUMBER_TEXT.test(p.trim()) || !Number.isFinite(Number(p)))) throw bad();
         const [a, b, c] = parts.map(Number) as [number, number, number];
         try {
           temperatures = temperatureSteps(a, b, c);

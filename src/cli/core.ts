@@ -1,14 +1,13 @@
 /**
  * Verbs draw, probe, lines (issue 2 core) and demo.
  */
-import { extname } from 'node:path';
 import type { Command } from 'commander';
 import { compute } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
-import { writeAtomic } from '../io/write.js';
+import { checkOutputs, writeOne } from './outputs.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { displayReference } from '../analysis/points.js';
@@ -19,7 +18,7 @@ import { figureInput, withSecondAxis } from '../figure/compose.js';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 
-const DRAW_FORMATS = ['svg', 'pdf', 'png', 'html', 'json'];
+const DRAW_FORMATS = ['.svg', '.pdf', '.png', '.html', '.json'];
 
 interface DrawOptions extends FigureOverrides, SpecOverrides {
   output: string;
@@ -50,10 +49,8 @@ export function registerCore(program: Command): void {
     .option('--hide <list>', 'decorations to hide, same names')
     .option('--ref <name>', 'second potential axis against this reference electrode (sce, agcl-sat, cse, ...)')
     .action(async (file: string, opts: DrawOptions) => {
-      const ext = extname(opts.output).toLowerCase().slice(1);
-      if (!DRAW_FORMATS.includes(ext)) {
-        throw new InputError('command line', '--output', `a file name ending in ${DRAW_FORMATS.map((x) => `.${x}`).join(', ')}`, JSON.stringify(opts.output));
-      }
+      const [dotExt] = checkOutputs([{ path: opts.output, option: '--output', extensions: DRAW_FORMATS }], [{ path: file, option: '<file>' }]);
+      const ext = dotExt!.slice(1);
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
       const c = compute(spec);
@@ -62,7 +59,7 @@ export function registerCore(program: Command): void {
       }
       warn(c.model.warnings);
       const data = ext === 'json' ? stableJson(c.model) : await renderFigure(figureInput(c, fig), ext as FigureFormat);
-      writeAtomic(opts.output, data);
+      await writeOne(opts.output, data);
       process.stdout.write(`wrote ${opts.output}\n`);
     });
 

@@ -1,7 +1,14 @@
 /**
  * `ephmap demo`: the main job on built-in data — classic diagrams of iron, copper and zinc at 25 °C
  * (dissolved activity 10⁻⁶, the common corrosion threshold) and iron at 200 °C, drawn into a folder.
+ *
+ * Steps: (1) refuse a file in the way of the folder (OutputError, exit 3); (2) compute and render
+ * every diagram; (3) create the folder if missing (`makeOutputDir`: the one place ephmap creates a
+ * directory, and it says so on standard output) and commit all files as one set
+ * (src/io/safe-write.ts), so a failure leaves the folder's files as they were.
  */
+import { existsSync, statSync } from 'node:fs';
+import { OutputError } from '../errors.js';
 import { join } from 'node:path';
 import type { Command } from 'commander';
 import { figureInput } from '../figure/compose.js';
@@ -10,7 +17,8 @@ import { renderFigure } from '../figure/output.js';
 import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { readSpec } from '../system/spec.js';
-import { writeAtomic } from '../io/write.js';
+import { makeOutputDir, type OutputFile } from '../io/safe-write.js';
+import { writeSet } from './outputs.js';
 
 export const DEMO_SYSTEMS: { name: string; data: Record<string, unknown> }[] = [
   { name: 'iron-25C', data: { element: 'Fe', activity: 1e-6, E: [-1.2, 1.6], title: 'Iron–water, 25 °C' } },
@@ -25,23 +33,27 @@ export function registerDemo(program: Command): void {
     .description('draw the built-in demonstration diagrams (iron, copper, zinc) into a folder')
     .option('--out <dir>', 'output folder', 'out')
     .action(async (opts: { out: string }) => {
+      // Step 1: a file in the way of the folder is refused before any compute.
+      const existed = existsSync(opts.out);
+      if (existed && !statSync(opts.out).isDirectory()) throw new OutputError(opts.out, 'it is a file, not a folder (--out names the folder the diagrams go into)');
+      const files: OutputFile[] = [];
+      const lines: string[] = [];
       for (const d of DEMO_SYSTEMS) {
         const spec = readSpec(d.data, `demo ${d.name}`);
         const c = compute(spec);
         for (const w of c.model.warnings) process.stderr.write(`warning (${d.name}): ${w}\n`);
-        const fig = figureSettings(spec);
-        const input = figureInput(c, fig);
-        const written: string[] = [];
-        for (const fmt of ['svg', 'pdf'] as const) {
-          const p = join(opts.out, `${d.name}.${fmt}`);
-          writeAtomic(p, await renderFigure(input, fmt));
-          written.push(p);
-        }
-        const pj = join(opts.out, `${d.name}.json`);
-        writeAtomic(pj, stableJson(c.model));
-        written.push(pj);
-        process.stdout.write(`${d.name}: ${written.join(', ')}\n`);
+        const input = figureInput(c, figureSettings(spec));
+        const mine: OutputFile[] = [];
+        for (const fmt of ['svg', 'pdf'] as const) mine.push({ path: join(opts.out, `${d.name}.${fmt}`), data: await renderFigure(input, fmt) });
+        mine.push({ path: join(opts.out, `${d.name}.json`), data: stableJson(c.model) });
+        files.push(...mine);
+        lines.push(`${d.name}: ${mine.map((f) => f.path).join(', ')}\n`);
       }
+      // Step 3: the folder (created only now, so a failed compute leaves nothing), then the set.
+      makeOutputDir(opts.out);
+      if (!existed) process.stdout.write(`created the folder ${opts.out}/\n`);
+      await writeSet(files);
+      for (const l of lines) process.stdout.write(l);
       process.stdout.write(`Diagrams written to ${opts.out}/ — open the .svg or .pdf files. Equilibrium thermodynamics only, not kinetics.\n`);
     });
 }

@@ -2,14 +2,14 @@
  * `ephmap overlay FILE... -o out.svg|pdf|png [--temperatures 25,90,150] [--activities 1e-6,1e-4]`:
  * several diagrams in one frame (one system at several temperatures/activities, or several systems).
  */
-import { extname } from 'node:path';
 import type { Command } from 'commander';
 import type { FigureOverrides } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
 import { loadSpec } from '../pipeline.js';
 import { computeLayers, layerSpecs, layerWarnings, overlayFigure, overlaySettings } from '../figure/overlay.js';
 import { InputError } from '../system/errors.js';
-import { writeAtomic } from '../io/write.js';
+import { NUMBER_TEXT } from '../system/fields.js';
+import { checkOutputs, writeOne } from './outputs.js';
 
 /** "25,90,150" → [25, 90, 150]; InputError naming the option for anything that is not a number list. */
 export function numberList(v: string, option: string, what: string): number[] {
@@ -17,7 +17,7 @@ export function numberList(v: string, option: string, what: string): number[] {
   if (parts.length > 20) throw new InputError('command line', option, `at most 20 ${what}`, JSON.stringify(v));
   return parts.map((x) => {
     const n = Number(x);
-    if (x === '' || !Number.isFinite(n)) throw new InputError('command line', option, `a comma-separated list of ${what}, e.g. ${option === '--temperatures' ? '25,90,150' : '1e-6,1e-4'}`, JSON.stringify(v));
+    if (!NUMBER_TEXT.test(x) || !Number.isFinite(n)) throw new InputError('command line', option, `a comma-separated list of ${what}, e.g. ${option === '--temperatures' ? '25,90,150' : '1e-6,1e-4'}`, JSON.stringify(v));
     return n;
   });
 }
@@ -43,8 +43,8 @@ export function registerOverlay(program: Command): void {
     .option('--no-caption', 'leave out the caption block (kept when the elements differ)')
     .option('--grid', 'draw a light grid')
     .action(async (files: string[], opts: OverlayOpts) => {
-      const ext = extname(opts.output).toLowerCase().slice(1);
-      if (!['svg', 'pdf', 'png'].includes(ext)) throw new InputError('command line', '--output', 'a file name ending in .svg, .pdf or .png', JSON.stringify(opts.output));
+      const [dotExt] = checkOutputs([{ path: opts.output, option: '--output', extensions: ['.svg', '.pdf', '.png'] }], files.map((f, i) => ({ path: f, option: `<files> #${i + 1}` })));
+      const ext = dotExt!.slice(1);
       const temperatures = opts.temperatures === undefined ? undefined : numberList(opts.temperatures, '--temperatures', 'temperatures in °C');
       const activities = opts.activities === undefined ? undefined : numberList(opts.activities, '--activities', 'activities');
       const specs = files.map((f) => loadSpec(f));
@@ -52,7 +52,7 @@ export function registerOverlay(program: Command): void {
       const fig = overlaySettings(layers, opts);
       for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
       const { input } = overlayFigure(layers, fig, ext === 'pdf');
-      writeAtomic(opts.output, await renderFigure(input, ext as FigureFormat));
+      await writeOne(opts.output, await renderFigure(input, ext as FigureFormat));
       process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);
     });
 }

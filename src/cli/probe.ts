@@ -1,6 +1,8 @@
 /**
  * `ephmap probe FILE --ph X --potential Y [--ref NAME] [--json]` and
  * `ephmap probe FILE --points LOG.csv [-o OUT.csv]`.
+ * -o is checked before any compute (src/cli/outputs.ts): .csv with --points, .json for one point
+ * (its JSON answer), never the system file or the --points file.
  */
 import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
@@ -15,7 +17,7 @@ import { probeText } from '../report/probe-text.js';
 import { InputError } from '../system/errors.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
-import { writeAtomic } from '../io/write.js';
+import { checkOutputs, writeOne } from './outputs.js';
 
 const num = numberArg;
 
@@ -37,9 +39,13 @@ export function registerProbe(program: Command): void {
     .option('--potential <volts>', 'potential at the point, V (vs SHE unless --ref)')
     .option('--ref <name>', 'reference electrode the potential is measured against: she, rhe, sce, agcl-sat, agcl-3.5m, agcl-1m, agcl-sea, cse, hgo, mse')
     .option('--points <csv>', 'logged series: CSV with columns pH, potential[, temperature]')
-    .option('-o, --output <csv>', 'with --points: write the results CSV here (default: standard output)')
+    .option('-o, --output <file>', 'with --points: write the results CSV here (.csv; default: standard output); for one point: write its JSON answer here (.json)')
     .option('--json', 'machine-readable output')
-    .action((file: string, opts: ProbeOpts) => {
+    .action(async (file: string, opts: ProbeOpts) => {
+      if (opts.output !== undefined) {
+        const inputs = [{ path: file, option: '<file>' }, ...(opts.points !== undefined ? [{ path: opts.points, option: '--points' }] : [])];
+        checkOutputs([{ path: opts.output, option: '--output', extensions: opts.points !== undefined ? ['.csv'] : ['.json'] }], inputs);
+      }
       const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
@@ -62,18 +68,21 @@ export function registerProbe(program: Command): void {
         });
         const csv = pointsCsv(results);
         if (opts.output) {
-          writeAtomic(opts.output, csv);
+          await writeOne(opts.output, csv);
           process.stdout.write(`wrote ${opts.output} (${results.length} rows)\n`);
         } else process.stdout.write(csv);
         return;
       }
       if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
-      const pH = num(opts.ph, '--ph', 'a pH value (number)');
-      const E0 = num(opts.potential, '--potential', 'a potential in V (number)');
+      const pH = num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 });
+      const E0 = num(opts.potential, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 });
       const s = toShe(ref, E0, spec.temperature, pH, 'command line', '--ref');
       const c = at(spec.temperature, { pH, E: s.E });
       for (const w of [...c.model.warnings, ...s.warnings]) process.stderr.write(`warning: ${w}\n`);
       const r = probe(c, pH, s.E, s.ref);
-      process.stdout.write(opts.json ? stableJson(r) : probeText(r));
+      if (opts.output !== undefined) {
+        await writeOne(opts.output, stableJson(r));
+        process.stdout.write(`wrote ${opts.output}\n`);
+      } else process.stdout.write(opts.json ? stableJson(r) : probeText(r));
     });
 }

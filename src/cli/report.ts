@@ -16,7 +16,7 @@ import { reportMarkdown } from '../report/report-md.js';
 import { InputError } from '../system/errors.js';
 import { renderFigure } from '../figure/output.js';
 import { buildScene } from '../render/scene.js';
-import { writeAtomic } from '../io/write.js';
+import { checkOutputs, writeOne, writeSet } from './outputs.js';
 
 const REPORT_FORMATS = ['md', 'html', 'pdf'] as const;
 type ReportFormat = (typeof REPORT_FORMATS)[number];
@@ -31,10 +31,14 @@ export function registerReport(program: Command): void {
     .argument('<file>', 'system file (.json, .yaml, .yml)')
     .requiredOption('-o, --output <path>', 'output file (.md, .html or .pdf)')
     .action(async (file: string, opts: { output: string } & SpecOverrides) => {
-      const ext = extname(opts.output).toLowerCase().slice(1);
-      if (!(REPORT_FORMATS as readonly string[]).includes(ext) || basename(opts.output, extname(opts.output)) === '') {
+      if (basename(opts.output, extname(opts.output)) === '') {
         throw new InputError('command line', '--output', 'a file name ending in .md, .html or .pdf', JSON.stringify(opts.output));
       }
+      const outputs = [{ path: opts.output, option: '--output', extensions: REPORT_FORMATS.map((x) => `.${x}`) }];
+      const ext = extname(opts.output).toLowerCase().slice(1);
+      // A Markdown report also writes its figure beside it: that file is an output of the run too.
+      if (ext === 'md') outputs.push({ path: join(dirname(opts.output), `${basename(opts.output, extname(opts.output))}.svg`), option: '--output (its figure)', extensions: ['.svg'] });
+      checkOutputs(outputs, [{ path: file, option: '<file>' }]);
       const fmt = ext as ReportFormat;
       const spec = loadSpecWith(file, opts);
       const fig = figureSettingsWidth(spec, {}, REPORT_WIDTH);
@@ -48,20 +52,19 @@ export function registerReport(program: Command): void {
         const svg = (await renderFigure(input, 'svg')) as string;
         const md = reportMarkdown(data, svgName, caption);
         const svgPath = join(dirname(opts.output), svgName);
-        writeAtomic(svgPath, svg);
-        writeAtomic(opts.output, md);
+        await writeSet([{ path: svgPath, data: svg }, { path: opts.output, data: md }]);
         process.stdout.write(`wrote ${opts.output} and ${svgPath}\n`);
         return;
       }
       if (fmt === 'html') {
         const svg = (await renderFigure(input, 'svg')) as string;
-        writeAtomic(opts.output, reportHtml(data, svg, caption));
+        await writeOne(opts.output, reportHtml(data, svg, caption));
       } else {
         // Vector figure; its caption is printed under it by the report, so the figure omits its own.
         const noCaption = { ...input, options: { ...input.options, show: { ...input.options.show, caption: false } } };
         const scene = buildScene(noCaption);
         const { reportPdf } = await import('../report/report-pdf.js');
-        writeAtomic(opts.output, await reportPdf(data, scene, { width: fig.options.width, height: fig.options.height }, caption));
+        await writeOne(opts.output, await reportPdf(data, scene, { width: fig.options.width, height: fig.options.height }, caption));
       }
       process.stdout.write(`wrote ${opts.output}\n`);
     });

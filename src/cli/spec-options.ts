@@ -1,7 +1,8 @@
 /**
  * What-if options shared by the verbs that read a system file: --temperature, --activity and
  * --metastable override the file's keys. Command-line values are checked here (errors name the
- * option); the merged document is then validated as a whole.
+ * option; strict decimal text, so "" or "0x7" is refused, not read as 0 or 7); the merged document
+ * is then validated as a whole.
  */
 import type { Command } from 'commander';
 import { Fields } from '../system/fields.js';
@@ -24,8 +25,8 @@ export function withSpecOptions(cmd: Command): Command {
 export function loadSpecWith(path: string, o: SpecOverrides): SystemSpec {
   const f = new Fields('command line');
   const patch: Record<string, unknown> = {};
-  if (o.temperature !== undefined) patch.temperature = f.number(Number(o.temperature), '--temperature', { min: T_RANGE.min, max: T_RANGE.max });
-  if (o.activity !== undefined) patch.activity = f.number(Number(o.activity), '--activity', { positive: true, max: 100 });
+  if (o.temperature !== undefined) patch.temperature = f.numberText(o.temperature, '--temperature', { min: T_RANGE.min, max: T_RANGE.max });
+  if (o.activity !== undefined) patch.activity = f.numberText(o.activity, '--activity', { positive: true, max: 100 });
   if (o.metastable) patch.metastable = true;
   const data = readSystemFile(path);
   if (Object.keys(patch).length && data && typeof data === 'object' && !Array.isArray(data)) {

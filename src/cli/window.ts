@@ -1,7 +1,6 @@
 /**
  * `ephmap window FILE`: the plating pH window of a bath (table, --json, or a figure with -o).
  */
-import { extname } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { windowFigureInput } from '../figure/compose.js';
@@ -11,8 +10,7 @@ import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { platingWindow } from '../analysis/window.js';
 import { windowHeading, windowText } from '../report/window-text.js';
-import { InputError } from '../system/errors.js';
-import { writeAtomic } from '../io/write.js';
+import { checkOutputs, writeOne } from './outputs.js';
 
 export function registerWindow(program: Command): void {
   withSpecOptions(program
@@ -24,9 +22,8 @@ export function registerWindow(program: Command): void {
     .action(async (file: string, opts: { json?: boolean; output?: string } & SpecOverrides) => {
       let fmt: FigureFormat | undefined;
       if (opts.output) {
-        const ext = extname(opts.output).toLowerCase().slice(1);
-        if (!['svg', 'pdf', 'png'].includes(ext)) throw new InputError('command line', '--output', 'a file name ending in .svg, .pdf or .png', JSON.stringify(opts.output));
-        fmt = ext as FigureFormat;
+        const [ext] = checkOutputs([{ path: opts.output, option: '--output', extensions: ['.svg', '.pdf', '.png'] }], [{ path: file, option: '<file>' }]);
+        fmt = ext!.slice(1) as FigureFormat;
       }
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec);
@@ -34,7 +31,7 @@ export function registerWindow(program: Command): void {
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
       const r = platingWindow(c.model);
       if (opts.output && fmt) {
-        writeAtomic(opts.output, await renderFigure(windowFigureInput(c, fig, r.windows), fmt));
+        await writeOne(opts.output, await renderFigure(windowFigureInput(c, fig, r.windows), fmt));
       }
       const head = windowHeading(c.model);
       if (opts.json) process.stdout.write(stableJson(r));

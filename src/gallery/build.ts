@@ -5,7 +5,7 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
-import { writeAtomic } from '../io/write.js';
+import { writeOutput } from '../io/safe-write.js';
 import { figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { renderFigure } from '../figure/output.js';
@@ -40,8 +40,8 @@ export async function buildGallery(dir: string): Promise<string[]> {
     const c = compute(spec);
     const fig = figureSettings(spec);
     const input = figureInput(c, fig);
-    writeAtomic(join(dir, `${name}.svg`), await renderFigure(input, 'svg'));
-    writeAtomic(join(dir, `${name}.pdf`), await renderFigure(input, 'pdf'));
+    await writeOutput(join(dir, `${name}.svg`), await renderFigure(input, 'svg'), { makeDirs: false });
+    await writeOutput(join(dir, `${name}.pdf`), await renderFigure(input, 'pdf'), { makeDirs: false });
     entries.push({ name, title: spec.title ?? name, text: describe(readFileSync(path, 'utf8')) });
     n++;
   }
@@ -65,7 +65,7 @@ export async function buildGallery(dir: string): Promise<string[]> {
       '',
     ]),
   ].join('\n');
-  writeAtomic(join(dir, 'README.md'), md);
+  await writeOutput(join(dir, 'README.md'), md, { makeDirs: false });
   return entries.map((e) => e.name);
 }
 

@@ -20,7 +20,7 @@ const HIDDEN_CHAR = /[\u202a-\u202e\u2066-\u2069\u200e\u200f\u061c\u200b\u2060-\
 export const FORBIDDEN_KEYS: readonly string[] = ['__proto__', 'constructor', 'prototype'];
 
 /** The strict decimal syntax of a number typed as text (no hex, no blanks, no Infinity). */
-const NUMBER_TEXT = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+export const NUMBER_TEXT = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 
 /** The known key nearest to `k` (edit distance ≤ 2, case-insensitive), for "did you mean". */
 export function closest(k: string, keys: readonly string[]): string | undefined {

@@ -4,8 +4,8 @@
  * deterministic output; bad input writes nothing (exit 2).
  */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { computeFile } from '../../src/pipeline.js';
 import { pdfText } from '../../src/render/pdf-text.js';
@@ -50,6 +50,8 @@ const squash = (s: string) => s.replace(/\s+/g, ' ');
 
 async function report(name: string): Promise<string> {
   const out = join(dir, name);
+  // -o never creates directories (src/cli/outputs.ts): the test makes the folder first.
+  mkdirSync(dirname(out), { recursive: true });
   const r = await runCli(['report', fe, '-o', out]);
   expect(r.stderr).toBe('');
   expect(r.code).toBe(0);
