@@ -143,16 +143,21 @@ function prepareTarget(path: string, makeDirs: boolean): void {
 /** Creates `tmp` exclusively (never following a link), writes, fsyncs and closes it. */
 async function writeTemp(tmp: string, target: string, data: string | Uint8Array, created: () => void): Promise<void> {
   let fh;
+  // Registered before the open: the file exists on disk as soon as the system call returns, before
+  // this function resumes, and a signal in between must still remove it. A signal while the open
+  // is pending removes the name if it exists — with a random 64-bit name, only our own file can be
+  // there (an exclusive create never opens anything planted).
+  registerTemp(tmp);
   try {
     fh = await open(tmp, TEMP_FLAGS, 0o666);
   } catch (e) {
+    unregisterTemp(tmp);
     // With a random name this only happens when something was planted there: never follow it.
     if (errnoCode(e) === 'EEXIST' || errnoCode(e) === 'ELOOP') {
       throw new OutputError(target, `something already exists at the temporary name ${basename(tmp)} (not followed, not removed)`, { cause: e });
     }
     throw toOutputError(target, e);
   }
-  registerTemp(tmp);
   created();
   try {
     await fh.writeFile(data);
