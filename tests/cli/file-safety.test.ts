@@ -195,6 +195,17 @@ describe('outputs that cannot be written: exit 3, "cannot write PATH: cause", no
     }
   });
 
+  it('an input error and a missing directory together: the input error (exit 2) wins, nothing written', async () => {
+    const { dir } = setup();
+    const bad = join(dir, 'bad.json');
+    writeFileSync(bad, '{"element": "Fe", "colour": "red"}\n');
+    const before = snapshot(dir);
+    const r = await cli(['draw', bad, '-o', join(dir, 'nope', 'fig.svg')]);
+    expect(r.code, r.stderr).toBe(2);
+    expect(r.stderr).toMatch(/^ephmap: .*bad\.json: colour: expected one of the known keys/);
+    expect(snapshot(dir)).toEqual(before);
+  });
+
   it('demo --out onto a file', async () => {
     const { dir } = setup();
     writeFileSync(join(dir, 'out'), 'a file');
@@ -215,6 +226,21 @@ describe('outputs that cannot be written: exit 3, "cannot write PATH: cause", no
     expect(r.code, r.stderr).toBe(3);
     expect(r.stderr).toBe(`ephmap: cannot write ${join(dir, 'fig.svg')}: permission denied\n`);
     expect(snapshot(dir)).toEqual(before);
+  });
+});
+
+describe('probe -o for one point', () => {
+  it('writes the JSON answer, the same bytes as --json prints', async () => {
+    const { dir, sys } = setup();
+    const out = join(dir, 'p.json');
+    const w = await cli(['probe', sys, '--ph', '7', '--potential', '0', '-o', out]);
+    expect(w.code, w.stderr).toBe(0);
+    expect(w.stdout).toBe(`wrote ${out}\n`);
+    const j = await cli(['probe', sys, '--ph', '7', '--potential', '0', '--json']);
+    expect(readFileSync(out, 'utf8')).toBe(j.stdout);
+    const csv = await cli(['probe', sys, '--ph', '7', '--potential', '0', '-o', join(dir, 'p.csv')]);
+    expect(csv.code).toBe(2);
+    expect(csv.stderr).toBe(`ephmap: command line: --output: expected a file name ending in .json, got ${JSON.stringify(join(dir, 'p.csv'))}\n`);
   });
 });
 
