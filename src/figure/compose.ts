@@ -3,6 +3,7 @@
  * (the same system re-solved at other activities), and the neutral-pH line at T.
  */
 import type { Computed } from '../pipeline.js';
+import type { DiagramModel } from '../model.js';
 import type { SystemSpec } from '../system/spec.js';
 import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
@@ -30,9 +31,23 @@ export function captionLines(c: Computed): string[] {
     if (m.temperature.celsius !== 25) bits.push(`neutral pH ${Number(w.neutralPH).toFixed(2)}`);
     if (bits.length) lines.push(`${bits.join('; ')}.`.replace(/^./, (ch) => ch.toUpperCase()));
   }
+  lines.push(...temperatureCaveats(m));
   const short = m.sources.map(shortSource).filter((s, k, a) => a.indexOf(s) === k);
   if (short.length) lines.push(`Data: ${short.join('; ')}.`);
   return lines;
+}
+
+/**
+ * Caption caveats on how species were carried to T: the undetermined ones (only ΔfG°: placed with
+ * the 25 °C value, no verdict) and the estimated ones (S° or HKF parameters estimated). None at 25 °C.
+ */
+export function temperatureCaveats(m: DiagramModel): string[] {
+  const und = [...new Set(m.species.filter((s) => s.temperatureModel === 'undetermined').map((s) => s.formula))];
+  const est = m.temperature.celsius === 25 ? [] : [...new Set(m.species.filter((s) => s.estimated).map((s) => s.formula))];
+  const bits: string[] = [];
+  if (und.length) bits.push(`undetermined, no verdict (ΔfG° only): ${und.join(', ')}`);
+  if (est.length) bits.push(`estimated data: ${est.join(', ')}`);
+  return bits.length ? [`At ${fmtCelsius(m.temperature.celsius)} °C, ${bits.join('; ')}.`] : [];
 }
 
 /** The same system with every dissolved species of the element at activity a (as an activity, no γ). */

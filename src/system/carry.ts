@@ -11,6 +11,8 @@
  *   'constant-cp'    constant Cp° (thermo/gibbs.ts)
  *   'constant-h-s'   no Cp°: constant ΔH and ΔS
  *   'constant-g'     the user's assumeConstantG override
+ *   'tabulated'      only ΔfG° given, at 25 °C, 1 atm (used as is)
+ *   'undetermined'   only ΔfG° given, elsewhere: G undefined (system/build.ts keeps it for geometry)
  * The explicit extrapolations 'cp' and 'constant-h-s' use the constant-Cp forms for every species.
  * S° comes from the data, else third-law from ΔfH°, else (library species only) the additive
  * estimate of data/entropy-estimate.ts, which flags the species estimated.
@@ -72,7 +74,7 @@ export function carrySpecies(s: ResolvedSpecies, ctx: CarryContext): Carried {
   const ent = entropyOf(s, ctx, atRef);
   if (!ent) {
     if (ctx.constantG) return { G: s.dfG, model: 'constant-g', estimated: false, estimatedWhat: [] };
-    return { G: atRef ? s.dfG : undefined, model: 'undetermined', estimated: false, estimatedWhat: [] };
+    return atRef ? { G: s.dfG, model: 'tabulated', estimated: false, estimatedWhat: [] } : { G: undefined, model: 'undetermined', estimated: false, estimatedWhat: [] };
   }
   const estimatedWhat = ent.estimated ? ['S°'] : [];
   // At 25 °C, 1 atm the tabulated ΔfG° is used as is: only the label is worked out (no model run).
