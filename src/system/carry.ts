@@ -144,9 +144,15 @@ export function carryProperties(s: ResolvedSpecies, ctx: CarryContext): CarriedP
   if (c.G === undefined) return c;
   const h = 0.02;
   const st = ctx.water;
-  const P = Math.max(st.pressureMPa, st.saturationPressureMPa);
+  // One pressure for the three points, at or above saturation at T + 2h, so that every point is
+  // liquid and the solvent pressure does not jump between them (a jump would swamp the second
+  // difference: ΔrCp of water ionisation came out at +16 000 J/(mol·K) at 200 °C; test).
+  // The stencil's centre stays ≥ h above 0 °C (the water model's lower end): at 0.01 °C the
+  // derivatives are taken at 0.02 °C (a 0.01 K shift, far below their precision).
+  const centre = Math.max(st.celsius, h);
+  const P = Math.max(st.pressureMPa, st.saturationPressureMPa, waterState(centre + 2 * h).saturationPressureMPa);
   const at = (dT: number): number => {
-    const w = waterState(st.celsius + dT, Math.max(P, 0.1));
+    const w = waterState(centre + dT, Math.max(P, 0.1));
     return carrySpecies(s, { ...ctx, water: { ...w, path: 'user' } }).G!;
   };
   const lo = at(-h);
