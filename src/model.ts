@@ -20,6 +20,11 @@ export interface RegionModel {
   class: RegionClass;
   /** Corrosion verdict of the region (reclassifications applied). */
   verdict?: 'immunity' | 'passivation' | 'corrosion';
+  /**
+   * True where the species could not be carried to the diagram temperature (only ΔfG° given): the
+   * region is placed with its 25 °C ΔfG° (geometry only) and has no verdict.
+   */
+  undetermined?: boolean;
   name?: string;
   polygons: Polygon[];
   /** Area in pH·V. */
@@ -122,7 +127,7 @@ export interface SpeciesSummary {
   molality?: number;
   /** log10 γ applied. */
   logGamma?: number;
-  /** How G was carried from 25 °C to T ('iapws', 'published', 'estimated', 'cp-polynomial', 'constant-cp', 'constant-h-s', 'constant-g', 'undetermined'). */
+  /** How G was carried from 25 °C to T ('iapws', 'published', 'estimated', 'cp-polynomial', 'constant-cp', 'constant-h-s', 'constant-g', 'tabulated' (only ΔfG°, at 25 °C), 'undetermined' (only ΔfG°, elsewhere: no verdict). */
   temperatureModel?: string;
   /** True where S° or equation-of-state parameters were estimated. */
   estimated?: boolean;

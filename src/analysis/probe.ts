@@ -9,13 +9,17 @@ import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { RegionClass } from '../model.js';
 import type { Computed } from '../pipeline.js';
 import { probeGeometry, psiAt } from '../solve/point.js';
+import type { SolverSpecies } from '../solve/types.js';
+
+/** A verdict, or 'unknown' where the species could not be carried to T (undetermined). */
+export type PointVerdict = Verdict | 'unknown';
 
 export interface Crossing {
   /** Change needed: V for potential, pH units for pH (signed). */
   shift: number;
   /** What lies beyond, with its verdict. */
   to: string;
-  verdict: Verdict;
+  verdict: PointVerdict;
   reaction: string;
 }
 
@@ -28,7 +32,8 @@ export interface ProbeResult {
   temperature: { celsius: number };
   predominant: string;
   class: RegionClass;
-  verdict: Verdict;
+  /** 'unknown' where the predominant species is undetermined at T (no temperature data). */
+  verdict: PointVerdict;
   /** Threshold activity of dissolved species the verdict refers to. */
   threshold: number;
   runnerUp: string | null;
@@ -40,6 +45,14 @@ export interface ProbeResult {
   nearestBoundary: { between: [string, string]; reaction: string; equation: string; distanceMV: number } | null;
   /** One sentence: which change of condition crosses first. */
   advice: string;
+  /** The diagram's warnings, led by the caveat for this point when its species is undetermined. */
+  warnings: string[];
+}
+
+/** The verdict of a species at T: 'unknown' when its G could not be carried there. */
+function pointVerdict(element: string, sp: SolverSpecies, classes: Record<string, Verdict>): PointVerdict {
+  if (sp.temperatureModel === 'undetermined') return 'unknown';
+  return verdictOf(classify(element, sp), sp.formula, classes);
 }
 
 export function probe(c: Computed, pH: number, E: number, ref?: { label: string; E: number; offset: number }): ProbeResult {
@@ -61,7 +74,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     const p = psiAt(input, x, y).psi;
     const k = p.indexOf(Math.min(...p));
     const sp = input.species[k];
-    return { formula: sp.formula, verdict: verdictOf(classify(input.element, sp), sp.formula, classes) };
+    return { formula: sp.formula, verdict: pointVerdict(input.element, sp, classes) };
   };
   const g = probeGeometry(c.model.boundaries, pH, E, input.kelvin);
   const cross = (x: { shift: number; boundary: { reaction: string } } | undefined, dx: number, dy: number): Crossing | null => {
@@ -81,7 +94,11 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
   const nearestE = dE.length ? dE.reduce((a, b) => (Math.abs(b) < Math.abs(a) ? b : a)) : null;
   const nearestP = dP.length ? dP.reduce((a, b) => (Math.abs(b) < Math.abs(a) ? b : a)) : null;
   const cls = classify(input.element, best);
-  const verdict = verdictOf(cls, best.formula, classes);
+  const verdict = pointVerdict(input.element, best, classes);
+  const warnings = [...c.model.warnings];
+  if (verdict === 'unknown') {
+    warnings.unshift(`no verdict here: ${best.formula} cannot be carried to ${c.model.temperature.celsius} °C (only ΔfG° given); its field is placed with its 25 °C ΔfG°`);
+  }
   const nb = g.nearest?.boundary;
   const r: ProbeResult = {
     pH,
@@ -98,6 +115,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP },
     nearestBoundary: nb ? { between: nb.between, reaction: nb.reaction, equation: nb.equation, distanceMV: g.nearest!.distanceV * 1000 } : null,
     advice: '',
+    warnings,
   };
   if (ref) r.reference = ref;
   r.advice = advice(r);

@@ -18,6 +18,8 @@ export interface WindowResult {
   /** pH where a solid first replaces the dissolved form above the metal, rising from the window. */
   firstSolid: { pH: number; species: string } | null;
   notes: string[];
+  /** The diagram's warnings, led by a caveat when a window is bounded by an undetermined species. */
+  warnings: string[];
 }
 
 export interface PlatingWindow {
@@ -131,5 +133,12 @@ export function platingWindow(model: DiagramModel): WindowResult {
     'Window: a dissolved species of the element lies directly above the metal, so the bath keeps the metal in solution and deposits it below E_dep.',
     'marginToHydrogen > 0: the metal deposits at a potential above the hydrogen line (before hydrogen evolution at equilibrium); overpotentials are not included.',
   ];
-  return { element: model.element, temperature: { celsius: model.temperature.celsius }, windows, firstSolid, notes };
+  const warnings = [...model.warnings];
+  const und = new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species));
+  const touched = windows.flatMap((w) => [...w.dissolved, w.boundedBy.low, w.boundedBy.high]).filter((x): x is string => x !== null && und.has(x));
+  const metalUnd = model.regions.some((r) => r.undetermined && r.class === 'element');
+  if (touched.length || metalUnd) {
+    warnings.unshift(`window edges undetermined at ${model.temperature.celsius} °C: ${[...new Set(touched)].join(', ') || 'the metal'} has only ΔfG° (placed with its 25 °C value)`);
+  }
+  return { element: model.element, temperature: { celsius: model.temperature.celsius }, windows, firstSolid, notes, warnings };
 }

@@ -8,7 +8,7 @@ import { EXIT, EphmapError, type ExitStatus } from '../errors.js';
 import { formulaWarnings, parseFormula, splitPhase, FormulaError, type Phase } from './formula.js';
 
 /** What a ReactionError is about: the reaction text, the electron count, or the reference electrode. */
-export type ReactionSubject = 'reaction' | 'electrons' | 'reference';
+export type ReactionSubject = 'reaction' | 'electrons' | 'reference' | 'activity';
 
 /**
  * A reaction the calculator cannot use (input error, exit status 2); `subject`, `expected` and

@@ -12,7 +12,7 @@ import { InputError } from '../system/errors.js';
 import { NUMBER_TEXT } from '../system/fields.js';
 import { listReferences } from '../thermo/reference.js';
 import { fileLookup } from '../system/lookup.js';
-import type { Extrapolation } from '../thermo/gibbs.js';
+import type { CellExtrapolation } from '../thermo/cell-energies.js';
 
 export interface CellDeps {
   lookup: SpeciesLookup;
@@ -29,12 +29,24 @@ interface CellCliOptions {
   ph?: string;
   json?: boolean;
   species?: string;
+  activity?: Record<string, number>;
 }
 
 const CLI = 'command line';
 
 /** The argument or option a reaction error is about. */
-const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--reference' };
+const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--reference', activity: '--activity' };
+
+/** `--activity SPECIES=VALUE` (repeatable) into a map; the value a positive number. */
+function activityOption(value: string, prev: Record<string, number> = {}): Record<string, number> {
+  const k = value.lastIndexOf('=');
+  const key = k > 0 ? value.slice(0, k).trim() : '';
+  const v = k > 0 ? Number(value.slice(k + 1)) : Number.NaN;
+  if (!key || !(v > 0) || !Number.isFinite(v)) throw new InputError(CLI, '--activity', 'SPECIES=VALUE with a positive value, e.g. Fe+2=1e-6 or O2(g)=0.21', JSON.stringify(value));
+  return { ...prev, [key]: v };
+}
+
+const EXTRAPOLATIONS = ['best', 'cp', 'constant-h-s'];
 
 const num = numberArg;
 
@@ -42,14 +54,15 @@ export function registerCell(program: Command, deps: CellDeps): void {
   program
     .command('cell')
     .description(
-      'ΔrG, ΔrH, ΔrS, equilibrium and thermoneutral potentials of a reaction, e.g. "2H2O(l) = 2H2(g) + O2(g)" ' +
-        'or "Cu+2 + 2e- = Cu(s)" (terms separated by " + ", "e-" is the electron)',
+      'ΔrG, ΔrH, ΔrS, ΔrCp, log K and, for redox reactions, equilibrium and thermoneutral potentials of a reaction, ' +
+        'e.g. "2H2O(l) = 2H2(g) + O2(g)", "Cu+2 + 2e- = Cu(s)" or "H2O(l) = H+ + OH-" (terms separated by " + ", "e-" is the electron)',
     )
     .argument('<reaction>', 'balanced reaction, quoted')
     .option('--temperature <C>', 'temperature, °C', '25')
     .option('--range <from:to:step>', 'table over temperatures, °C (e.g. 25:100:25)')
     .option('--electrons <N>', 'electrons transferred (for full reactions whose oxidation states are not decided)')
-    .option('--extrapolation <mode>', 'cp (constant Cp°) or constant-h-s (ΔH − TΔS)', 'cp')
+    .option('--extrapolation <mode>', "best (each species' own model: IAPWS water, HKF for aqueous species, Cp polynomials), cp (constant Cp°) or constant-h-s (ΔH − TΔS)", 'best')
+    .option('--activity <species=value>', 'activity of a species as written (gases: pressure in bar), e.g. Fe+2=1e-6; repeatable; others at 1', activityOption)
     .option('--reference <name>', 'also give half-reaction potentials against a reference electrode')
     .option('--ph <pH>', 'pH, for --reference rhe')
     .option('--species <file>', 'a system file whose inline species are used first (then the built-in library)')
@@ -57,9 +70,9 @@ export function registerCell(program: Command, deps: CellDeps): void {
     .addHelpText('after', `\nReference electrodes:\n${listReferences().map((l) => `  ${l}`).join('\n')}\n`)
     .action((reaction: string, opts: CellCliOptions) => {
       const out = deps.write ?? ((s: string) => void process.stdout.write(s));
-      const extrapolation = opts.extrapolation as Extrapolation;
-      if (extrapolation !== 'cp' && extrapolation !== 'constant-h-s') {
-        throw new InputError(CLI, '--extrapolation', '"cp" or "constant-h-s"', JSON.stringify(opts.extrapolation));
+      const extrapolation = opts.extrapolation as CellExtrapolation;
+      if (!EXTRAPOLATIONS.includes(extrapolation)) {
+        throw new InputError(CLI, '--extrapolation', '"best", "cp" or "constant-h-s"', JSON.stringify(opts.extrapolation));
       }
       const electrons = opts.electrons === undefined ? undefined : num(opts.electrons, '--electrons', 'a positive number of electrons');
       if (electrons !== undefined && !(electrons > 0)) throw new InputError(CLI, '--electrons', 'a positive number of electrons', opts.electrons);
@@ -80,7 +93,7 @@ export function registerCell(program: Command, deps: CellDeps): void {
       }
       if (temperatures.some((t) => t <= -273.15)) throw new InputError(CLI, opts.range ? '--range' : '--temperature', 'temperatures above −273.15 °C', opts.range ?? opts.temperature);
       const lookup = opts.species === undefined ? deps.lookup : fileLookup(opts.species, deps.lookup);
-      const cellOpts = { lookup, electrons, extrapolation, reference: opts.reference, pH };
+      const cellOpts = { lookup, electrons, extrapolation, reference: opts.reference, pH, activities: opts.activity };
       let rows: CellResult[];
       try {
         rows = temperatures.length === 1 && opts.range === undefined
@@ -90,7 +103,8 @@ export function registerCell(program: Command, deps: CellDeps): void {
         if (e instanceof ReactionError) throw new InputError(CLI, REACTION_FIELD[e.subject], e.expected, e.got);
         throw e;
       }
-      if (opts.json) out(stableJson(rows.length === 1 && opts.range === undefined ? rows[0] : { reaction: rows[0]!.reaction, rows }));
+      const warnings = [...new Set(rows.flatMap((r) => r.warnings))];
+      if (opts.json) out(stableJson(rows.length === 1 && opts.range === undefined ? rows[0] : { reaction: rows[0]!.reaction, rows, warnings }));
       else out(cellText(rows));
     });
 }

@@ -75,7 +75,7 @@ export function registerCore(program: Command): void {
       warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
       const rows = lineRows(c.model, ref);
       if (opts.json) {
-        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, ...(ref ? { reference: { id: ref.id, label: ref.label, offset: ref.offset } } : {}), lines: rows, waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water }));
+        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, ...(ref ? { reference: { id: ref.id, label: ref.label, offset: ref.offset } } : {}), lines: rows, waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water, warnings: [...c.model.warnings, ...(ref?.warnings ?? [])] }));
       } else process.stdout.write(linesText(c.model, ref));
     });
 }

@@ -46,6 +46,11 @@ export function buildModel(
       const sp = input.species[r.index];
       const cls = classify(input.element, sp);
       const m: RegionModel = { species: sp.formula, phase: sp.phase, class: cls, verdict: verdictOf(cls, sp.formula, meta.classes), polygons: r.polygons, area: r.area };
+      // No verdict where G at T is unknown (system/build.ts gAt): the field is geometry only.
+      if (sp.temperatureModel === 'undetermined') {
+        delete m.verdict;
+        m.undetermined = true;
+      }
       if (sp.name) m.name = sp.name;
       return m;
     });

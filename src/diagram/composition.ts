@@ -55,6 +55,11 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     const cls = classify(input.element, sp);
     const m: RegionModel = { species: sp.formula, phase: sp.phase, class: cls, verdict: verdictOf(cls, sp.formula, spec.operating.classes), polygons: r.polygons, area: r.area };
     if (sp.name) m.name = sp.name;
+    // No verdict where G at T is unknown (system/build.ts gAt), as in the fixed-activity model.
+    if (input.species.some((x) => x.formula === sp.formula && x.phase === sp.phase && x.temperatureModel === 'undetermined')) {
+      delete m.verdict;
+      m.undetermined = true;
+    }
     return m;
   });
   const triples = joinTriplePoints(field, g, traced.boundaries);

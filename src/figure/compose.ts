@@ -3,6 +3,7 @@
  * (the same system re-solved at other activities), and the neutral-pH line at T.
  */
 import type { Computed } from '../pipeline.js';
+import type { DiagramModel } from '../model.js';
 import type { SystemSpec } from '../system/spec.js';
 import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
@@ -25,14 +26,43 @@ export function captionLines(c: Computed): string[] {
   const w = m.water;
   if (w) {
     const bits: string[] = [];
-    if (Number(w.temperatureC) >= 100 || w.pressurePath === 'user') bits.push(`liquid water at ${Number(w.pressureMPa).toPrecision(3)} MPa${w.pressurePath === 'saturation' ? ' (saturation pressure)' : ''}`);
+    if (Number(w.temperatureC) >= 100 || w.pressurePath === 'user') bits.push(`${w.pressurePath === 'saturation' ? 'saturated ' : ''}liquid water at ${Number(w.pressureMPa).toPrecision(3)} MPa`);
     if (Number(w.ionicStrength) > 0) bits.push(`ionic strength ${Number(w.ionicStrength).toPrecision(3)} mol/kg (${w.activityModel})`);
     if (m.temperature.celsius !== 25) bits.push(`neutral pH ${Number(w.neutralPH).toFixed(2)}`);
     if (bits.length) lines.push(`${bits.join('; ')}.`.replace(/^./, (ch) => ch.toUpperCase()));
   }
+  lines.push(...temperatureCaveats(m));
   const short = m.sources.map(shortSource).filter((s, k, a) => a.indexOf(s) === k);
   if (short.length) lines.push(`Data: ${short.join('; ')}.`);
   return lines;
+}
+
+/** Names joined with ', ' up to about `budget` characters, then "+N more" (the warnings list all). */
+function someNames(names: readonly string[], budget: number): string {
+  const shown: string[] = [];
+  let used = 0;
+  for (const n of names) {
+    if (shown.length && used + n.length + 2 > budget) break;
+    shown.push(n);
+    used += n.length + 2;
+  }
+  const more = names.length - shown.length;
+  return `${shown.join(', ')}${more ? ` +${more} more` : ''}`;
+}
+
+/**
+ * Caption caveats on how species were carried to T, kept short so the default figure still fits:
+ * the undetermined species (only ΔfG°: placed with the 25 °C value, no verdict), every one named,
+ * and the estimated ones (S° or HKF parameters estimated), named up to about 30 characters (the
+ * warnings name them all). Nothing at 25 °C.
+ */
+export function temperatureCaveats(m: DiagramModel): string[] {
+  const und = [...new Set(m.species.filter((s) => s.temperatureModel === 'undetermined').map((s) => s.formula))];
+  const est = m.temperature.celsius === 25 ? [] : [...new Set(m.species.filter((s) => s.estimated).map((s) => s.formula))];
+  const out: string[] = [];
+  if (und.length) out.push(`Undetermined, no verdict (ΔfG° only): ${und.join(', ')}.`);
+  if (est.length) out.push(`Estimated T data: ${someNames(est, 30)}.`);
+  return out;
 }
 
 /** The same system with every dissolved species of the element at activity a (as an activity, no γ). */

@@ -87,7 +87,7 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
       label: formulaUnicode(r.species),
       formula: r.species,
       name: r.name ?? '',
-      reading: r.verdict ?? verdictOf(r.class, r.species),
+      reading: r.undetermined ? 'unknown' : r.verdict ?? verdictOf(r.class, r.species),
       polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
     })),
     boundaries: model.boundaries.map((b) => ({

@@ -26,6 +26,12 @@ export const CLASS_TINTS: Record<RegionClass, readonly string[]> = {
   gas: ['#e7d6ea', '#90889f', '#beaec1'],
 };
 
+/**
+ * Fill of a region whose species could not be carried to the diagram temperature (undetermined: no
+ * verdict). A neutral grey (no chroma, L* ≈ 79), unlike every class tint; its legend entry says so.
+ */
+export const UNDETERMINED_FILL = '#c4c4c4';
+
 /** The tint group that shows each verdict when a region is reclassified away from its class's own. */
 const VERDICT_GROUP: Record<Verdict, RegionClass> = { immunity: 'element', passivation: 'solid', corrosion: 'dissolved' };
 

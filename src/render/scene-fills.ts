@@ -5,7 +5,7 @@
 import type { DiagramModel } from '../model.js';
 import { clipRing } from './clip.js';
 import { insideRings, ringArea, simplifyCollinear } from './geometry.js';
-import { assignFills, fillGroup } from './palette.js';
+import { assignFills, fillGroup, UNDETERMINED_FILL } from './palette.js';
 import type { SceneContext } from './scene-context.js';
 import type { Point, SceneItem } from './scene-types.js';
 
@@ -57,6 +57,8 @@ export function buildFills(ctx: SceneContext): RegionFills {
     o.style,
     o.colors,
   );
+  // Undetermined regions (no G at T, no verdict) take their own neutral fill in the tinted styles.
+  if (o.style !== 'lines') model.regions.forEach((r, i) => r.undetermined && (fills[i] = UNDETERMINED_FILL));
   const items: SceneItem[] = [];
   model.regions.forEach((r, i) => {
     if (rings[i]!.length === 0) return;

@@ -5,7 +5,7 @@
 import type { RegionClass } from '../model.js';
 import { textBox, baselineForCentre } from './labels.js';
 import { CAP_HEIGHT, runsWidth } from './metrics.js';
-import { CLASS_NAMES, CLASS_TINTS, fillGroup, toGray } from './palette.js';
+import { CLASS_NAMES, CLASS_TINTS, fillGroup, toGray, UNDETERMINED_FILL } from './palette.js';
 import { dashStroke, line, overlayInk, parseDash, PROSE_SAFETY, rectPath, text, wrapText, type LegendEntry, type SceneBase, type SceneContext } from './scene-context.js';
 import type { SceneItem, TextRun } from './scene-types.js';
 import { formulaRuns, plainRuns, powerOfTenRuns, richRuns } from './typeset.js';
@@ -26,8 +26,9 @@ export function captionLines(b: SceneBase, capSize: number, innerW: number): { t
 /** Class swatches, by tint group: a region's class, or the group of the verdict it was reclassified to. */
 function swatchEntries(b: SceneBase): LegendEntry[] {
   const { o, model } = b;
-  const present = new Set<RegionClass>(model.regions.map((r) => fillGroup(r.class, r.verdict)));
-  const reclassified = (c: RegionClass): string[] => [...new Set(model.regions.filter((r) => r.class !== c && fillGroup(r.class, r.verdict) === c).map((r) => r.species))].sort();
+  const known = model.regions.filter((r) => !r.undetermined);
+  const present = new Set<RegionClass>(known.map((r) => fillGroup(r.class, r.verdict)));
+  const reclassified = (c: RegionClass): string[] => [...new Set(known.filter((r) => r.class !== c && fillGroup(r.class, r.verdict) === c).map((r) => r.species))].sort();
   const out: LegendEntry[] = [];
   for (const c of ['element', 'solid', 'dissolved', 'gas'] as RegionClass[]) {
     if (!present.has(c)) continue;
@@ -35,6 +36,11 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
     const moved = reclassified(c);
     const runs = moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
     out.push({ kind: 'swatch', fill: o.style === 'gray' ? toGray(tint) : tint, runs });
+  }
+  const und = [...new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species))].sort();
+  if (und.length) {
+    // Short, to share a legend row; the caption names the species (figure/compose.ts).
+    out.push({ kind: 'swatch', fill: UNDETERMINED_FILL, runs: plainRuns('undetermined') });
   }
   return out;
 }

@@ -78,6 +78,7 @@ export function catalogText(entries: CatalogEntry[]): string {
     n(e.dfH, 2),
     n(e.S, 2),
     n(e.Cp, 2),
+    `${e.temperatureModel}${e.estimated ? ` (estimated: ${e.estimated.join(', ')})` : ''}`,
     `${e.source}${e.recalled ? '*' : ''}${e.metastable ? ' (metastable)' : ''}${e.alternatives ? ` [alt: ${e.alternatives.map((a) => a.id).join(', ')}]` : ''}`,
   ]);
   const sources = new Map<string, string>();
@@ -85,7 +86,10 @@ export function catalogText(entries: CatalogEntry[]): string {
     sources.set(e.source, e.sourceText);
     for (const a of e.alternatives ?? []) sources.set(a.source, a.sourceText);
   }
-  const body = table(['formula', 'phase', 'name', 'ΔfG°/(kJ/mol)', 'ΔfH°/(kJ/mol)', 'S°/(J/(mol·K))', 'Cp°/(J/(mol·K))', 'source'], rows, [false, false, false, true, true, true, true, false]);
+  const body = table(['formula', 'phase', 'name', 'ΔfG°/(kJ/mol)', 'ΔfH°/(kJ/mol)', 'S°/(J/(mol·K))', 'Cp°/(J/(mol·K))', 'temperature model', 'source'], rows, [false, false, false, true, true, true, true, false, false]);
   const refs = [...sources.entries()].sort().map(([k, v]) => `  ${k}: ${v}`).join('\n');
-  return `${body}\n\n* recalled from memory, not read from the source.\nSources:\n${refs}\n`;
+  const est = entries.some((e) => e.estimated)
+    ? 'temperature model "estimated": S° or HKF parameters estimated by published correlations (species/README.md lists them).\n'
+    : '';
+  return `${body}\n\n* recalled from memory, not read from the source.\n${est}Sources:\n${refs}\n`;
 }

@@ -83,7 +83,8 @@ export function linesText(model: DiagramModel, ref?: DisplayReference): string {
       ) + '\n'
     : '';
   const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${w.reaction}: ${w.equation}`).join('\n');
-  return `${head}\n\n${body}\n${actText}\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n`;
+  const warn = model.warnings.length ? `\nWarnings:\n${model.warnings.map((w) => `  ${w}`).join('\n')}\n` : '';
+  return `${head}\n\n${body}\n${actText}\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n${warn}`;
 }
 
 function fmtA(a: number): string {

@@ -49,7 +49,7 @@ export function parsePointsCsv(text: string, file: string): PointRow[] {
   return rows;
 }
 
-const HEAD = ['line', 'label', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice'];
+const HEAD = ['line', 'label', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice', 'warnings'];
 
 function cell(v: string | number | null | undefined): string {
   if (v === null || v === undefined) return '';
@@ -61,7 +61,7 @@ export function pointsCsv(rows: { row: PointRow; scale: string; result: ProbeRes
   const out = [HEAD.join(',')];
   for (const { row, scale, result: r } of rows) {
     out.push(
-      [row.line, row.label ?? '', row.pH, row.potential, scale, r.E, r.temperature.celsius, r.predominant, r.verdict, r.runnerUp, r.margin.kJPerMol, r.distance.mV, r.distance.pH, r.nearestBoundary?.reaction ?? '', r.advice]
+      [row.line, row.label ?? '', row.pH, row.potential, scale, r.E, r.temperature.celsius, r.predominant, r.verdict, r.runnerUp, r.margin.kJPerMol, r.distance.mV, r.distance.pH, r.nearestBoundary?.reaction ?? '', r.advice, r.warnings.join(' | ')]
         .map(cell)
         .join(','),
     );

@@ -27,6 +27,7 @@ export function probeText(r: ProbeResult): string {
   }
   lines.push(r.advice);
   if (r.nearestBoundary) lines.push(`nearest boundary: ${r.nearestBoundary.between.join(' / ')}: ${r.nearestBoundary.reaction} [${r.nearestBoundary.equation}]`);
+  if (r.warnings.length) lines.push('warnings:', ...r.warnings.map((w) => `  ${w}`));
   lines.push('Equilibrium thermodynamics only — not kinetics; follow the applicable codes and a qualified corrosion professional.');
   return `${lines.join('\n')}\n`;
 }

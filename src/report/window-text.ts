@@ -13,7 +13,8 @@ export function windowHeading(m: DiagramModel): string {
 
 export function windowText(r: WindowResult, head: string): string {
   const v = (x: number) => `${x >= 0 ? '+' : ''}${x.toFixed(3)}`;
-  if (!r.windows.length) return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n`;
+  const warn = r.warnings.length ? `warnings:\n${r.warnings.map((w) => `  ${w}`).join('\n')}\n` : '';
+  if (!r.windows.length) return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n${warn}`;
   const rows = r.windows.map((w) => [
     `${w.pH[0].toFixed(2)}–${w.pH[1].toFixed(2)}`,
     w.dissolved.join(', '),
@@ -23,5 +24,5 @@ export function windowText(r: WindowResult, head: string): string {
   ]);
   const t = table(['pH range', 'dissolved form', 'E_dep at ends / V vs SHE', 'E_dep − E(H2) / V', 'bounded by (low / high pH)'], rows);
   const fs = r.firstSolid ? `First solid above the window: ${r.firstSolid.species} from pH ${r.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.';
-  return `${head}\n\n${t}\n\n${fs}\n${r.notes.map((n) => `Note: ${n}`).join('\n')}\nEquilibrium thermodynamics only — not kinetics; check against the bath supplier's data and a qualified plating professional.\n`;
+  return `${head}\n\n${t}\n\n${fs}\n${r.notes.map((n) => `Note: ${n}`).join('\n')}\nEquilibrium thermodynamics only — not kinetics; check against the bath supplier's data and a qualified plating professional.\n${warn}`;
 }

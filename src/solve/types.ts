@@ -30,9 +30,10 @@ export interface SolverSpecies {
 
 /**
  * How a species' G was carried to T: 'iapws' (water), 'published' or 'estimated' (HKF parameters),
- * 'cp-polynomial', 'constant-cp', 'constant-h-s', 'constant-g' (user override), 'undetermined'.
+ * 'cp-polynomial', 'constant-cp', 'constant-h-s', 'constant-g' (user override), 'tabulated' (only
+ * ΔfG° given, used as is at 25 °C, 1 atm), 'undetermined' (only ΔfG° given, away from 25 °C).
  */
-export type TemperatureModel = 'iapws' | 'published' | 'estimated' | 'cp-polynomial' | 'constant-cp' | 'constant-h-s' | 'constant-g' | 'undetermined';
+export type TemperatureModel = 'iapws' | 'published' | 'estimated' | 'cp-polynomial' | 'constant-cp' | 'constant-h-s' | 'constant-g' | 'tabulated' | 'undetermined';
 
 export interface LigandInput {
   element: string;

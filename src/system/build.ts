@@ -205,11 +205,17 @@ export function groupElements(elements: Record<string, number>, groups: Record<s
   return out;
 }
 
-/** Carry a species to T (carry.ts); an inline species that cannot be carried is refused. */
+/**
+ * Carry a species to T (carry.ts). A species that cannot be carried (an inline species with only
+ * ΔfG°) stays in the system as 'undetermined': its 25 °C ΔfG° is used for the GEOMETRY only (where
+ * its field would lie if G did not change with T), its region is marked undetermined and gets no
+ * verdict, and a warning naming it goes into every output.
+ */
 export function gAt(s: ResolvedSpecies, spec: SystemSpec, ctx: Omit<CarryContext, 'constantG'>, warnings: string[]): Carried & { G: number } {
   const c = carrySpecies(s, { ...ctx, constantG: constantG(spec, s.formula) });
   if (c.G === undefined) {
-    throw new InputError(spec.file, `${s.field} (${s.formula})`, `S (J/(mol·K)) or dfH (kJ/mol) to use it at ${spec.temperature} °C (or list it under assumeConstantG)`);
+    warnings.push(`${UNDET_WARN}${s.formula}`);
+    return { ...c, G: s.dfG, model: 'undetermined' };
   }
   if (!Number.isFinite(c.G)) {
     throw new InputError(spec.file, `${s.field} (${s.formula})`, `temperature data that give a finite G at ${spec.temperature} °C (check its hkf or cpPolynomial values)`);
@@ -339,16 +345,27 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
 const CP_WARN = 'no Cp: ';
 const CONST_G_WARN = 'constant G: ';
 const EST_WARN = 'estimated: ';
+const UNDET_WARN = 'undetermined: ';
 
 /** The user's explicit override: take ΔfG° as constant with T for this species (no S°, no ΔfH°). */
 function constantG(spec: SystemSpec, formula: string): boolean {
   return spec.assumeConstantG === true || (Array.isArray(spec.assumeConstantG) && spec.assumeConstantG.includes(formula));
 }
 
+/**
+ * Start of the warning naming the species that could not be carried to T (only ΔfG° given): their
+ * fields are placed with the 25 °C ΔfG° and carry no verdict. Outputs match on the model's
+ * `temperatureModel: 'undetermined'`, never on this text.
+ */
+export const UNDETERMINED_CAVEAT =
+  'undetermined away from 25 °C (only ΔfG° given, no S° or ΔfH°; field placed with the 25 °C ΔfG°, no verdict there): ';
+
 /** One warning for all species used without Cp far from 25 °C. */
 export function collapseCpWarnings(ws: string[]): string[] {
   const cp = ws.filter((w) => w.startsWith(CP_WARN)).map((w) => w.slice(CP_WARN.length));
-  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN) && !w.startsWith(EST_WARN));
+  const rest = ws.filter((w) => !w.startsWith(CP_WARN) && !w.startsWith(CONST_G_WARN) && !w.startsWith(EST_WARN) && !w.startsWith(UNDET_WARN));
+  const und = ws.filter((w) => w.startsWith(UNDET_WARN)).map((w) => w.slice(UNDET_WARN.length));
+  if (und.length) rest.unshift(`${UNDETERMINED_CAVEAT}${[...new Set(und)].join(', ')}`);
   const est = ws.filter((w) => w.startsWith(EST_WARN)).map((w) => w.slice(EST_WARN.length));
   if (est.length) rest.push(`carried to temperature with estimated data (S° or equation-of-state parameters; see species/README.md): ${[...new Set(est)].join(', ')}`);
   const cg = ws.filter((w) => w.startsWith(CONST_G_WARN)).map((w) => w.slice(CONST_G_WARN.length));

@@ -11,6 +11,8 @@
  *   'constant-cp'    constant Cp° (thermo/gibbs.ts)
  *   'constant-h-s'   no Cp°: constant ΔH and ΔS
  *   'constant-g'     the user's assumeConstantG override
+ *   'tabulated'      only ΔfG° given, at 25 °C, 1 atm (used as is)
+ *   'undetermined'   only ΔfG° given, elsewhere: G undefined (system/build.ts keeps it for geometry)
  * The explicit extrapolations 'cp' and 'constant-h-s' use the constant-Cp forms for every species.
  * S° comes from the data, else third-law from ΔfH°, else (library species only) the additive
  * estimate of data/entropy-estimate.ts, which flags the species estimated.
@@ -72,7 +74,7 @@ export function carrySpecies(s: ResolvedSpecies, ctx: CarryContext): Carried {
   const ent = entropyOf(s, ctx, atRef);
   if (!ent) {
     if (ctx.constantG) return { G: s.dfG, model: 'constant-g', estimated: false, estimatedWhat: [] };
-    return { G: atRef ? s.dfG : undefined, model: 'undetermined', estimated: false, estimatedWhat: [] };
+    return atRef ? { G: s.dfG, model: 'tabulated', estimated: false, estimatedWhat: [] } : { G: undefined, model: 'undetermined', estimated: false, estimatedWhat: [] };
   }
   const estimatedWhat = ent.estimated ? ['S°'] : [];
   // At 25 °C, 1 atm the tabulated ΔfG° is used as is: only the label is worked out (no model run).
@@ -142,9 +144,15 @@ export function carryProperties(s: ResolvedSpecies, ctx: CarryContext): CarriedP
   if (c.G === undefined) return c;
   const h = 0.02;
   const st = ctx.water;
-  const P = Math.max(st.pressureMPa, st.saturationPressureMPa);
+  // One pressure for the three points, at or above saturation at T + 2h, so that every point is
+  // liquid and the solvent pressure does not jump between them (a jump would swamp the second
+  // difference: ΔrCp of water ionisation came out at +16 000 J/(mol·K) at 200 °C; test).
+  // The stencil's centre stays ≥ h above 0 °C (the water model's lower end): at 0.01 °C the
+  // derivatives are taken at 0.02 °C (a 0.01 K shift, far below their precision).
+  const centre = Math.max(st.celsius, h);
+  const P = Math.max(st.pressureMPa, st.saturationPressureMPa, waterState(centre + 2 * h).saturationPressureMPa);
   const at = (dT: number): number => {
-    const w = waterState(st.celsius + dT, Math.max(P, 0.1));
+    const w = waterState(centre + dT, Math.max(P, 0.1));
     return carrySpecies(s, { ...ctx, water: { ...w, path: 'user' } }).G!;
   };
   const lo = at(-h);

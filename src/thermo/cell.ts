@@ -18,13 +18,19 @@
  *   signed values −ΔrG/(nF), −ΔrH/(nF), ΔrS/(nF) are given under `signed`.
  * Worked example (NBS 1982 data, Wagman et al.): 2H2O(l) = 2H2(g) + O2(g) at 25 °C:
  *   ΔrG = 474.258 kJ/mol, n = 4 → 1.2288 V; ΔrH = 571.660 kJ/mol → 1.4812 V.
- * Validity: the constant-Cp extrapolation is good over roughly 0–300 °C; constant ΔH/ΔS over some
+ * Energies at T come from cell-energies.ts: by default ('best') each species' own model (IAPWS
+ * water, revised HKF for aqueous species, Cp polynomials; system/carry.ts through the resolver's
+ * `propertiesAt`), else constant Cp° or constant ΔH/ΔS. A reaction without electron transfer
+ * (hydrolysis, solubility, ionisation) gives ΔrG°, ΔrH°, ΔrS°, ΔrCp° and log K = −ΔrG°/(RT ln 10)
+ * only; `activities` adds ΔrG and E at those activities (cell-conditions.ts).
+ * Validity: 0–300 °C on the liquid-water path for the species models; constant ΔH/ΔS over some
  * tens of K around 25 °C. Standard states: unit activity for dissolved species, 1 bar for gases.
  * Reference: any physical-chemistry text (ΔG = −nFE; Gibbs–Helmholtz); H.C. Helgeson et al.,
  * Am. J. Sci. 281 (1981) 1249 for the apparent convention.
  */
-import { F, KELVIN, T_REF } from './constants.js';
-import { apparentG, apparentH, entropyAt, type Extrapolation } from './gibbs.js';
+import { F, KELVIN, LN10, R } from './constants.js';
+import { type CellExtrapolation, reactionEnergies, type SpeciesAtT } from './cell-energies.js';
+import { type AtConditions, atConditions } from './cell-conditions.js';
 import type { Phase } from '../chem/formula.js';
 import { electronsTransferred } from '../chem/oxidation.js';
 import { parseReaction, ReactionError, type ParsedReaction, type Term } from '../chem/reaction-parse.js';
@@ -46,6 +52,8 @@ export interface SpeciesData {
   phase?: Phase;
   /** Where the values come from. */
   source?: string;
+  /** G, H, S, Cp at a temperature (°C) by the species' own model (system/carry.ts), for the 'best' mode. */
+  propertiesAt?: (celsius: number) => SpeciesAtT;
 }
 
 /** Finds a species by formula and phase (phase undefined when the reaction text gives no tag). */
@@ -57,7 +65,10 @@ export interface CellOptions {
   celsius?: number;
   /** Electrons transferred; overrides the oxidation-state count of a full reaction. */
   electrons?: number;
-  extrapolation?: Extrapolation;
+  /** 'best' (default: each species' own model), 'cp' or 'constant-h-s' (cell-energies.ts). */
+  extrapolation?: CellExtrapolation;
+  /** Activities (gases: pressures in bar) by species as written, e.g. {"Fe+2": 1e-6}; others at 1. */
+  activities?: Record<string, number>;
   /** Also give the half-reaction potentials against this reference electrode. */
   reference?: string | CustomReference;
   /** pH for the RHE. */
@@ -80,11 +91,13 @@ const H2_FALLBACK: SpeciesData = {
   source: 'NBS Tables (Wagman et al., 1982), recalled from memory',
 };
 
-export type CellDirection = 'reduction' | 'oxidation' | 'electrolytic' | 'galvanic';
+/** 'none': a reaction without electron transfer (hydrolysis, solubility, ionisation). */
+export type CellDirection = 'reduction' | 'oxidation' | 'electrolytic' | 'galvanic' | 'none';
 
 export interface CellResult {
   reaction: string;
-  kind: 'half' | 'full';
+  /** 'chemical': no electron transfer (n = 0, no potentials). */
+  kind: 'half' | 'full' | 'chemical';
   temperature: { celsius: number; kelvin: number };
   n: number;
   /** How n was found: the electrons written, the oxidation-state count, or given by the user. */
@@ -94,17 +107,23 @@ export interface CellResult {
   deltaH: number | null;
   /** J/(mol·K). */
   deltaS: number | null;
-  /** V: electrode potential vs SHE (half) or cell voltage magnitude (full). */
-  equilibriumPotential: number;
+  /** J/(mol·K). */
+  deltaCp: number | null;
+  /** log10 K = −ΔrG°/(R·T·ln10) of the reaction as written (half-reactions: completed with the SHE). */
+  logK: number;
+  /** V: electrode potential vs SHE (half) or cell voltage magnitude (full); null without electrons. */
+  equilibriumPotential: number | null;
   thermoneutralPotential: number | null;
   /** V/K: slope of `equilibriumPotential`. */
   dEdT: number | null;
   direction: CellDirection;
   scale: string;
   convention: string;
-  signed: { equilibriumPotential: number; thermoneutralPotential: number | null; dEdT: number | null };
+  signed: { equilibriumPotential: number | null; thermoneutralPotential: number | null; dEdT: number | null };
+  /** At the activities given (`activities` option): log Q, ΔrG and the potential. */
+  atConditions?: AtConditions;
   /** Half-reactions with `reference`: the same potentials against that electrode. */
-  reference?: { label: string; offset: number; equilibriumPotential: number; thermoneutralPotential: number | null };
+  reference?: { label: string; offset: number; equilibriumPotential: number; thermoneutralPotential: number | null; atConditions?: number };
   species: { formula: string; phase: Phase | null; coefficient: number; source: string }[];
   warnings: string[];
 }
@@ -113,6 +132,9 @@ const HALF_CONVENTION =
   'Electrode potential of the couple written as a reduction (ox + n e- = red), on the SHE scale at the same temperature: ' +
   'E = -ΔrG/(nF) with the electrons supplied by the SHE (n/2 H2 = n H+ + n e-); thermoneutral potential -ΔrH/(nF); ' +
   'dE/dT = ΔrS/(nF). Unit activities, gases at 1 bar.';
+const CHEMICAL_CONVENTION =
+  'Reaction without electron transfer: ΔrG°, ΔrH°, ΔrS°, ΔrCp° and log K = -ΔrG°/(RT ln 10) of the reaction as written. ' +
+  'Unit activities, gases at 1 bar.';
 const FULL_CONVENTION =
   'Cell voltage |ΔrG|/(nF) of the reaction as written: electrolytic when ΔrG > 0 (must be driven), galvanic when ΔrG < 0 ' +
   '(delivers work); thermoneutral voltage ΔrH/(nF) if electrolytic, -ΔrH/(nF) if galvanic; dEdT is the slope of the reported ' +
@@ -126,7 +148,7 @@ interface Resolved {
 
 interface Prepared {
   parsed: ParsedReaction;
-  kind: 'half' | 'full';
+  kind: CellResult['kind'];
   n: number;
   nFrom: CellResult['nFrom'];
   /** Sign of the reaction as written relative to the reduction (half-reactions): +1 reduction, −1 oxidation. */
@@ -144,7 +166,7 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
   const warnings = [...parsed.warnings];
   const src = parsed.text;
   const nuE = parsed.terms.filter((t) => t.electron).reduce((a, t) => a + t.side * t.coefficient, 0);
-  let kind: 'half' | 'full';
+  let kind: CellResult['kind'];
   let n: number;
   let nFrom: CellResult['nFrom'];
   let sense: 1 | -1 = 1;
@@ -172,7 +194,10 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
     } else if (found === undefined) {
       throw new ReactionError(src, 'species whose oxidation states follow from the usual rules', 'an undecided oxidation state; give the number of electrons transferred (--electrons N)');
     } else if (!(found > 1e-9)) {
-      throw new ReactionError(src, 'a redox reaction (some oxidation state changes)', 'no electron transfer; give --electrons N if one is meant');
+      // No electron transfer: hydrolysis, solubility, ionisation — energies and log K only.
+      kind = 'chemical';
+      n = 0;
+      nFrom = 'oxidation states';
     } else {
       n = found;
       nFrom = 'oxidation states';
@@ -213,56 +238,14 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
   return { parsed, kind, n, nFrom, sense, resolved, species, warnings };
 }
 
-/** Step 1: ΔrG (kJ/mol), ΔrH (kJ/mol) and ΔrS (J/(mol·K)) at T, with the data-coverage warnings. */
-function reactionEnergies(p: Prepared, celsius: number, mode: Extrapolation, warnings: string[]): { dG: number; dH: number | null; dS: number | null } {
-  const T = celsius + KELVIN;
-  const at25 = Math.abs(T - T_REF) < 1e-9;
-  let dG = 0;
-  let dH: number | null = 0;
-  let dS: number | null = 0;
-  const noS = p.resolved.filter((r) => r.data.S === undefined).map((r) => r.name);
-  const noH = p.resolved.filter((r) => r.data.dfH === undefined).map((r) => r.name);
-  if (noS.length === 0) {
-    for (const { nu, data } of p.resolved) {
-      dG += nu * apparentG(data, T, mode);
-      dS += nu * entropyAt(data, T, mode);
-      if (dH !== null) dH = data.dfH === undefined ? null : dH + nu * apparentH(data, T, mode);
-    }
-  } else {
-    // Reaction-level route when some S° are missing: ΔrS° = (ΔrH° − ΔrG°)/T_r, then constant ΔCp.
-    const G0 = p.resolved.reduce((a, r) => a + r.nu * r.data.dfG, 0);
-    if (noH.length > 0) {
-      if (!at25) {
-        throw new ReactionError(p.parsed.text, 'S° or ΔfH° for every species away from 25 °C', `only ΔfG° for ${noH.filter((x) => noS.includes(x)).join(', ')}`);
-      }
-      dG = G0;
-      dH = null;
-      dS = null;
-    } else {
-      const H0 = p.resolved.reduce((a, r) => a + r.nu * r.data.dfH!, 0);
-      const S0 = ((H0 - G0) * 1000) / T_REF;
-      const dCp = mode === 'cp' ? p.resolved.reduce((a, r) => a + r.nu * (r.data.Cp ?? 0), 0) : 0;
-      dH = H0 + (dCp * (T - T_REF)) / 1000;
-      dS = S0 + dCp * Math.log(T / T_REF);
-      dG = dH - (T * dS) / 1000;
-      if (!at25) warnings.push(`no S° for ${noS.join(', ')}: ΔrS° taken from (ΔrH° − ΔrG°)/298.15 K`);
-    }
-  }
-  if (!at25 && Math.abs(T - T_REF) > 50) {
-    if (mode === 'cp') {
-      const noCp = p.resolved.filter((r) => r.data.Cp === undefined).map((r) => r.name);
-      if (noCp.length > 0) warnings.push(`no Cp° for ${noCp.join(', ')}: taken as 0 at ${celsius} °C, more than 50 K from 25 °C`);
-    } else {
-      warnings.push(`constant ΔrH and ΔrS used ${Math.abs(celsius - 25).toFixed(0)} K from 25 °C: expect errors of some mV`);
-    }
-  }
-  return { dG, dH, dS };
-}
-
 type Potentials = Pick<CellResult, 'equilibriumPotential' | 'thermoneutralPotential' | 'dEdT' | 'signed' | 'direction'>;
 
-/** Step 2: potentials from the energies (module comment: half-reaction vs full reaction). */
+/** Step 2: potentials from the energies (module comment: half-reaction vs full reaction; none without electrons). */
 function potentials(p: Prepared, dG: number, dH: number | null, dS: number | null): Potentials {
+  if (p.kind === 'chemical') {
+    const none = { equilibriumPotential: null, thermoneutralPotential: null, dEdT: null };
+    return { ...none, signed: none, direction: 'none' };
+  }
   const nF = (p.n * F) / 1000; // kJ/(mol·V)
   if (p.kind === 'half') {
     // Reduction direction: ΔG_red = sense·ΔG.
@@ -310,18 +293,19 @@ function againstReference(p: Prepared, result: CellResult, celsius: number, opts
   result.reference = {
     label: ref.label,
     offset: ref.offset,
-    equilibriumPotential: result.equilibriumPotential - ref.offset,
+    equilibriumPotential: result.equilibriumPotential! - ref.offset,
     thermoneutralPotential: Etn === null ? null : Etn - ref.offset,
   };
+  if (result.atConditions?.potential != null) result.reference.atConditions = result.atConditions.potential - ref.offset;
 }
 
 /** Evaluates a prepared reaction at `celsius` (see module comment for the formulas). */
-export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH'> = {}): CellResult {
+export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOptions, 'extrapolation' | 'reference' | 'pH' | 'activities'> = {}): CellResult {
   if (!Number.isFinite(celsius) || celsius <= -KELVIN) throw new ReactionError(p.parsed.text, 'a temperature in °C above −273.15', String(celsius));
-  const mode = opts.extrapolation ?? 'cp';
+  const mode = opts.extrapolation ?? 'best';
   const warnings = [...p.warnings];
   if (celsius < 0 || celsius > 300) warnings.push(`${celsius} °C is outside 0–300 °C, where the data extrapolation is meant to hold`);
-  const { dG, dH, dS } = reactionEnergies(p, celsius, mode, warnings);
+  const { dG, dH, dS, dCp } = reactionEnergies(p.resolved, p.parsed.text, celsius, mode, warnings);
   const pot = potentials(p, dG, dH, dS);
   const result: CellResult = {
     reaction: p.parsed.text,
@@ -332,16 +316,21 @@ export function evaluateCell(p: Prepared, celsius: number, opts: Pick<CellOption
     deltaG: dG,
     deltaH: dH,
     deltaS: dS,
+    deltaCp: dCp,
+    logK: (-dG * 1000) / (R * (celsius + KELVIN) * LN10),
     equilibriumPotential: pot.equilibriumPotential,
     thermoneutralPotential: pot.thermoneutralPotential,
     dEdT: pot.dEdT,
     direction: pot.direction,
-    scale: p.kind === 'half' ? 'V vs SHE' : 'V (cell voltage)',
-    convention: p.kind === 'half' ? HALF_CONVENTION : FULL_CONVENTION,
+    scale: p.kind === 'half' ? 'V vs SHE' : p.kind === 'full' ? 'V (cell voltage)' : 'none (no electron transfer)',
+    convention: p.kind === 'half' ? HALF_CONVENTION : p.kind === 'full' ? FULL_CONVENTION : CHEMICAL_CONVENTION,
     signed: pot.signed,
     species: p.species,
     warnings,
   };
+  if (opts.activities && Object.keys(opts.activities).length) {
+    result.atConditions = atConditions(p.parsed.text, p.parsed.terms, opts.activities, dG, celsius, p.kind, p.n, p.sense);
+  }
   againstReference(p, result, celsius, opts);
   return result;
 }

@@ -8,6 +8,8 @@ import { describe, expect, it } from 'vitest';
 import { parseFormula, splitPhase } from '../../src/chem/formula.js';
 import { findSpecies, loadLibrary } from '../../src/data/library.js';
 import { carrySpecies } from '../../src/system/carry.js';
+import { libraryLookup } from '../../src/system/lookup.js';
+import { cellReaction } from '../../src/thermo/cell.js';
 import { waterState } from '../../src/thermo/water.js';
 
 const R = 8.314462618; // CODATA 2018
@@ -36,5 +38,14 @@ describe('published log K at 100–150 °C', () => {
     const dG = sum(side(right!)) - sum(side(left!));
     const k = (-dG * 1000) / (R * T * Math.LN10);
     expect(Math.abs(k - Number(logK))).toBeLessThan(Number(tol));
+  });
+});
+
+describe('the same published log K through `cell` (its default species models)', () => {
+  it.each(rows)('%s at %s °C: log K %s ± %s (%s)', (reaction, t, logK, tol) => {
+    const text = reaction!.split(' = ').map((x) => side(x).map(withPhase).join(' + ')).join(' = ');
+    const r = cellReaction(text, { lookup: libraryLookup, celsius: Number(t) });
+    expect(r.kind).toBe('chemical');
+    expect(Math.abs(r.logK - Number(logK))).toBeLessThan(Number(tol));
   });
 });

@@ -32,8 +32,12 @@ describe('inline temperature data', () => {
     expect(() => sys({}, [{ formula: 'ZnO', phase: 's', dfG: -320.5, S: 43.6, hkf: CL }])).toThrow(/species\[2\] \(ZnO\)\.hkf/);
     expect(() => sys({}, [{ formula: 'ZnOH+', phase: 'aq', dfG: -330, hkf: CL }])).toThrow(/ZnOH\+\)\.S/);
   });
-  it("an inline species with only ΔfG° is still refused away from 25 °C (no estimate for inline data)", () => {
-    expect(() => buildSystem(sys({}, [{ formula: 'ZnOH+', phase: 'aq', dfG: -330 }]))).toThrow(/S \(J\/\(mol·K\)\) or dfH/);
+  it('an inline species with only ΔfG° stays in the system away from 25 °C, undetermined (no estimate for inline data)', () => {
+    const b = buildSystem(sys({}, [{ formula: 'ZnOH+', phase: 'aq', dfG: -330 }]));
+    const s = b.input.species.find((x) => x.formula === 'ZnOH+')!;
+    expect(s.temperatureModel).toBe('undetermined');
+    expect(s.G).toBe(-330);
+    expect(b.warnings.join(' ')).toMatch(/undetermined away from 25 °C.*ZnOH\+/);
   });
   it('the explicit extrapolations label every species constant-cp or constant-h-s', () => {
     const b = buildSystem(sys({ extrapolation: 'cp' }, []));

@@ -105,7 +105,7 @@ describe('water splitting', () => {
     for (const celsius of [25, 80]) {
       const half = cellReaction('O2(g) + 4H+ + 4e- = 2H2O(l)', { lookup, celsius });
       const full = cellReaction(WATER, { lookup, celsius });
-      expect(half.equilibriumPotential).toBeCloseTo(full.equilibriumPotential, 9);
+      expect(half.equilibriumPotential).toBeCloseTo(full.equilibriumPotential!, 9);
     }
     // Handbook electrochemical series (CRC, Vanysek), recalled from memory: 1.229 V.
     expect(cellReaction('O2(g) + 4H+ + 4e- = 2H2O(l)', { lookup }).equilibriumPotential).toBeCloseTo(1.229, 3);
@@ -130,7 +130,7 @@ describe('metal couples', () => {
     expect(r.equilibriumPotential).toBeCloseTo(0.339378, 6);
     // CRC electrochemical series (Vanysek), recalled from memory: 0.3419 V; NBS-based value differs by 2.5 mV
     // (a documented difference between compilations).
-    expect(Math.abs(r.equilibriumPotential - 0.3419)).toBeLessThan(0.003);
+    expect(Math.abs(r.equilibriumPotential! - 0.3419)).toBeLessThan(0.003);
     expect(r.deltaG).toBeCloseTo(-65.49, 9);
     expect(r.scale).toBe('V vs SHE');
     expect(r.species.map((s) => s.formula)).toContain('H2');
@@ -147,7 +147,7 @@ describe('metal couples', () => {
   it('Zn+2/Zn and Fe+3/Fe+2 against the handbook series', () => {
     // CRC electrochemical series (Vanysek), recalled from memory: Zn −0.7618 V, Fe+3/Fe+2 0.771 V.
     expect(cellReaction('Zn+2 + 2e- = Zn(s)', { lookup }).equilibriumPotential).toBeCloseTo(-0.7618, 3);
-    expect(Math.abs(cellReaction('Fe+3 + e- = Fe+2', { lookup }).equilibriumPotential - 0.771)).toBeLessThan(0.003);
+    expect(Math.abs(cellReaction('Fe+3 + e- = Fe+2', { lookup }).equilibriumPotential! - 0.771)).toBeLessThan(0.003);
   });
 
   it('Daniell cell: galvanic, n = 2, about 1.10 V', () => {
@@ -199,8 +199,13 @@ describe('electron count from oxidation states', () => {
     expect(r.nFrom).toBe('given');
   });
 
-  it('rejects a reaction with no electron transfer', () => {
-    expect(() => cellReaction('H+ + OH- = H2O(l)', { lookup })).toThrow(/no electron transfer/);
+  it('gives energies and log K, no potentials, for a reaction with no electron transfer (issue 12 item 3)', () => {
+    const r = cellReaction('H+ + OH- = H2O(l)', { lookup });
+    expect(r.kind).toBe('chemical');
+    expect(r.n).toBe(0);
+    expect(r.equilibriumPotential).toBeNull();
+    // log K = 14.00 at 25 °C: pKw 13.995, IAPWS R11-07 (tests/fixtures/water-properties.csv); NBS data give 14.00.
+    expect(r.logK).toBeCloseTo(14.0, 1);
   });
 
   it('rejects an electron count that contradicts the written electrons', () => {
@@ -279,8 +284,9 @@ describe('tables and text', () => {
     const text = cellText(cellTable(WATER, [25, 80], { lookup }));
     expect(text).toMatch(/reaction: 2H2O\(l\) = 2H2\(g\) \+ O2\(g\)/);
     expect(text).toMatch(/n = 4 \(from oxidation states\), electrolytic/);
-    expect(text).toMatch(/T\/°C +ΔrG\/\(kJ\/mol\)/);
-    expect(text).toMatch(/\n +25 +474\.258 +571\.660 +326\.69 +1\.2288 +1\.4812/);
+    expect(text).toMatch(/T\/°C +ΔrG°\/\(kJ\/mol\) +ΔrH°\/\(kJ\/mol\) +ΔrS°\/\(J\/\(mol·K\)\) +ΔrCp°\/\(J\/\(mol·K\)\) +log K/);
+    // log K = −474.258/(RT ln 10) = −83.09 at 25 °C.
+    expect(text).toMatch(/\n +25 +474\.258 +571\.660 +326\.69 +\S+ +-83\.08\d +1\.2288 +1\.4812/);
     expect(text).toMatch(/convention: /);
   });
 });
