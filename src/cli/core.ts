@@ -3,7 +3,7 @@
  */
 import { extname } from 'node:path';
 import type { Command } from 'commander';
-import { compute } from '../pipeline.js';
+import { compute, computeAny } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
@@ -56,7 +56,7 @@ export function registerCore(program: Command): void {
       }
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
-      const c = compute(spec);
+      const c = computeAny(spec);
       if (opts.ref !== undefined) {
         withSecondAxis(c, fig, displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), spec.temperature, 'command line', '--ref'));
       }

@@ -83,13 +83,17 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
     },
     scale: 'SHE',
     second,
-    regions: model.regions.map((r) => ({
-      label: formulaUnicode(r.species),
-      formula: r.species,
-      name: r.name ?? '',
-      reading: r.verdict ?? verdictOf(r.class, r.species),
-      polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
-    })),
+    regions: [
+      // Composition mode: where the point solver failed, first (it is drawn over the fills).
+      ...(model.composition?.undetermined.length ? [{ label: 'Undetermined', formula: '', name: '', reading: 'the speciation could not be solved here', polygons: model.composition.undetermined.map((poly) => poly.map((ring) => ring.map(pt))) }] : []),
+      ...model.regions.map((r) => ({
+        label: formulaUnicode(r.species),
+        formula: r.species,
+        name: r.name ?? '',
+        reading: (r.verdict ?? verdictOf(r.class, r.species)) + (model.kind === 'composition' ? ` (the form holding the largest share of ${model.element})` : ''),
+        polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
+      })),
+    ],
     boundaries: model.boundaries.map((b) => ({
       between: b.between.map(formulaUnicode).join(' / '),
       reaction: reactionUnicode(b.reaction),
