@@ -1,9 +1,12 @@
 /**
  * Caption of a composition-mode figure: the kind of diagram, the bath's totals with their units,
- * the ionic strength, gas pressures other than 1 bar, unsolved points and the data sources — so that a figure read without its
+ * the ionic strength, gas pressures other than 1 bar, unsolved points and the data sources; and the
+ * HTML page's share read-out grid — so that a figure read without its
  * file still says that its regions come from full speciation of a bath as made up.
  */
+import type { ComputedComposition } from '../diagram/composition.js';
 import type { DiagramModel } from '../model.js';
+import type { ShareGrid } from '../render/share-grid.js';
 import { fmtCelsius, shortSource } from '../report/format.js';
 
 /** A total in mol/kg, three significant digits without trailing zeros: 0.2, 0.6, 1.5e-5. */
@@ -31,4 +34,45 @@ export function bathCaptionLines(m: DiagramModel): string[] {
   const short = m.sources.map(shortSource).filter((s, k, a) => a.indexOf(s) === k);
   if (short.length) lines.push(`Data: ${short.join('; ')}.`);
   return lines;
+}
+
+/**
+ * The HTML read-out grid from the traced grid: every `step`-th node (step so that at most 81 nodes
+ * lie along each axis; the range ends at the last node taken, so node positions are exact grid
+ * nodes), with the predominant form, its share and log10 of the dissolved total.
+ */
+export function shareGrid(c: ComputedComposition): ShareGrid {
+  const g = c.grid;
+  const P = c.setup.solver.problem;
+  const L = P.species.length;
+  const step = Math.max(1, Math.ceil((Math.max(g.nx, g.ny) - 1) / 80));
+  const nx = Math.floor((g.nx - 1) / step) + 1;
+  const ny = Math.floor((g.ny - 1) / step) + 1;
+  const r = (v: number, d: number): number => Number(v.toFixed(d));
+  const label: number[] = [];
+  const share: number[] = [];
+  const logDissolved: (number | null)[] = [];
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      const k = i * step + j * step * g.nx;
+      const lab = g.label[k]!;
+      label.push(lab);
+      share.push(lab < 0 ? 0 : r(g.scores[k * L + lab]!, 3));
+      const v = g.value[k]!;
+      logDissolved.push(lab < 0 || !Number.isFinite(v) ? null : r(v, 2));
+    }
+  }
+  const dx = (g.x[1] - g.x[0]) / (g.nx - 1);
+  const dy = (g.y[1] - g.y[0]) / (g.ny - 1);
+  return {
+    element: c.model.element,
+    nx,
+    ny,
+    x: [g.x[0], r(g.x[0] + (nx - 1) * step * dx, 9)],
+    y: [g.y[0], r(g.y[0] + (ny - 1) * step * dy, 9)],
+    forms: P.species.map((s) => s.formula),
+    label,
+    share,
+    logDissolved,
+  };
 }

@@ -4,7 +4,7 @@
  */
 import type { Computed, ComputedAny } from '../pipeline.js';
 import { InputError } from '../system/errors.js';
-import { bathCaptionLines } from './compose-bath.js';
+import { bathCaptionLines, shareGrid } from './compose-bath.js';
 import type { SystemSpec } from '../system/spec.js';
 import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
@@ -69,6 +69,7 @@ export function figureInput(c: Drawn, fig: FigureSettings): FigureInput {
   if (fig.families.length && 'kind' in c && c.kind === 'composition') {
     throw new InputError(c.spec.file, 'figure.families', 'no families in composition mode (the bath fixes the dissolved amount; iso-solubility lines show other amounts — give extra levels with solubilityLevels)');
   }
+  if ('kind' in c && c.kind === 'composition') input.readout = shareGrid(c.composition);
   if (fig.families.length && 'built' in c) {
     input.families = fig.families.map((a) => ({ activity: a, boundaries: familyBoundaries(c, a) }));
   }

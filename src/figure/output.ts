@@ -15,7 +15,7 @@ export async function renderFigure(input: FigureInput, format: FigureFormat): Pr
   if (format === 'svg') return sceneToSvg(scene);
   if (format === 'html') {
     const { sceneToHtml } = await import('../render/html.js');
-    return sceneToHtml(scene, input.model, input.options);
+    return sceneToHtml(scene, input.model, input.options, input.readout);
   }
   if (format === 'pdf') {
     const { sceneToPdf } = await import('../render/pdf.js');

@@ -48,3 +48,26 @@ describe('composition layers', () => {
     expect(txt(1e-2)).toBe('10^\u22122');
   });
 });
+
+describe('HTML share read-out (composition mode)', () => {
+  it('the page carries a read-out grid, and its script reads the nearest node: form, share, dissolved total', async () => {
+    const { computeAny } = await import('../../src/pipeline.js');
+    const { readSpec } = await import('../../src/system/spec.js');
+    const { figureInput } = await import('../../src/figure/compose.js');
+    const { figureSettings } = await import('../../src/figure/options.js');
+    const { renderFigure } = await import('../../src/figure/output.js');
+    const spec = readSpec({ element: 'Ag', composition: { Ag: 0.2, CN: 0.6 }, grid: 41 }, 'bath.yaml');
+    const html = String(await renderFigure(figureInput(computeAny(spec), figureSettings(spec)), 'html'));
+    const json = /<script type="application\/json" id="ephmap-data">(.*?)<\/script>/s.exec(html)![1]!;
+    const data = JSON.parse(json);
+    expect(data.grid.nx).toBe(41);
+    expect(data.grid.forms).toContain('Ag(CN)\u2082\u207b');
+    // The page's own functions, run on its own data (the script is plain ES5 text in the page).
+    const fn = (name: string) => new RegExp(`function ${name}\\(.*?\\n  }\\n`, 's').exec(html)![0];
+    const reading = new Function('data', `${fn('num')}${fn('gridReading')}return gridReading;`)(data) as (pH: number, E: number) => string;
+    // pH 12, E = 0 V vs SHE: the cyanide complexes hold the silver (Ag(CN)2- predominant there).
+    expect(reading(12, 0)).toMatch(/^\. Nearest grid node: Ag\(CN\)\u2082\u207b holds \d+\.\d % of Ag; dissolved Ag 10\^\u22120\.\d\d mol\/kg$/);
+    // pH 7, E = −1.5 V: metallic silver holds it all (immunity), little dissolved.
+    expect(reading(7, -1.5)).toMatch(/Ag holds 100\.0 % of Ag/);
+  });
+});
