@@ -7,7 +7,7 @@ import type { BoundaryModel, DiagramModel } from './model.js';
 import { solve, type Solution } from './solve/solve.js';
 import { gridMap } from './solve/grid.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
-import { checkWorkBudget, familiesRequested } from './system/budget.js';
+import { checkCompositionGrid, checkWorkBudget, familiesRequested } from './system/budget.js';
 import { readSystemFile } from './system/read.js';
 import { readSpec, type SystemSpec } from './system/spec.js';
 import { InputError } from './system/errors.js';
@@ -84,6 +84,7 @@ export type ComputedAny = (Computed & { kind: 'fixed-activity' }) | ComputedBath
  */
 export function computeAny(spec: SystemSpec): ComputedAny {
   if (!spec.composition) return { ...compute(spec), kind: 'fixed-activity' };
+  checkCompositionGrid(spec.grid, spec.file);
   const composition = computeComposition(spec);
   const model = composition.model;
   const water = waterSummary(composition.setup.built);

@@ -77,6 +77,15 @@ describe('draw, composition mode', () => {
     expect(existsSync(out)).toBe(false);
   });
 
+  it('refuses a composition grid over its limit before solving anything, naming grid (exit 2)', async () => {
+    const big = writeTmp(dir, 'big.yaml', 'element: Ag\ncomposition: {Ag: 0.2, CN: 0.6}\ngrid: 4000\n');
+    const out = join(dir, 'big.json');
+    const r = await runCli(['draw', big, '-o', out]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('grid');
+    expect(existsSync(out)).toBe(false);
+  });
+
   it('refuses activity families in composition mode, naming the key (exit 2)', async () => {
     const fam = writeTmp(dir, 'fam.yaml', 'element: Ag\ncomposition: {Ag: 0.2, CN: 0.6}\ngrid: 20\nfigure: {families: [1.0e-4]}\n');
     const r = await runCli(['draw', fam, '-o', join(dir, 'fam.svg')]);
