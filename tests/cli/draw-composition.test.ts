@@ -69,6 +69,16 @@ describe('draw, composition mode', () => {
     expect(captionText(svg)).toContain('composition: full speciation; Ag 0.2 mol/kg, CN 0.6 mol/kg total');
   });
 
+  it('SVG and PDF are byte-identical run to run', async () => {
+    for (const ext of ['svg', 'pdf']) {
+      const a = join(dir, `d1.${ext}`);
+      const b = join(dir, `d2.${ext}`);
+      expect((await runCli(['draw', bath, '-o', a])).code).toBe(0);
+      expect((await runCli(['draw', bath, '-o', b])).code).toBe(0);
+      expect(readFileSync(a).equals(readFileSync(b)), ext).toBe(true);
+    }
+  });
+
   it('a figure too small for the plot exits 2 and writes nothing', async () => {
     const out = join(dir, 'tiny.svg');
     const r = await runCli(['draw', bath, '-o', out, '--width', '40', '--height', '30']);
