@@ -3,6 +3,8 @@
  *
  *   load a system   readSpec(data, name) or loadSpec(path)        → SystemSpec
  *   compute         compute(spec)                                 → Computed ({ spec, model, … })
+ *                   computeAny(spec): either kind (composition files with full speciation) → ComputedAny
+ *   shares          sharesData(spec, 'pH' | 'E', at)              → SharesData (composition mode)
  *   probe           probe(computed, pH, E)                        → ProbeResult (verdict, margins)
  *   render          renderDiagram(computed, 'svg' | 'pdf' | 'png' | 'html') → text or bytes
  *   lines           lineRows(computed.model), linesText(computed.model)
@@ -15,7 +17,8 @@
 export type { BoundaryModel, DiagramModel, Phase, RegionClass, RegionModel, SpeciesSummary, TriplePoint, WaterLine } from './model.js';
 export { EXIT, EphmapError, FigureFitError, InputError, OutputError, exitStatusOf, type ExitStatus } from './errors.js';
 export { readSpec, type SystemSpec } from './system/spec.js';
-export { compute, computeFile, loadSpec, type Computed } from './pipeline.js';
+export { compute, computeAny, computeFile, loadSpec, type Computed, type ComputedAny, type ComputedBath } from './pipeline.js';
+export { sharesData, type SharesData } from './analysis/shares.js';
 export { probe, type Crossing, type ProbeResult } from './analysis/probe.js';
 export { platingWindow, type PlatingWindow, type WindowResult } from './analysis/window.js';
 export { renderDiagram, type FigureFormat } from './figure/output.js';

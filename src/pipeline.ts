@@ -2,11 +2,12 @@
  * The one-way pipeline: file → spec → species at T → solution → diagram model.
  */
 import { buildModel } from './diagram/build.js';
+import { type ComputedComposition, computeComposition } from './diagram/composition.js';
 import type { BoundaryModel, DiagramModel } from './model.js';
 import { solve, type Solution } from './solve/solve.js';
 import { gridMap } from './solve/grid.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
-import { checkWorkBudget, familiesRequested } from './system/budget.js';
+import { checkCompositionGrid, checkWorkBudget, familiesRequested } from './system/budget.js';
 import { readSystemFile } from './system/read.js';
 import { readSpec, type SystemSpec } from './system/spec.js';
 import { InputError } from './system/errors.js';
@@ -48,6 +49,12 @@ export function compute(spec: SystemSpec): Computed {
   const exact = new Set(solution.regions.filter((r) => r.area > 0).map((r) => r.index));
   const missing = [...seen].filter((k) => !exact.has(k)).map((k) => built.input.species[k].formula);
   if (missing.length) model.warnings.push(`grid check: ${missing.join(', ')} won at grid nodes but has no exact region (degenerate geometry?)`);
+  withOperating(spec, model);
+  return { spec, built, solution, model };
+}
+
+/** The reference electrode's second scale and the `classes` check of the operating keys, on a model. */
+function withOperating(spec: SystemSpec, model: DiagramModel): void {
   const ref = spec.operating.reference;
   if (ref !== undefined && !(typeof ref === 'string' && ref === 'rhe') && !(typeof ref === 'string' && ref === 'she')) {
     const r = referenceOffset(ref, spec.temperature);
@@ -57,7 +64,34 @@ export function compute(spec: SystemSpec): Computed {
   for (const k of Object.keys(spec.operating.classes)) {
     if (!model.species.some((x) => x.formula === k)) throw new InputError(spec.file, `classes.${k}`, 'a formula of a species in the system', JSON.stringify(k));
   }
-  return { spec, built, solution, model };
+}
+
+/** A computed composition-mode diagram: the spec, its model and the point solver's setup and grid. */
+export interface ComputedBath {
+  kind: 'composition';
+  spec: SystemSpec;
+  model: DiagramModel;
+  composition: ComputedComposition;
+}
+
+/** Either kind of diagram, computed. */
+export type ComputedAny = (Computed & { kind: 'fixed-activity' }) | ComputedBath;
+
+/**
+ * The one dispatch by kind of diagram: a file with `composition` is solved point by point with full
+ * speciation (computeComposition, on the file's `grid`), any other through compute(). Verbs that
+ * take both kinds call this; compute() stays the fixed-activity path.
+ */
+export function computeAny(spec: SystemSpec): ComputedAny {
+  if (!spec.composition) return { ...compute(spec), kind: 'fixed-activity' };
+  checkCompositionGrid(spec.grid, spec.file);
+  const composition = computeComposition(spec);
+  const model = composition.model;
+  const water = waterSummary(composition.setup.built);
+  if (spec.composition.autoIonicStrength) Object.assign(water, { ionicStrength: 'auto', ionicStrengthFrom: 'the speciation at each point' });
+  model.water = water;
+  withOperating(spec, model);
+  return { kind: 'composition', spec, model, composition };
 }
 
 /**

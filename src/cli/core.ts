@@ -2,7 +2,7 @@
  * Verbs draw, probe, lines (issue 2 core) and demo.
  */
 import type { Command } from 'commander';
-import { compute } from '../pipeline.js';
+import { compute, computeAny } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
@@ -53,7 +53,7 @@ export function registerCore(program: Command): void {
       const ext = dotExt!.slice(1);
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
-      const c = compute(spec);
+      const c = computeAny(spec);
       if (opts.ref !== undefined) {
         withSecondAxis(c, fig, displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), spec.temperature, 'command line', '--ref'));
       }

@@ -12,6 +12,7 @@ import { registerProbe } from './probe.js';
 import { registerCell } from './cell.js';
 import { registerReport } from './report.js';
 import { registerOverlay } from './overlay.js';
+import { registerShares } from './shares.js';
 import { libraryLookup } from '../system/lookup.js';
 import { VERSION } from '../version.js';
 
@@ -31,6 +32,7 @@ export function makeProgram(): Command {
   registerCell(program, { lookup: libraryLookup });
   registerReport(program);
   registerOverlay(program);
+  registerShares(program);
   return program;
 }
 

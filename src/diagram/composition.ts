@@ -30,7 +30,7 @@ export const ISO_LEVELS = [1e-8, 1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2];
 export interface CompositionOptions {
   /** Nodes per axis (default: the spec's grid). */
   grid?: number;
-  /** Extra iso-solubility levels, mol/kg (added to ISO_LEVELS). */
+  /** Extra iso-solubility levels, mol/kg (added to ISO_LEVELS; default: the file's solubilityLevels). */
   levels?: number[];
 }
 
@@ -65,7 +65,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
   const triples = joinTriplePoints(field, g, traced.boundaries);
   const boundaries = traced.boundaries.map((b) => boundaryModel(setup, b));
   // Step 3: iso-solubility lines.
-  const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? [])])].sort((a, b) => a - b);
+  const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? spec.composition?.levels ?? [])])].sort((a, b) => a - b);
   const isoSolubility: IsoSolubilityLine[] = levels.map((level) => ({ level, lines: traceIsoLines(field, g, Math.log10(level)) }));
   const warnings = [...setup.warnings];
   if (g.failed) warnings.push(`composition mode: ${g.failed} of ${n * n} grid points could not be solved; they are undetermined (no region drawn there)`);

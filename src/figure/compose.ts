@@ -2,8 +2,10 @@
  * Compose the renderer's FigureInput from a computed diagram: caption lines, activity families
  * (the same system re-solved at other activities), and the neutral-pH line at T.
  */
-import type { Computed } from '../pipeline.js';
+import type { Computed, ComputedAny } from '../pipeline.js';
 import type { DiagramModel } from '../model.js';
+import { InputError } from '../system/errors.js';
+import { bathCaptionLines, shareGrid } from './compose-bath.js';
 import type { SystemSpec } from '../system/spec.js';
 import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
@@ -14,8 +16,12 @@ import { fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
 
 const sup = powerOfTen;
 
-export function captionLines(c: Computed): string[] {
+/** What a figure is composed from: a computed diagram of either kind (the fixed kind may carry its solver state). */
+export type Drawn = Computed | ComputedAny;
+
+export function captionLines(c: Pick<Computed, 'model'>): string[] {
   const m = c.model;
+  if (m.kind === 'composition') return bathCaptionLines(m);
   const corrected = m.species.some((x) => x.role === 'main' && x.molality !== undefined);
   const lig = Object.entries(m.ligands).map(([k, v]) => `${k} ${sup(v)}`);
   const lines = [
@@ -70,7 +76,7 @@ export function atActivity(spec: SystemSpec, a: number): SystemSpec {
   return { ...spec, activity: a, amount: { kind: 'activity', value: a, isDefault: false } };
 }
 
-export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
+export function figureInput(c: Drawn, fig: FigureSettings): FigureInput {
   const input: FigureInput = { model: c.model, options: fig.options };
   if (fig.options.show.caption) input.caption = captionLines(c);
   if (fig.options.show.neutral && c.model.water) input.neutralPH = Number(c.model.water.neutralPH);
@@ -90,7 +96,11 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
     fig.options.secondAxis = { label: `E / V vs ${c.model.reference.label}`, offset: c.model.reference.offset };
     input.options = fig.options;
   }
-  if (fig.families.length) {
+  if (fig.families.length && 'kind' in c && c.kind === 'composition') {
+    throw new InputError(c.spec.file, 'figure.families', 'no families in composition mode (the bath fixes the dissolved amount; iso-solubility lines show other amounts — give extra levels with solubilityLevels)');
+  }
+  if ('kind' in c && c.kind === 'composition') input.readout = shareGrid(c.composition);
+  if (fig.families.length && 'built' in c) {
     input.families = fig.families.map((a) => ({ activity: a, boundaries: familyBoundaries(c, a) }));
   }
   return input;
@@ -100,14 +110,14 @@ export function figureInput(c: Computed, fig: FigureSettings): FigureInput {
  * A second potential axis against a reference electrode: on the figure, and named in the model
  * (its `reference` key) with the electrode's warnings.
  */
-export function withSecondAxis(c: Computed, fig: FigureSettings, r: DisplayedReference): void {
+export function withSecondAxis(c: Pick<Computed, 'model'>, fig: FigureSettings, r: DisplayedReference): void {
   fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
   c.model.reference = { id: r.id, label: r.label, offset: r.offset };
   c.model.warnings.push(...r.warnings);
 }
 
 /** Figure input with the plating windows drawn as boxes over the full potential range. */
-export function windowFigureInput(c: Computed, fig: FigureSettings, windows: readonly { pH: [number, number] }[]): FigureInput {
+export function windowFigureInput(c: Drawn, fig: FigureSettings, windows: readonly { pH: [number, number] }[]): FigureInput {
   const input = figureInput(c, fig);
   input.boxes = windows.map((w) => ({ label: 'plating window', pH: w.pH, E: c.model.domain.E }));
   return input;

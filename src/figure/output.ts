@@ -2,11 +2,10 @@
  * Render a composed figure to bytes by output format. PDF, PNG and HTML modules load lazily, only
  * when asked for, so SVG and JSON runs start fast.
  */
-import type { Computed } from '../pipeline.js';
 import { mmToPx } from '../render/options.js';
 import { buildScene, type FigureInput } from '../render/scene.js';
 import { sceneToSvg } from '../render/svg.js';
-import { figureInput } from './compose.js';
+import { type Drawn, figureInput } from './compose.js';
 import { type FigureOverrides, figureSettings } from './options.js';
 
 export type FigureFormat = 'svg' | 'pdf' | 'png' | 'html';
@@ -16,7 +15,7 @@ export async function renderFigure(input: FigureInput, format: FigureFormat): Pr
   if (format === 'svg') return sceneToSvg(scene);
   if (format === 'html') {
     const { sceneToHtml } = await import('../render/html.js');
-    return sceneToHtml(scene, input.model, input.options);
+    return sceneToHtml(scene, input.model, input.options, input.readout);
   }
   if (format === 'pdf') {
     const { sceneToPdf } = await import('../render/pdf.js');
@@ -28,10 +27,10 @@ export async function renderFigure(input: FigureInput, format: FigureFormat): Pr
 }
 
 /**
- * A computed diagram drawn as one output: the figure settings of its system file (with the
+ * A computed diagram (either kind) drawn as one output: the figure settings of its system file (with the
  * command-line style overrides, if any) composed as the `draw` verb does, then rendered. SVG and
  * HTML come back as text, PDF and PNG as bytes.
  */
-export async function renderDiagram(c: Computed, format: FigureFormat, overrides: FigureOverrides = {}): Promise<string | Uint8Array> {
+export async function renderDiagram(c: Drawn, format: FigureFormat, overrides: FigureOverrides = {}): Promise<string | Uint8Array> {
   return renderFigure(figureInput(c, figureSettings(c.spec, overrides)), format);
 }

@@ -9,7 +9,7 @@ import { writeOutput } from '../io/safe-write.js';
 import { figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { renderFigure } from '../figure/output.js';
-import { compute, loadSpec } from '../pipeline.js';
+import { computeAny, loadSpec } from '../pipeline.js';
 import { exitStatusOf } from '../errors.js';
 
 function bar(done: number, total: number, name: string): void {
@@ -37,7 +37,7 @@ export async function buildGallery(dir: string): Promise<string[]> {
     const name = basename(f).replace(/\.ya?ml$/, '');
     bar(n, files.length, name);
     const spec = loadSpec(path);
-    const c = compute(spec);
+    const c = computeAny(spec);
     const fig = figureSettings(spec);
     const input = figureInput(c, fig);
     await writeOutput(join(dir, `${name}.svg`), await renderFigure(input, 'svg'), { makeDirs: false });

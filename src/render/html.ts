@@ -13,6 +13,7 @@
 import { createHash } from 'node:crypto';
 import { lineEquationText } from '../diagram/line-text.js';
 import { verdictOf } from '../diagram/verdict.js';
+import type { ShareGrid } from './share-grid.js';
 import type { DiagramModel, LineCoefficients } from '../model.js';
 import type { FigureOptions } from './options.js';
 import type { Scene } from './scene-types.js';
@@ -66,10 +67,12 @@ interface PageData {
   second: { name: string; offset: number } | null;
   regions: { label: string; formula: string; name: string; reading: string; polygons: [number, number][][][] }[];
   boundaries: { between: string; reaction: string; equation: string; equation2: string | null; points: [number, number][] }[];
+  /** Composition mode: the share read-out grid (nearest node to the pointer). */
+  grid?: ShareGrid;
 }
 
 /** The compact data the page's script works on (coordinates rounded to 1e-6). */
-export function pageData(scene: Scene, model: DiagramModel, options: Pick<FigureOptions, 'secondAxis'> = {}): PageData {
+export function pageData(scene: Scene, model: DiagramModel, options: Pick<FigureOptions, 'secondAxis'> = {}, grid?: ShareGrid): PageData {
   const second = options.secondAxis ? { name: referenceName(options.secondAxis.label), offset: options.secondAxis.offset } : null;
   const pt = (p: readonly [number, number]): [number, number] => [r6(p[0]), r6(p[1])];
   return {
@@ -83,13 +86,17 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
     },
     scale: 'SHE',
     second,
-    regions: model.regions.map((r) => ({
-      label: formulaUnicode(r.species),
-      formula: r.species,
-      name: r.name ?? '',
-      reading: r.undetermined ? 'unknown' : r.verdict ?? verdictOf(r.class, r.species),
-      polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
-    })),
+    regions: [
+      // Composition mode: where the point solver failed, first (it is drawn over the fills).
+      ...(model.composition?.undetermined.length ? [{ label: 'Undetermined', formula: '', name: '', reading: 'the speciation could not be solved here', polygons: model.composition.undetermined.map((poly) => poly.map((ring) => ring.map(pt))) }] : []),
+      ...model.regions.map((r) => ({
+        label: formulaUnicode(r.species),
+        formula: r.species,
+        name: r.name ?? '',
+        reading: (r.undetermined ? 'unknown' : r.verdict ?? verdictOf(r.class, r.species)) + (model.kind === 'composition' ? ` (the form holding the largest share of ${model.element})` : ''),
+        polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
+      })),
+    ],
     boundaries: model.boundaries.map((b) => ({
       between: b.between.map(formulaUnicode).join(' / '),
       reaction: reactionUnicode(b.reaction),
@@ -97,6 +104,7 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
       equation2: second ? equationInScale(b.line, second.offset, second.name) : null,
       points: b.points.map(pt),
     })),
+    ...(grid ? { grid: { ...grid, forms: grid.forms.map(formulaUnicode) } } : {}),
   };
 }
 
@@ -243,7 +251,7 @@ const SCRIPT = `
     if (data.second) t += ' (' + num(E - data.second.offset, 3) + ' V vs ' + data.second.name + ')';
     outPoint.textContent = t;
     var r = regionAt(pH, E);
-    outSpecies.textContent = r ? r.label + (r.name ? ' (' + r.name + ')' : '') + ': ' + r.reading : 'On a boundary';
+    outSpecies.textContent = (r ? r.label + (r.name ? ' (' + r.name + ')' : '') + ': ' + r.reading : 'On a boundary') + gridReading(pH, E);
     var n = nearest(x, y);
     if (n) {
       outLine.textContent = 'Nearest boundary ' + n.b.between + ': ' + n.b.reaction + '; ' + n.b.equation +
@@ -254,6 +262,17 @@ const SCRIPT = `
       near.setAttribute('d', '');
     }
     overlay.setAttribute('visibility', 'visible');
+  }
+  function gridReading(pH, E) {
+    var g = data.grid;
+    if (!g) return '';
+    var i = Math.round(((pH - g.x[0]) / (g.x[1] - g.x[0])) * (g.nx - 1)), j = Math.round(((E - g.y[0]) / (g.y[1] - g.y[0])) * (g.ny - 1));
+    if (i < 0 || j < 0 || i >= g.nx || j >= g.ny) return '';
+    var k = i + j * g.nx;
+    if (g.label[k] < 0) return '. Nearest grid node: undetermined (not solved)';
+    var d = g.logDissolved[k];
+    return '. Nearest grid node: ' + g.forms[g.label[k]] + ' holds ' + num(100 * g.share[k], 1) + ' % of ' + g.element +
+      (d === null ? '' : '; dissolved ' + g.element + ' 10^' + num(d, 2) + ' mol/kg');
   }
   function fromEvent(e) {
     var m = svg.getScreenCTM();
@@ -306,11 +325,11 @@ function overlaySvg(scene: Scene): string {
  * Renders the interactive page. `options.secondAxis` (the figure's second potential axis) adds the
  * potential and line equations in that reference scale to the read-out.
  */
-export function sceneToHtml(scene: Scene, model: DiagramModel, options: Pick<FigureOptions, 'secondAxis'> = {}): string {
+export function sceneToHtml(scene: Scene, model: DiagramModel, options: Pick<FigureOptions, 'secondAxis'> = {}, grid?: ShareGrid): string {
   const svg = sceneToSvg(scene)
     .replace(/^<svg /, '<svg aria-hidden="true" focusable="false" ')
     .replace(/<\/svg>\n$/, `${overlaySvg(scene)}\n</svg>`);
-  const data = pageData(scene, model, options);
+  const data = pageData(scene, model, options, grid);
   const style = pageStyle(scene.widthPt / scene.heightPt);
   const csp = `default-src 'none'; script-src ${cspHash(SCRIPT)}; style-src ${cspHash(style)}; base-uri 'none'; form-action 'none'`;
   const title = esc(scene.title);

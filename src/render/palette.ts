@@ -272,6 +272,10 @@ export function inks(style: 'color' | 'gray' | 'lines'): {
   mark: string;
   overlay: readonly string[];
   ligand: string;
+  /** Iso-solubility lines and their labels (composition mode). */
+  iso: string;
+  /** Fill of undetermined areas (composition mode: points the solver could not solve). */
+  undetermined: string;
 } {
   if (style === 'color') {
     return {
@@ -284,6 +288,8 @@ export function inks(style: 'color' | 'gray' | 'lines'): {
       mark: '#b2182b',
       overlay: ['#762a83', '#1b7837', '#8c510a', '#01665e'],
       ligand: '#7f7f7f',
+      iso: '#8c510a',
+      undetermined: '#8f8f8f',
     };
   }
   return {
@@ -296,6 +302,8 @@ export function inks(style: 'color' | 'gray' | 'lines'): {
     mark: '#000000',
     overlay: ['#333333', '#555555', '#222222', '#444444'],
     ligand: '#808080',
+    iso: '#555555',
+    undetermined: style === 'lines' ? '#d9d9d9' : '#8f8f8f',
   };
 }
 

@@ -12,6 +12,7 @@ import { stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
 import { inks, normColor } from './palette.js';
 import type { Point, Rect, ScenePath, SceneText, TextRun } from './scene-types.js';
+import type { ShareGrid } from './share-grid.js';
 import { expandScripts } from './typeset.js';
 
 export interface FigureInput {
@@ -40,6 +41,8 @@ export interface FigureInput {
    * "Fe, 25 °C, a = 10⁻⁶ (filled)"; default "boundaries, a = 10⁻⁶". Rich text ({H2O}, ^…^) allowed.
    */
   baseLabel?: string;
+  /** Composition mode: the HTML page's share read-out grid. */
+  readout?: ShareGrid;
 }
 
 export type Inks = ReturnType<typeof inks>;

@@ -7,6 +7,7 @@ import { textBox, baselineForCentre } from './labels.js';
 import { CAP_HEIGHT, runsWidth } from './metrics.js';
 import { CLASS_NAMES, CLASS_TINTS, fillGroup, toGray, UNDETERMINED_FILL } from './palette.js';
 import { dashStroke, line, overlayInk, parseDash, PROSE_SAFETY, rectPath, text, wrapText, type LegendEntry, type SceneBase, type SceneContext } from './scene-context.js';
+import { bathLegendEntries } from './scene-iso.js';
 import type { SceneItem, TextRun } from './scene-types.js';
 import { formulaRuns, plainRuns, powerOfTenRuns, richRuns } from './typeset.js';
 
@@ -61,6 +62,7 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
     legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs: plainRuns('other activities') });
   }
   if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });
+  legend.push(...bathLegendEntries(b));
   (input.overlays ?? []).forEach((ov, i) => {
     legend.push({ kind: 'line', stroke: overlayInk(ink, ov, i), width: 0.8 * lw, dash: parseDash(ov.dash, lw), runs: richRuns(ov.label) });
   });

@@ -23,12 +23,12 @@ function smallLabel(ctx: SceneContext, role: string, runs: TextRun[], size: numb
   const off = -(top + bottom) / 2;
   const bx = ob.cx - Math.sin(a) * off;
   const by = ob.cy + Math.cos(a) * off;
-  const fill = role === 'water-label' ? ctx.ink.water : ctx.ink.text;
+  const fill = role === 'water-label' ? ctx.ink.water : role === 'iso-label' ? ctx.ink.iso : ctx.ink.text;
   return text(role, runs, bx, by, size, 'middle', fill, { rotate: ob.angle, ...(ob.angle === 0 ? { box: orientedBounds(ob) } : {}), ...(data ? { data } : {}) });
 }
 
 /** Candidate boxes beside the longest piece at the given fractions of its length, on one side. */
-function alongLine(ctx: SceneContext, pieces: Point[][], runs: TextRun[], size: number, side: -1 | 1, fractions: number[], rotate: boolean): OrientedBox[] {
+export function alongLine(ctx: SceneContext, pieces: Point[][], runs: TextRun[], size: number, side: -1 | 1, fractions: number[], rotate: boolean): OrientedBox[] {
   const longest = [...pieces].sort((a, b) => polylineLength(b) - polylineLength(a))[0];
   if (!longest) return [];
   const gapLine = 0.28 * ctx.fs;
@@ -55,7 +55,7 @@ function alongLine(ctx: SceneContext, pieces: Point[][], runs: TextRun[], size: 
 }
 
 /** Unrotated boxes just past either end of the longest piece, along its direction (end first). */
-function beyondEnds(pieces: Point[][], runs: TextRun[], size: number): OrientedBox[] {
+export function beyondEnds(pieces: Point[][], runs: TextRun[], size: number): OrientedBox[] {
   const longest = [...pieces].sort((a, b) => polylineLength(b) - polylineLength(a))[0];
   if (!longest || longest.length < 2) return [];
   const w = (runsWidth(runs, size) * FONT_SAFETY) / 2 + 0.1 * size;
@@ -76,7 +76,7 @@ function beyondEnds(pieces: Point[][], runs: TextRun[], size: number): OrientedB
 }
 
 /** Places the first free candidate (if any) as a small label and reserves its box. */
-function placeFirst(ctx: SceneContext, out: SceneItem[], role: string, runs: TextRun[], size: number, cands: OrientedBox[], idx: number, data?: Record<string, string>): void {
+export function placeFirst(ctx: SceneContext, out: SceneItem[], role: string, runs: TextRun[], size: number, cands: OrientedBox[], idx: number, data?: Record<string, string>): void {
   if (idx < 0) return;
   const ob = cands[idx]!;
   out.push(smallLabel(ctx, role, runs, size, ob, data));

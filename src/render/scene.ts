@@ -7,6 +7,7 @@ import { Layout } from './labels.js';
 import { axisItems, titleItems } from './scene-axes.js';
 import { makeFrame, sceneBase, type FigureInput, type SceneContext } from './scene-context.js';
 import { buildFills } from './scene-fills.js';
+import { isoLabels, isoLines, undeterminedFills } from './scene-iso.js';
 import { layoutFigure } from './scene-layout.js';
 import { captionItems, legendItems } from './scene-legend.js';
 import { familyLabels, ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-line-labels.js';
@@ -33,10 +34,12 @@ export function buildScene(input: FigureInput): Scene {
   const ctx: SceneContext = { ...base, bands, plot, fr: makeFrame(base.model, plot), layout: new Layout(plot, { x: 0, y: 0, w: base.W, h: base.H }) };
   // (4) Fills, then the lines in drawing order (each registers its obstacles with the layout).
   const fills = buildFills(ctx);
+  const undetermined = undeterminedFills(ctx);
   const ligands = ligandLines(ctx);
   const grid = gridLines(ctx);
   const families = familyLines(ctx);
   const water = waterLines(ctx);
+  const iso = isoLines(ctx);
   const neutral = neutralLine(ctx);
   const overlays = overlayLines(ctx);
   const boundaries = boundaryLines(ctx, fills.rings);
@@ -50,10 +53,11 @@ export function buildScene(input: FigureInput): Scene {
   waterLabels(ctx, water.hw, water.ow, labelItems);
   overlayLabels(ctx, placements, labelItems);
   familyLabels(ctx, families.labels, labelItems);
+  isoLabels(ctx, iso.labels, labelItems);
   neutralLabel(ctx, neutral.piece, labelItems);
   ligandLabels(ctx, ligands.labels, labelItems);
   // (7) Assembly: the plot (clipped), axes, labels, then title, legend and caption.
-  const plotChildren = [...fills.items, ...ligands.items, ...grid, ...families.items, ...water.items, ...neutral.items, ...overlays, ...boundaries, ...triples, ...marks.items];
+  const plotChildren = [...fills.items, ...undetermined, ...ligands.items, ...grid, ...families.items, ...water.items, ...iso.items, ...neutral.items, ...overlays, ...boundaries, ...triples, ...marks.items];
   const items: SceneItem[] = [
     { type: 'group', role: 'plot', clip: plot, children: plotChildren },
     { type: 'group', role: 'axes', children: axisItems(ctx) },

@@ -50,3 +50,16 @@ export function familiesRequested(extra: Record<string, unknown>): number {
   const raw = fig && typeof fig === 'object' && !Array.isArray(fig) && 'families' in fig ? (fig as Record<string, unknown>).families : extra.families;
   return Array.isArray(raw) ? raw.length : 0;
 }
+
+/**
+ * Composition mode's own limit: every grid node is a full speciation solve (Newton with a phase
+ * loop, about 60 000 nodes per second on the development machine, each node's state kept for the
+ * refinement), so the grid is capped at COMPOSITION_MAX_GRID per axis (600² nodes: about 6 s).
+ */
+export const COMPOSITION_MAX_GRID = 600;
+
+/** Throws InputError naming `grid` when a composition-mode grid is over its limit. */
+export function checkCompositionGrid(grid: number, file: string): void {
+  if (grid <= COMPOSITION_MAX_GRID) return;
+  throw new InputError(file, 'grid', `a grid of at most ${COMPOSITION_MAX_GRID} in composition mode (each node is a full speciation solve)`, String(grid));
+}

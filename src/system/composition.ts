@@ -18,6 +18,8 @@ export interface CompositionSpec {
   ligands: Record<string, Amount>;
   /** `ionicStrength: auto`: ionic strength from the speciation at each point. */
   autoIonicStrength: boolean;
+  /** The user's own iso-solubility levels, mol/kg (the `solubilityLevels` key). */
+  levels?: number[];
 }
 
 /** What composition mode sets in the rest of the spec: ligand groups and placeholder ligand amounts. */

@@ -15,6 +15,7 @@ import { type Operating, readOperating } from './operating.js';
 import type { CpPolynomial } from '../thermo/cp-poly.js';
 import { HKF_KEYS, type HkfParameters } from '../thermo/hkf.js';
 import { type CompositionSpec, readComposition } from './composition.js';
+import { readSolubilityLevels } from './solubility-levels.js';
 
 export interface InlineSpecies {
   formula: string;
@@ -110,6 +111,7 @@ export const TOP_KEYS = [
   'description',
   'elements',
   'composition',
+  'solubilityLevels',
 ] as const;
 
 const SPECIES_KEYS = ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'hkf', 'cpPolynomial', 'activity', 'concentration', 'pressure', 'name', 'source'] as const;
@@ -133,6 +135,8 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   if (element === 'H' || element === 'O') f.fail('element', 'an element other than H or O (water is always present)', element);
 
   const comp = o.composition === undefined ? undefined : readComposition(f, o, element);
+  const levels = readSolubilityLevels(f, o.solubilityLevels, comp !== undefined);
+  if (comp && levels) comp.composition.levels = levels;
   const temperature = f.optNumber(o.temperature, 'temperature', 25, { min: T_RANGE.min, max: T_RANGE.max });
   if (temperature > 300) warnings.push(`temperature ${temperature} °C is above 300 °C: data extrapolated beyond their usual range`);
   const pressure = o.pressure === undefined ? undefined : f.number(o.pressure, 'pressure', { positive: true, max: 100 });
