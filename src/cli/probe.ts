@@ -16,6 +16,7 @@ import { InputError } from '../system/errors.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { writeAtomic } from '../io/write.js';
+import { probeComposition } from './probe-composition.js';
 
 const num = numberArg;
 
@@ -43,9 +44,11 @@ export function registerProbe(program: Command): void {
       const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
+      if (opts.points !== undefined && (opts.ph !== undefined || opts.potential !== undefined)) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
+      if (opts.points === undefined && (opts.ph === undefined || opts.potential === undefined)) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
+      if (spec.composition) return probeComposition(spec, opts, ref);
       const at = pointComputer(spec);
       if (opts.points !== undefined) {
-        if (opts.ph !== undefined || opts.potential !== undefined) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
         let text: string;
         try {
           text = readFileSync(opts.points, 'utf8');
@@ -67,9 +70,8 @@ export function registerProbe(program: Command): void {
         } else process.stdout.write(csv);
         return;
       }
-      if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
-      const pH = num(opts.ph, '--ph', 'a pH value (number)');
-      const E0 = num(opts.potential, '--potential', 'a potential in V (number)');
+      const pH = num(opts.ph!, '--ph', 'a pH value (number)');
+      const E0 = num(opts.potential!, '--potential', 'a potential in V (number)');
       const s = toShe(ref, E0, spec.temperature, pH, 'command line', '--ref');
       const c = at(spec.temperature, { pH, E: s.E });
       for (const w of [...c.model.warnings, ...s.warnings]) process.stderr.write(`warning: ${w}\n`);

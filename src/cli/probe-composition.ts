@@ -1,0 +1,71 @@
+/**
+ * `probe` on a composition-mode file (the bath as made up): the speciation at one point, or the
+ * predominant form, verdict and total dissolved element for every row of a logged CSV. Called by
+ * cli/probe.ts when the file has a `composition` key.
+ */
+import { readFileSync } from 'node:fs';
+import { compositionProbe } from '../analysis/composition-probe.js';
+import { toShe } from '../analysis/points.js';
+import { compositionSetup, type CompositionSetup } from '../diagram/composition-setup.js';
+import { writeAtomic } from '../io/write.js';
+import { compositionPointsCsv } from '../report/composition-points-csv.js';
+import { compositionProbeText } from '../report/composition-probe-text.js';
+import { stableJson } from '../report/json.js';
+import { parsePointsCsv } from '../report/points-csv.js';
+import { InputError } from '../system/errors.js';
+import type { CustomReference } from '../thermo/reference.js';
+import { numberArg as num } from './args.js';
+import type { SystemSpec } from '../system/spec.js';
+
+export interface CompositionProbeOpts {
+  ph?: string;
+  potential?: string;
+  points?: string;
+  output?: string;
+  json?: boolean;
+}
+
+/** Composition set-ups by temperature (°C), for logged series with a temperature column. */
+function setupsByTemperature(spec: SystemSpec): (celsius: number) => CompositionSetup {
+  const cache = new Map<number, CompositionSetup>();
+  return (celsius) => {
+    let s = cache.get(celsius);
+    if (!s) {
+      s = compositionSetup({ ...spec, temperature: celsius });
+      if (cache.size < 64) cache.set(celsius, s);
+    }
+    return s;
+  };
+}
+
+export function probeComposition(spec: SystemSpec, opts: CompositionProbeOpts, ref: string | CustomReference | undefined): void {
+  const setupAt = setupsByTemperature(spec);
+  if (opts.points !== undefined) {
+    let text: string;
+    try {
+      text = readFileSync(opts.points, 'utf8');
+    } catch {
+      throw new InputError(opts.points, '', 'a readable CSV file', 'a file that cannot be read');
+    }
+    const rows = parsePointsCsv(text, opts.points);
+    const results = rows.map((row) => {
+      const T = row.temperature ?? spec.temperature;
+      if (!(T >= 0 && T <= 350)) throw new InputError(opts.points!, `line ${row.line} temperature`, 'a temperature from 0 to 350 °C', String(T));
+      const s = toShe(ref, row.potential, T, row.pH, opts.points!, `line ${row.line}`);
+      return { row, scale: s.ref?.label ?? 'SHE', result: compositionProbe({ ...spec, temperature: T }, setupAt(T), row.pH, s.E, s.ref) };
+    });
+    const csv = compositionPointsCsv(results);
+    if (opts.output) {
+      writeAtomic(opts.output, csv);
+      process.stdout.write(`wrote ${opts.output} (${results.length} rows)\n`);
+    } else process.stdout.write(csv);
+    return;
+  }
+  const pH = num(opts.ph!, '--ph', 'a pH value (number)');
+  const E0 = num(opts.potential!, '--potential', 'a potential in V (number)');
+  const s = toShe(ref, E0, spec.temperature, pH, 'command line', '--ref');
+  const setup = setupAt(spec.temperature);
+  for (const w of [...setup.warnings, ...s.warnings]) process.stderr.write(`warning: ${w}\n`);
+  const r = compositionProbe(spec, setup, pH, s.E, s.ref);
+  process.stdout.write(opts.json ? stableJson(r) : compositionProbeText(r));
+}
