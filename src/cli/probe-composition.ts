@@ -1,7 +1,8 @@
 /**
  * `probe` on a composition-mode file (the bath as made up): the speciation at one point, or the
  * predominant form, verdict and total dissolved element for every row of a logged CSV. Called by
- * cli/probe.ts when the file has a `composition` key.
+ * cli/probe.ts when the file has a `composition` key. Where the solver fails, the output says
+ * `status: failed` and the command ends with exit status 4 (UndeterminedError).
  */
 import { readFileSync } from 'node:fs';
 import { compositionProbe } from '../analysis/composition-probe.js';
@@ -12,6 +13,7 @@ import { compositionPointsCsv } from '../report/composition-points-csv.js';
 import { compositionProbeText } from '../report/composition-probe-text.js';
 import { stableJson } from '../report/json.js';
 import { parsePointsCsv } from '../report/points-csv.js';
+import { UndeterminedError } from '../errors.js';
 import { InputError } from '../system/errors.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { numberArg as num } from './args.js';
@@ -26,20 +28,21 @@ export interface CompositionProbeOpts {
 }
 
 /** Composition set-ups by temperature (°C), for logged series with a temperature column. */
-function setupsByTemperature(spec: SystemSpec): (celsius: number) => CompositionSetup {
+function setupsByTemperature(spec: SystemSpec, make: (spec: SystemSpec) => CompositionSetup): (celsius: number) => CompositionSetup {
   const cache = new Map<number, CompositionSetup>();
   return (celsius) => {
     let s = cache.get(celsius);
     if (!s) {
-      s = compositionSetup({ ...spec, temperature: celsius });
+      s = make({ ...spec, temperature: celsius });
       if (cache.size < 64) cache.set(celsius, s);
     }
     return s;
   };
 }
 
-export function probeComposition(spec: SystemSpec, opts: CompositionProbeOpts, ref: string | CustomReference | undefined): void {
-  const setupAt = setupsByTemperature(spec);
+/** `make` builds the point solver (tests pass a budget-starved one to see the failure path). */
+export function probeComposition(spec: SystemSpec, opts: CompositionProbeOpts, ref: string | CustomReference | undefined, make: (spec: SystemSpec) => CompositionSetup = (s) => compositionSetup(s)): void {
+  const setupAt = setupsByTemperature(spec, make);
   if (opts.points !== undefined) {
     let text: string;
     try {
@@ -59,6 +62,8 @@ export function probeComposition(spec: SystemSpec, opts: CompositionProbeOpts, r
       writeAtomic(opts.output, csv);
       process.stdout.write(`wrote ${opts.output} (${results.length} rows)\n`);
     } else process.stdout.write(csv);
+    const failed = results.filter((x) => x.result.status !== 'ok');
+    if (failed.length) throw new UndeterminedError(`${opts.points}: the speciation could not be solved at ${failed.length} of ${results.length} points (lines ${failed.slice(0, 10).map((x) => x.row.line).join(', ')}${failed.length > 10 ? ', …' : ''}); their rows say status failed, verdict unknown`);
     return;
   }
   const pH = num(opts.ph!, '--ph', 'a pH value (number)');
@@ -68,4 +73,5 @@ export function probeComposition(spec: SystemSpec, opts: CompositionProbeOpts, r
   for (const w of [...setup.warnings, ...s.warnings]) process.stderr.write(`warning: ${w}\n`);
   const r = compositionProbe(spec, setup, pH, s.E, s.ref);
   process.stdout.write(opts.json ? stableJson(r) : compositionProbeText(r));
+  if (r.status !== 'ok') throw new UndeterminedError(`probe: the speciation could not be solved at pH ${pH}, E ${s.E} V vs SHE (${r.reason}); verdict unknown`);
 }

@@ -11,6 +11,8 @@ import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { compositionProbe } from '../../src/analysis/composition-probe.js';
 import { compositionSetup, speciationAt } from '../../src/diagram/composition-setup.js';
+import { probeComposition } from '../../src/cli/probe-composition.js';
+import { EXIT, exitStatusOf, UndeterminedError } from '../../src/errors.js';
 import { findSpecies, loadLibrary } from '../../src/data/library.js';
 import { readSpec } from '../../src/system/spec.js';
 import { LN10, R } from '../../src/thermo/constants.js';
@@ -136,5 +138,54 @@ describe('probe --points in composition mode', () => {
     expect(lines[1]).toMatch(/^2,'=cmd,12,0,SHE,0,25,ok,Ag\(CN\)2-,corrosion,0\.2,0\.000001,$/);
     expect(lines[2]).toMatch(/^3,t2,12,-0\.5,SHE,-0\.5,25,ok,Ag,immunity,0\.035\d*,0\.000001,$/);
     expect(lines).toHaveLength(4);
+  });
+});
+
+describe('a failed solve on the command line: printed as failed, exit status 4', () => {
+  const spec = readSpec({ element: 'Ag', composition: { Ag: 0.2, CN: 0.6 } }, 'b.yaml');
+  const starved = (s: typeof spec) => compositionSetup(s, { newton: { maxIterations: 1, tol: 1e-11, maxStep: 2 }, noFallback: true });
+  const capture = (f: () => void) => {
+    let out = '';
+    const ow = process.stdout.write.bind(process.stdout);
+    process.stdout.write = ((s: string) => {
+      out += s;
+      return true;
+    }) as typeof process.stdout.write;
+    let err: unknown;
+    try {
+      f();
+    } catch (e) {
+      err = e;
+    } finally {
+      process.stdout.write = ow;
+    }
+    return { out, err };
+  };
+  test('text: status failed, verdict unknown, no table; UndeterminedError (exit 4) after the output', () => {
+    const { out, err } = capture(() => probeComposition(spec, { ph: '12', potential: '0' }, undefined, starved));
+    expect(out).toMatch(/status: failed — the speciation could not be solved at this point; verdict unknown/);
+    expect(out).not.toMatch(/verdict: [A-Z]/);
+    expect(out).not.toContain('molality');
+    expect(err).toBeInstanceOf(UndeterminedError);
+    expect(exitStatusOf(err)).toBe(EXIT.partial);
+  });
+  test('JSON: status failed with the reason, predominant null', () => {
+    const { out, err } = capture(() => probeComposition(spec, { ph: '12', potential: '0', json: true }, undefined, starved));
+    const j = JSON.parse(out);
+    expect(j.status).toBe('failed');
+    expect(j.verdict).toBe('unknown');
+    expect(j.predominant).toBeNull();
+    expect(j.reason).toMatch(/no convergence/);
+    expect(exitStatusOf(err)).toBe(EXIT.partial);
+  });
+  test('--points: every row written, failed rows say so; exit 4 naming the lines', () => {
+    const log = writeTmp(dir, 'log2.csv', 'pH,potential\n12,0\n10,0.3\n');
+    const out = join(dir, 'out2.csv');
+    const { err } = capture(() => probeComposition(spec, { points: log, output: out }, undefined, starved));
+    const lines = readFileSync(out, 'utf8').trim().split('\n');
+    expect(lines).toHaveLength(3);
+    for (const l of lines.slice(1)) expect(l).toMatch(/,failed,,unknown,,0\.000001,"?no convergence/);
+    expect(err).toBeInstanceOf(UndeterminedError);
+    expect((err as Error).message).toMatch(/2 of 2 points \(lines 2, 3\)/);
   });
 });
