@@ -5,7 +5,7 @@
  * failed solve, return `status: 'failed'` with the reason and verdict `unknown` — never an answer;
  * 3. the predominant form's class gives the verdict (immunity / passivation / corrosion, with the
  * file's `classes` overrides); 4. the total dissolved element is set against the corrosion
- * threshold (the trade's 10⁻⁶ mol/kg unless the file says otherwise), stated beside the verdict.
+ * threshold (the trade's 10⁻⁶ mol/kg; `activity` is refused in composition mode), stated beside the verdict.
  * Example (tests/analysis/composition-probe.test.ts): 0.5 mol/kg Cu with 1 mol/kg NH₃ at pH 10,
  * +0.3 V: CuO predominates (passivation), Cu(NH₃)₄²⁺ cannot hold the copper.
  */
