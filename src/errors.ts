@@ -91,6 +91,20 @@ export class OutputError extends EphmapError {
   }
 }
 
+/**
+ * The output was written but holds answers that could not be determined (e.g. the composition
+ * point solver failed at a probed point: `status: failed`, verdict unknown). Raised after the
+ * output, so that scripts see exit status 4 and the message on stderr. Exit status 4.
+ */
+export class UndeterminedError extends EphmapError {
+  readonly code = 'undetermined';
+  readonly exitStatus: ExitStatus = EXIT.partial;
+  constructor(message: string) {
+    super(message);
+    this.name = 'UndeterminedError';
+  }
+}
+
 /** The exit status for any thrown value: the class's own status, else internal (1). */
 export function exitStatusOf(e: unknown): ExitStatus {
   return e instanceof EphmapError ? e.exitStatus : EXIT.internal;

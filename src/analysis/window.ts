@@ -59,7 +59,7 @@ interface Column {
   top: number | null;
 }
 
-function column(model: DiagramModel, x: number): Column {
+function column(model: DiagramModel, x: number, tol: number): Column {
   const spans: { k: number; lo: number; hi: number }[] = [];
   model.regions.forEach((r, k) => {
     for (const [lo, hi] of intervalsAt(r, x)) spans.push({ k, lo, hi });
@@ -68,24 +68,31 @@ function column(model: DiagramModel, x: number): Column {
   // The lowest metal interval: deposition happens at its top.
   const metal = spans.find((s) => model.regions[s.k].class === 'element');
   if (!metal) return { above: -1, top: null };
-  const next = spans.find((s) => Math.abs(s.lo - metal.hi) < 1e-9 && s.k !== metal.k);
+  // The region whose lower edge meets the metal's top (the closest within tol).
+  const touching = spans.filter((s) => Math.abs(s.lo - metal.hi) < tol && s.k !== metal.k);
+  const next = touching.sort((a, b) => Math.abs(a.lo - metal.hi) - Math.abs(b.lo - metal.hi))[0];
   return { above: next ? next.k : -1, top: metal.hi };
 }
 
-export function platingWindow(model: DiagramModel): WindowResult {
+/**
+ * `tol` (V): how far apart the metal's top and the next region's lower edge may lie on a vertical
+ * line — 1e-9 for the exact fixed-activity polygons; composition mode passes two grid cells
+ * (analysis/composition-window.ts).
+ */
+export function platingWindow(model: DiagramModel, tol = 1e-9): WindowResult {
   const [p0, p1] = model.domain.pH;
   // Step 1: breakpoints.
   const xs = new Set<number>([p0, p1]);
   for (const r of model.regions) for (const poly of r.polygons) for (const ring of poly) for (const [x] of ring) if (x > p0 && x < p1) xs.add(x);
   const bps = [...xs].sort((a, b) => a - b).filter((x, k, a) => k === 0 || x - a[k - 1] > 1e-9);
   // Step 2: classify each interval.
-  const cols = bps.slice(0, -1).map((a, k) => ({ a, b: bps[k + 1], col: column(model, (a + bps[k + 1]) / 2) }));
+  const cols = bps.slice(0, -1).map((a, k) => ({ a, b: bps[k + 1], col: column(model, (a + bps[k + 1]) / 2, tol) }));
   const isWin = (c: Column) => c.above >= 0 && model.regions[c.above].class === 'dissolved';
   const sH = model.waterLines.hydrogen.line;
   const eH2 = (x: number) => sH.intercept! + sH.slope! * x;
   // Step 4: deposition potential at a pH inside or at the edge of a window interval.
   const dep = (x: number, inside: number) => {
-    const c = column(model, x === inside ? x : x + (inside - x) * 1e-9);
+    const c = column(model, x === inside ? x : x + (inside - x) * 1e-9, tol);
     return c.top!;
   };
   const windows: PlatingWindow[] = [];

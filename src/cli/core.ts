@@ -11,6 +11,7 @@ import { checkOutputs, writeOne } from './outputs.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { displayReference } from '../analysis/points.js';
+import { linesComposition } from './lines-composition.js';
 import { isElement } from '../chem/elements.js';
 import { loadLibrary } from '../data/library.js';
 import { catalogEntries, catalogText } from '../report/catalog.js';
@@ -70,7 +71,9 @@ export function registerCore(program: Command): void {
     .option('--json', 'machine-readable output')
     .option('--ref <name>', 'also give each line against this reference electrode (sce, agcl-sat, cse, ...)')
     .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
-      const c = compute(loadSpecWith(file, opts));
+      const spec = loadSpecWith(file, opts);
+      if (spec.composition) return linesComposition(spec, opts);
+      const c = compute(spec);
       const ref = opts.ref === undefined ? undefined : displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), c.spec.temperature, 'command line', '--ref');
       warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
       const rows = lineRows(c.model, ref);

@@ -18,6 +18,7 @@ import { InputError } from '../system/errors.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { checkOutputs, writeOne } from './outputs.js';
+import { probeComposition } from './probe-composition.js';
 
 const num = numberArg;
 
@@ -49,9 +50,11 @@ export function registerProbe(program: Command): void {
       const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
+      if (opts.points !== undefined && (opts.ph !== undefined || opts.potential !== undefined)) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
+      if (opts.points === undefined && (opts.ph === undefined || opts.potential === undefined)) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
+      if (spec.composition) return probeComposition(spec, opts, ref);
       const at = pointComputer(spec);
       if (opts.points !== undefined) {
-        if (opts.ph !== undefined || opts.potential !== undefined) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
         let text: string;
         try {
           text = readFileSync(opts.points, 'utf8');

@@ -17,6 +17,7 @@ import { InputError } from '../system/errors.js';
 import { renderFigure } from '../figure/output.js';
 import { buildScene } from '../render/scene.js';
 import { checkOutputs, writeOne, writeSet } from './outputs.js';
+import { reportComposition } from './report-composition.js';
 
 const REPORT_FORMATS = ['md', 'html', 'pdf'] as const;
 type ReportFormat = (typeof REPORT_FORMATS)[number];
@@ -42,6 +43,7 @@ export function registerReport(program: Command): void {
       const fmt = ext as ReportFormat;
       const spec = loadSpecWith(file, opts);
       const fig = figureSettingsWidth(spec, {}, REPORT_WIDTH);
+      if (spec.composition) return reportComposition(spec, fig, opts.output, fmt);
       const c = compute(spec);
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
       const data = reportData(c);

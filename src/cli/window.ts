@@ -11,6 +11,9 @@ import { stableJson } from '../report/json.js';
 import { platingWindow } from '../analysis/window.js';
 import { windowHeading, windowText } from '../report/window-text.js';
 import { checkOutputs, writeOne } from './outputs.js';
+import { InputError } from '../system/errors.js';
+import { compositionWindow } from '../analysis/composition-window.js';
+import { compositionWindowHeading } from '../report/composition-window-text.js';
 
 export function registerWindow(program: Command): void {
   withSpecOptions(program
@@ -26,6 +29,13 @@ export function registerWindow(program: Command): void {
         fmt = ext!.slice(1) as FigureFormat;
       }
       const spec = loadSpecWith(file, opts);
+      if (spec.composition) {
+        if (opts.output) throw new InputError('command line', '--output', 'no --output for a composition file yet (draw the bath with `ephmap draw`); the window table and --json work', JSON.stringify(opts.output));
+        const { computed, result } = compositionWindow(spec);
+        for (const w of computed.model.warnings) process.stderr.write(`warning: ${w}\n`);
+        process.stdout.write(opts.json ? stableJson(result) : windowText(result, compositionWindowHeading(result)));
+        return;
+      }
       const fig = figureSettings(spec);
       const c = compute(spec);
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);

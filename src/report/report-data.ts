@@ -39,6 +39,15 @@ export interface ReportSpecies {
   recalled: boolean | null;
 }
 
+/** Plain-text tables of the speciation at the operating points (composition mode). */
+export interface SpeciationSection {
+  intro: string;
+  header: string[];
+  rows: string[][];
+  /** Per point: a heading line and its species table. */
+  details: { label: string; header: string[]; rows: string[][] }[];
+}
+
 export interface ReportData {
   title: string;
   element: string;
@@ -49,6 +58,11 @@ export interface ReportData {
   lines: LineRow[];
   waterLines: { couple: string; reaction: string; equation: string }[];
   points: ReportPoint[];
+  /**
+   * Composition mode: the speciation at the operating points, as plain-text tables (in place of
+   * `points`, which is then empty); see report/composition-report-data.ts.
+   */
+  speciation?: SpeciationSection;
   /** The plating window, when a dissolved field lies directly above the metal somewhere. */
   window: WindowResult | null;
   sources: string[];
@@ -110,7 +124,7 @@ function referenceText(c: Computed): string {
 }
 
 /** Every species used with its citation and whether the library marks its values as recalled. */
-function speciesSources(c: Computed): ReportSpecies[] {
+export function speciesSources(c: Pick<Computed, 'spec' | 'model' | 'built'>): ReportSpecies[] {
   const lib = loadLibrary();
   const inline = c.spec.species ?? [];
   const one = (formula: string, phase: string, name: string | undefined, role: ReportSpecies['role'], source: string | undefined): ReportSpecies => {

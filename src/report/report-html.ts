@@ -79,7 +79,14 @@ export function reportHtml(d: ReportData, svg: string, caption: string[]): strin
   o.push(table(['water line', 'reaction', 'line'], d.waterLines.map((w) => [esc(w.couple), code(w.reaction), esc(w.equation)])));
 
   o.push('<h2>Operating points</h2>');
-  if (!d.points.length) o.push('<p>The system file names no operating points (key <code>points</code>).</p>');
+  if (d.speciation) {
+    o.push(`<p>${esc(d.speciation.intro)}</p>`);
+    o.push(table(d.speciation.header, d.speciation.rows.map((r) => r.map(esc))));
+    for (const x of d.speciation.details) {
+      o.push(`<p><b>${esc(x.label)}</b></p>`);
+      o.push(table(x.header, x.rows.map((r) => r.map(esc))));
+    }
+  } else if (!d.points.length) o.push('<p>The system file names no operating points (key <code>points</code>).</p>');
   else {
     o.push(`<p>${esc(d.verdictBasis)}</p>`);
     o.push(table(['point', 'pH', 'E as given', 'E / V vs SHE', 'predominant', 'verdict', 'E shift to runner-up / mV', 'to nearest line along E / mV', 'along pH'], d.points.map((p) => [

@@ -42,7 +42,14 @@ export function reportMarkdown(d: ReportData, figureFile: string, caption: strin
   para(mdTable(['water line', 'reaction', 'line'], d.waterLines.map((w) => [w.couple, mdCode(w.reaction), mdEsc(w.equation)])));
 
   para('## Operating points');
-  if (!d.points.length) para('The system file names no operating points (key `points`).');
+  if (d.speciation) {
+    para(mdEsc(d.speciation.intro));
+    para(mdTable(d.speciation.header.map(mdEsc), d.speciation.rows.map((r) => r.map(mdEsc))));
+    for (const x of d.speciation.details) {
+      para(`**${mdEsc(x.label)}**`);
+      para(mdTable(x.header.map(mdEsc), x.rows.map((r) => r.map(mdEsc))));
+    }
+  } else if (!d.points.length) para('The system file names no operating points (key `points`).');
   else {
     para(mdEsc(d.verdictBasis));
     para(mdTable(['point', 'pH', 'E as given', 'E / V vs SHE', 'predominant', 'verdict', 'E shift to runner-up / mV', 'to nearest line along E / mV', 'along pH'], d.points.map((p) => [

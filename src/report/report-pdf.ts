@@ -161,7 +161,14 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
   w.table(['water line', 'reaction', 'line'], d.waterLines.map((x) => [x.couple, x.reaction, x.equation]), [0.16, 0.44, 0.4]);
 
   w.heading('Operating points');
-  if (!d.points.length) w.para('The system file names no operating points (key "points").');
+  if (d.speciation) {
+    w.para(d.speciation.intro);
+    w.table(d.speciation.header, d.speciation.rows, [0.13, 0.07, 0.13, 0.1, 0.15, 0.11, 0.16, 0.15]);
+    for (const x of d.speciation.details) {
+      w.para(x.label);
+      w.table(x.header, x.rows, [0.22, 0.12, 0.24, 0.18, 0.24]);
+    }
+  } else if (!d.points.length) w.para('The system file names no operating points (key "points").');
   else {
     w.para(d.verdictBasis);
     w.table(['point', 'pH', 'E as given', 'E / V vs SHE', 'predominant', 'verdict', 'E shift to runner-up / mV', 'to line along E / mV', 'along pH'], d.points.map((p) => [

@@ -4,7 +4,10 @@
  * it at 0 (contour.ts); 3. every crossing refined on its grid segment with the point solver
  * (refine.ts) and its neighbour label read just across; 4. rings oriented (outer counter-clockwise,
  * holes clockwise) with their area; 5. boundary polylines: maximal runs of consecutive refined
- * vertices of a ring that share the same neighbour, emitted once per pair (from the lower label).
+ * vertices of a ring that share the same neighbour; 6. each pair's boundary taken from the side
+ * whose rings give it in fewer pieces (both sides refine onto the same equal-score curve; a region
+ * thinner than a cell shows on the grid as islands, while its neighbour's ring runs unbroken along
+ * it), ties to the lower label.
  */
 import { argmax, marginOf, type TraceField } from './field.js';
 import { contourRings, type ContourVertex } from './contour.js';
@@ -36,7 +39,7 @@ export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: Tra
   const present = [...new Set(g.label)].filter((k) => k >= 0).sort((a, b) => a - b);
   const sc = new Float64Array(L);
   const regions: TracedRegion[] = [];
-  const boundaries: TracedBoundary[] = [];
+  const sides = new Map<string, Map<number, TracedBoundary[]>>();
   for (const f of present) {
     // Step 1: margin field.
     const m = new Float64Array(n);
@@ -62,9 +65,31 @@ export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: Tra
     );
     regions.push({ label: f, polygons, area });
     // Step 5: boundary runs.
-    for (const poly of polys) for (const ring of poly) boundaries.push(...runs(ring, f));
+    for (const poly of polys) {
+      for (const ring of poly) {
+        for (const b of runs(ring, f)) {
+          const key = b.between.join('/');
+          if (!sides.has(key)) sides.set(key, new Map());
+          const side = sides.get(key)!;
+          if (!side.has(f)) side.set(f, []);
+          side.get(f)!.push(b);
+        }
+      }
+    }
   }
-  return { regions, boundaries };
+  return { regions, boundaries: pickSides(sides) };
+}
+
+/** Step 6: per pair (in order of first appearance), the runs of the side with fewest pieces. */
+function pickSides(sides: Map<string, Map<number, TracedBoundary[]>>): TracedBoundary[] {
+  const out: TracedBoundary[] = [];
+  for (const side of sides.values()) {
+    const [lo, hi] = [...side.keys()].sort((a, b) => a - b);
+    const a = side.get(lo)!;
+    const b = hi === undefined ? undefined : side.get(hi)!;
+    out.push(...(b && b.length < a.length ? b : a));
+  }
+  return out;
 }
 
 interface RefinedVertex { x: number; y: number; nb: number }
@@ -93,15 +118,16 @@ function refineVertex<S>(field: TraceField<S>, g: GridSample<S>, f: number, v: C
   return { x, y, nb: argmax(sc) };
 }
 
-function runs(ring: RefinedVertex[], f: number): { between: [number, number]; points: [number, number][] }[] {
-  const out: { between: [number, number]; points: [number, number][] }[] = [];
+function runs(ring: RefinedVertex[], f: number): TracedBoundary[] {
+  const out: TracedBoundary[] = [];
   const N = ring.length;
   // Start after a break so that cyclic runs are not split.
   let start = ring.findIndex((v, k) => v.nb !== ring[(k + N - 1) % N].nb || v.nb < 0);
   if (start < 0) start = 0;
   let cur: RefinedVertex[] = [];
   const flush = () => {
-    if (cur.length >= 2 && cur[0].nb > f) out.push({ between: [f, cur[0].nb], points: cur.map((v) => [v.x, v.y]) });
+    const nb = cur[0]?.nb;
+    if (cur.length >= 2 && nb !== f) out.push({ between: nb > f ? [f, nb] : [nb, f], points: cur.map((v) => [v.x, v.y]) });
     cur = [];
   };
   for (let k = 0; k < N; k++) {

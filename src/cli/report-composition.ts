@@ -1,0 +1,51 @@
+/**
+ * `report` on a composition-mode file (the bath as made up): the composition diagram as the
+ * figure, boundaries as curves, the speciation at the file's operating points, the plating window.
+ * Everything is computed before anything is written. Called by cli/report.ts.
+ */
+import { basename, dirname, extname, join } from 'node:path';
+import { compositionWindow } from '../analysis/composition-window.js';
+import type { FigureSettings } from '../figure/options.js';
+import { renderFigure } from '../figure/output.js';
+import { writeOne, writeSet } from './outputs.js';
+import { buildScene } from '../render/scene.js';
+import type { FigureInput } from '../render/scene-context.js';
+import { compositionReportData } from '../report/composition-report-data.js';
+import { type ReportData, speciesSources } from '../report/report-data.js';
+import { reportHtml } from '../report/report-html.js';
+import { reportMarkdown } from '../report/report-md.js';
+import type { SystemSpec } from '../system/spec.js';
+import { referenceOffset } from '../thermo/reference.js';
+
+/** Caption of the composition figure: the totals, stated as the bath as made up. */
+function caption(data: ReportData, totals: Record<string, number>): string[] {
+  const t = Object.entries(totals).map(([c, v]) => `${c} ${Number(v.toPrecision(6))}`).join(', ');
+  return [`${data.title}: totals ${t} mol/kg; regions where each form holds the largest share of the element.`];
+}
+
+export async function reportComposition(spec: SystemSpec, fig: FigureSettings, output: string, fmt: 'md' | 'html' | 'pdf'): Promise<void> {
+  const { computed, result: win } = compositionWindow(spec);
+  for (const w of computed.model.warnings) process.stderr.write(`warning: ${w}\n`);
+  const data = compositionReportData(spec, computed, win, speciesSources({ spec, model: computed.model, built: computed.setup.built }));
+  const cap = caption(data, computed.setup.totals);
+  const input: FigureInput = { model: computed.model, options: fig.options, caption: cap };
+  const op = spec.operating;
+  const she = (E: number, pH: number) => (op.reference === undefined || op.reference === 'she' ? E : E + referenceOffset(op.reference, spec.temperature, pH).offset);
+  if (op.points.length) input.points = op.points.map((p) => ({ label: p.label, pH: p.pH, E: she(p.E, p.pH) }));
+  if (fmt === 'md') {
+    const svgName = `${basename(output, extname(output))}.svg`;
+    const svg = (await renderFigure(input, 'svg')) as string;
+    const md = reportMarkdown(data, svgName, cap);
+    const svgPath = join(dirname(output), svgName);
+    await writeSet([{ path: svgPath, data: svg }, { path: output, data: md }]);
+    process.stdout.write(`wrote ${output} and ${svgPath}\n`);
+    return;
+  }
+  if (fmt === 'html') await writeOne(output, reportHtml(data, (await renderFigure(input, 'svg')) as string, cap));
+  else {
+    const noCaption = { ...input, options: { ...input.options, show: { ...input.options.show, caption: false } } };
+    const { reportPdf } = await import('../report/report-pdf.js');
+    await writeOne(output, await reportPdf(data, buildScene(noCaption), { width: fig.options.width, height: fig.options.height }, cap));
+  }
+  process.stdout.write(`wrote ${output}\n`);
+}
