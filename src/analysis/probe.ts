@@ -10,7 +10,7 @@
  */
 import { classify } from '../diagram/classify.js';
 import { type Verdict, verdictOf } from '../diagram/verdict.js';
-import type { RegionClass } from '../model.js';
+import type { GivenAmount, RegionClass } from '../model.js';
 import type { Computed } from '../pipeline.js';
 import { probeGeometry, psiAt } from '../solve/point.js';
 import { nernstSlope } from '../thermo/constants.js';
@@ -50,8 +50,10 @@ export interface ProbeResult {
   predominant: string;
   class: RegionClass;
   verdict: Verdict;
-  /** Threshold activity of dissolved species the verdict refers to. */
+  /** Threshold activity (or molality, see `amount`) of dissolved species the verdict refers to. */
   threshold: number;
+  /** The dissolved-element amount as the file gives it, with its unit (model.amounts.element). */
+  amount?: GivenAmount;
   runnerUp: string | null;
   margin: Margin;
   ligandSpecies: Record<string, string>;
@@ -117,6 +119,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     class: cls,
     verdict,
     threshold: c.model.activity,
+    ...(c.model.amounts ? { amount: thresholdAmount(c) } : {}),
     runnerUp: second ? second.formula : null,
     margin,
     ligandSpecies,
@@ -149,6 +152,13 @@ function marginShifts(input: Computed['built']['input'], pH: number, E: number, 
   else if (potentialV === null) out.note = 'the runner-up is reached without electron transfer (same oxidation state): no change of potential reaches it, only a change of pH';
   else if (dpH === null) out.note = 'the runner-up is reached without H+ or OH- exchange: no change of pH reaches it, only a change of potential';
   return out;
+}
+
+/** The element's amount; the default threshold read as a molality (ionic strength given) says so. */
+function thresholdAmount(c: Computed): GivenAmount {
+  const a = c.model.amounts!.element;
+  const molal = c.model.species.some((x) => x.role === 'main' && x.molality !== undefined);
+  return a.kind === 'activity' && a.isDefault && molal ? { kind: 'molality', value: a.value, molality: a.value, isDefault: true } : a;
 }
 
 /** The nearest boundary in the plane, with its metric stated. */

@@ -3,6 +3,7 @@
  */
 import { lineEquationText } from '../diagram/line-text.js';
 import type { BoundaryModel, DiagramModel } from '../model.js';
+import { elementAmountText, ligandAmountTexts } from './format.js';
 import { table } from './table.js';
 
 export interface LineRow {
@@ -59,8 +60,8 @@ export function lineRows(model: DiagramModel, ref?: DisplayReference): LineRow[]
 export function linesText(model: DiagramModel, ref?: DisplayReference): string {
   const rows = lineRows(model, ref);
   const corrected = model.species.some((x) => x.role === 'main' && x.molality !== undefined);
-  const head = `${model.element} at ${model.temperature.celsius} °C; dissolved ${model.element} ${corrected ? 'molality' : 'activity'} ${fmtA(model.activity)}${corrected ? ' mol/kg (activities below)' : ''}` +
-    (Object.keys(model.ligands).length ? `; ligands ${Object.entries(model.ligands).map(([k, v]) => `${k} ${fmtA(v)}`).join(', ')}` : '') +
+  const head = `${model.element} at ${model.temperature.celsius} °C; dissolved ${model.element} ${elementAmountText(model, true)}${corrected ? ' (activities below)' : ''}` +
+    (Object.keys(model.ligands).length ? `; ligand totals ${ligandAmountTexts(model, true).join(', ')}` : '') +
     '\nPotentials in V vs SHE at the diagram temperature.';
   const body = table(
     ['boundary', 'reaction', 'E°/V or log K', 'line', ...(ref ? [`line vs ${ref.label}`] : []), 'pH range'],
@@ -84,11 +85,6 @@ export function linesText(model: DiagramModel, ref?: DisplayReference): string {
     : '';
   const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${w.reaction}: ${w.equation}`).join('\n');
   return `${head}\n\n${body}\n${actText}\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n`;
-}
-
-function fmtA(a: number): string {
-  const e = Math.log10(a);
-  return Number.isInteger(Math.round(e * 1e9) / 1e9) ? `1e${Math.round(e)}` : String(a);
 }
 
 export interface ActivityRow {

@@ -3,6 +3,7 @@
  * the distances (each with its definition) and each crossing. Computes nothing.
  */
 import type { Crossing, ProbeResult } from '../analysis/probe.js';
+import { amountLabel } from './format.js';
 
 const mv = (v: number) => `${v >= 0 ? '+' : ''}${(v * 1000).toFixed(1)} mV`;
 const ph = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(3)} pH`;
@@ -33,7 +34,7 @@ export function probeText(r: ProbeResult): string {
   const c = r.crossings;
   const lines = [
     `point: ${where}`,
-    `verdict: ${r.verdict.toUpperCase()} — ${r.predominant} predominates (${r.class}; dissolved-species threshold activity ${r.threshold})`,
+    `verdict: ${r.verdict.toUpperCase()} — ${r.predominant} predominates (${r.class}; dissolved-species threshold ${amountLabel(r.amount, r.threshold, { ascii: true })})`,
     runnerUpLine(r),
     `vertical distance (change of E at this pH): ${nearer(c.raiseE, c.lowerE, mv, 'above', 'below')}`,
     `horizontal distance (change of pH at this potential): ${nearer(c.lowerPH, c.raisePH, ph, 'at lower pH', 'at higher pH')}`,

@@ -4,11 +4,12 @@
  */
 import type { WindowResult } from '../analysis/window.js';
 import type { DiagramModel } from '../model.js';
+import { elementAmountText, ligandAmountTexts } from './format.js';
 import { table } from './table.js';
 
 /** "Plating window for Ni at 25 °C (dissolved Ni 0.1; N 1); potentials in V vs SHE." */
 export function windowHeading(m: DiagramModel): string {
-  return `Plating window for ${m.element} at ${m.temperature.celsius} °C (dissolved ${m.element} ${m.activity}${Object.keys(m.ligands).length ? `; ${Object.entries(m.ligands).map(([k, x]) => `${k} ${x}`).join(', ')}` : ''}); potentials in V vs SHE.`;
+  return `Plating window for ${m.element} at ${m.temperature.celsius} °C (dissolved ${m.element} ${elementAmountText(m, true)}${Object.keys(m.ligands).length ? `; ligand totals ${ligandAmountTexts(m, true).join(', ')}` : ''}); potentials in V vs SHE.`;
 }
 
 export function windowText(r: WindowResult, head: string): string {
