@@ -30,19 +30,26 @@ export function equationAgainst(line: BoundaryModel['line'], ref: DisplayReferen
   return lineEquationText(line, { scale: ref.label, offset: ref.offset });
 }
 
-/** One row per distinct reaction; runs of the same reaction are combined. */
+/**
+ * One row per connected segment of each reaction: boundary pieces with the same reaction that meet
+ * end to end are combined; pieces that do not touch (e.g. Cu/Cu2O on either side of a Cu(NH3)2+
+ * field) are separate rows, each with its own span.
+ */
 export function lineRows(model: DiagramModel, ref?: DisplayReference): LineRow[] {
-  const rows = new Map<string, LineRow>();
+  const groups = new Map<string, BoundaryModel[]>();
   for (const b of model.boundaries) {
     const key = `${b.between.join('|')}|${b.reaction}`;
-    const xs = b.points.map((p) => p[0]);
-    const ys = b.points.map((p) => p[1]);
-    const r = rows.get(key);
-    if (r) {
-      r.pHRange = [Math.min(r.pHRange[0], ...xs), Math.max(r.pHRange[1], ...xs)];
-      r.ERange = [Math.min(r.ERange[0], ...ys), Math.max(r.ERange[1], ...ys)];
-    } else {
-      rows.set(key, {
+    const g = groups.get(key);
+    if (g) g.push(b);
+    else groups.set(key, [b]);
+  }
+  const rows: LineRow[] = [];
+  for (const pieces of groups.values()) {
+    for (const part of connected(pieces)) {
+      const xs = part.flatMap((b) => b.points.map((p) => p[0]));
+      const ys = part.flatMap((b) => b.points.map((p) => p[1]));
+      const b = part[0];
+      rows.push({
         between: b.between,
         ligandSpecies: b.ligandSpecies,
         reaction: b.reaction,
@@ -54,7 +61,29 @@ export function lineRows(model: DiagramModel, ref?: DisplayReference): LineRow[]
       });
     }
   }
-  return [...rows.values()];
+  return rows;
+}
+
+/** Pieces grouped by shared end points (within 1e-7 in pH and V), in order of lowest pH. */
+function connected(pieces: BoundaryModel[]): BoundaryModel[][] {
+  const parent = pieces.map((_, k) => k);
+  const find = (k: number): number => (parent[k] === k ? k : (parent[k] = find(parent[k])));
+  const ends = (b: BoundaryModel) => [b.points[0], b.points[b.points.length - 1]];
+  const near = (p: [number, number], q: [number, number]) => Math.abs(p[0] - q[0]) < 1e-7 && Math.abs(p[1] - q[1]) < 1e-7;
+  for (let i = 0; i < pieces.length; i++) {
+    for (let j = i + 1; j < pieces.length; j++) {
+      if (ends(pieces[i]).some((p) => ends(pieces[j]).some((q) => near(p, q)))) parent[find(i)] = find(j);
+    }
+  }
+  const out = new Map<number, BoundaryModel[]>();
+  pieces.forEach((b, k) => {
+    const r = find(k);
+    const g = out.get(r);
+    if (g) g.push(b);
+    else out.set(r, [b]);
+  });
+  const minPH = (g: BoundaryModel[]) => Math.min(...g.flatMap((b) => b.points.map((p) => p[0])));
+  return [...out.values()].sort((a, b) => minPH(a) - minPH(b));
 }
 
 export function linesText(model: DiagramModel, ref?: DisplayReference): string {
