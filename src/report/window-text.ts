@@ -14,7 +14,10 @@ export function windowHeading(m: DiagramModel): string {
 
 export function windowText(r: WindowResult, head: string): string {
   const v = (x: number) => `${x >= 0 ? '+' : ''}${x.toFixed(3)}`;
-  if (!r.windows.length) return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n`;
+  if (!r.windows.length) {
+    const why = r.notes.filter((n) => n.startsWith('No window')).join('\n');
+    return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n${why.replace(/^No window: /, 'Why: ')}\n`;
+  }
   const rows = r.windows.map((w) => [
     `${w.pH[0].toFixed(2)}–${w.pH[1].toFixed(2)}`,
     w.dissolved.join(', '),
