@@ -2,7 +2,7 @@
  * Verb `cell`: energies, equilibrium and thermoneutral potentials of one reaction at a temperature
  * or over a range of temperatures.
  */
-import type { Command } from 'commander';
+import { type Command, Option } from 'commander';
 import { numberArg } from './args.js';
 import { cellReaction, cellTable, temperatureSteps, type CellResult, type SpeciesLookup } from '../thermo/cell.js';
 import { ReactionError, type ReactionSubject } from '../chem/reaction-parse.js';
@@ -24,6 +24,8 @@ interface CellCliOptions {
   range?: string;
   electrons?: string;
   extrapolation: string;
+  ref?: string;
+  /** Hidden alias of --ref (the name this verb used before). */
   reference?: string;
   ph?: string;
   json?: boolean;
@@ -33,7 +35,7 @@ interface CellCliOptions {
 const CLI = 'command line';
 
 /** The argument or option a reaction error is about. */
-const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--reference' };
+const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--ref' };
 
 const num = numberArg;
 
@@ -49,8 +51,9 @@ export function registerCell(program: Command, deps: CellDeps): void {
     .option('--range <from:to:step>', 'table over temperatures, °C (e.g. 25:100:25)')
     .option('--electrons <N>', 'electrons transferred (for full reactions whose oxidation states are not decided)')
     .option('--extrapolation <mode>', 'cp (constant Cp°) or constant-h-s (ΔH − TΔS)', 'cp')
-    .option('--reference <name>', 'also give half-reaction potentials against a reference electrode')
-    .option('--ph <pH>', 'pH, for --reference rhe')
+    .option('--ref <name>', 'also give half-reaction potentials against a reference electrode')
+    .addOption(new Option('--reference <name>', 'same as --ref').hideHelp())
+    .option('--ph <pH>', 'pH, for --ref rhe')
     .option('--species <file>', 'a system file whose inline species are used first (then the built-in library)')
     .option('--json', 'machine-readable output')
     .addHelpText('after', `\nReference electrodes:\n${listReferences().map((l) => `  ${l}`).join('\n')}\n`)
@@ -63,6 +66,11 @@ export function registerCell(program: Command, deps: CellDeps): void {
       const electrons = opts.electrons === undefined ? undefined : num(opts.electrons, '--electrons', 'a positive number of electrons');
       if (electrons !== undefined && !(electrons > 0)) throw new InputError(CLI, '--electrons', 'a positive number of electrons', opts.electrons);
       const pH = opts.ph === undefined ? undefined : num(opts.ph, '--ph', 'a pH value (number)');
+      if (opts.ref !== undefined && opts.reference !== undefined) throw new InputError(CLI, '--ref', 'one of --ref and --reference (the same option), not both');
+      const reference = opts.ref ?? opts.reference;
+      if (reference !== undefined && reference.trim().toLowerCase() === 'rhe' && pH === undefined) {
+        throw new InputError(CLI, '--ph', 'a pH with --ref rhe (the reversible hydrogen electrode moves with the pH: E_SHE = E_RHE − 0.0592·pH at 25 °C)', 'no --ph');
+      }
       let temperatures: number[];
       if (opts.range !== undefined) {
         const parts = opts.range.split(':');
@@ -79,7 +87,7 @@ export function registerCell(program: Command, deps: CellDeps): void {
       }
       if (temperatures.some((t) => t <= -273.15)) throw new InputError(CLI, opts.range ? '--range' : '--temperature', 'temperatures above −273.15 °C', opts.range ?? opts.temperature);
       const lookup = opts.species === undefined ? deps.lookup : fileLookup(opts.species, deps.lookup);
-      const cellOpts = { lookup, electrons, extrapolation, reference: opts.reference, pH };
+      const cellOpts = { lookup, electrons, extrapolation, reference, pH };
       let rows: CellResult[];
       try {
         rows = temperatures.length === 1 && opts.range === undefined

@@ -68,6 +68,7 @@ export function registerProbe(program: Command): void {
         return;
       }
       if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
+      if (opts.output !== undefined) throw new InputError('command line', '--output', '-o only with --points (the answer at one point goes to standard output; redirect it, e.g. --json > point.json)', JSON.stringify(opts.output));
       const pH = num(opts.ph, '--ph', 'a pH value (number)');
       const E0 = num(opts.potential, '--potential', 'a potential in V (number)');
       const s = toShe(ref, E0, spec.temperature, pH, 'command line', '--ref');

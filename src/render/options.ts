@@ -30,6 +30,8 @@ export interface FigureOptions {
   title?: string;
   /** Second potential axis on the right: E_ref = E_SHE − offset (V); label e.g. "E / V vs SCE". */
   secondAxis?: { label: string; offset: number };
+  /** PNG resolution in dots per inch (default 300): the PNG is width/25.4 × dpi pixels across. */
+  dpi?: number;
 }
 
 /** Single-column journal figure: 85 mm wide, 8 pt text. */
@@ -103,7 +105,8 @@ export function parseLength(value: string | number, what: string): number {
   }
   if (!Number.isFinite(mm) || mm <= 0) throw new Error(`${what}: length must be positive, got ${String(value)}`);
   if (mm > 2000) throw new Error(`${what}: ${String(value)} is larger than 2 m; give the size in mm, e.g. "170mm"`);
-  return mm;
+  // Whole nanometres: "3in" is 76.2 mm, not 76.19999999999999.
+  return Math.round(mm * 1e6) / 1e6;
 }
 
 /**
