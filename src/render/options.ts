@@ -105,8 +105,7 @@ export function parseLength(value: string | number, what: string): number {
   }
   if (!Number.isFinite(mm) || mm <= 0) throw new Error(`${what}: length must be positive, got ${String(value)}`);
   if (mm > 2000) throw new Error(`${what}: ${String(value)} is larger than 2 m; give the size in mm, e.g. "170mm"`);
-  // Whole nanometres: "3in" is 76.2 mm, not 76.19999999999999.
-  return Math.round(mm * 1e6) / 1e6;
+  return mm;
 }
 
 /**
