@@ -97,8 +97,15 @@ export interface DiagramModel {
   temperature: { celsius: number; kelvin: number };
   units: Record<string, string>;
   domain: { pH: [number, number]; E: [number, number] };
+  /**
+   * The dissolved-element amount every dissolved species of the element follows: the activity when
+   * the file gives one, else the molality (mol/kg) of the concentration given (see `amounts`).
+   */
   activity: number;
+  /** Each ligand's total: its activity, or the molality (mol/kg) of the concentration given. */
   ligands: Record<string, number>;
+  /** The amounts as the file gives them (value and unit) with their molality, for captions and reports. */
+  amounts?: { element: GivenAmount; ligands: Record<string, GivenAmount> };
   species: SpeciesSummary[];
   regions: RegionModel[];
   boundaries: BoundaryModel[];
@@ -114,6 +121,17 @@ export interface DiagramModel {
   /** Composition mode: the totals, and the iso-solubility lines of the dissolved element. */
   composition?: CompositionModel;
   isoSolubility?: IsoSolubilityLine[];
+}
+
+/** An amount as given in the system file, with the molality it converts to (absent for an activity). */
+export interface GivenAmount {
+  kind: 'activity' | 'molality' | 'mg/L';
+  value: number;
+  /** For mg/L: the formula whose molar mass converts it. */
+  as?: string;
+  molality?: number;
+  /** True for the default threshold (no activity or concentration in the file). */
+  isDefault?: boolean;
 }
 
 export interface SpeciesSummary {

@@ -7,6 +7,7 @@ import type { BoundaryModel, DiagramModel } from './model.js';
 import { solve, type Solution } from './solve/solve.js';
 import { gridMap } from './solve/grid.js';
 import { type BuiltSystem, buildSystem } from './system/build.js';
+import { amountNumber, givenAmounts } from './system/amounts.js';
 import { checkCompositionGrid, checkWorkBudget, familiesRequested } from './system/budget.js';
 import { readSystemFile } from './system/read.js';
 import { readSpec, type SystemSpec } from './system/spec.js';
@@ -34,9 +35,11 @@ export function compute(spec: SystemSpec): Computed {
   const species = built.input.species.length + (built.input.ligands ?? []).reduce((n, l) => n + l.species.length, 0);
   checkWorkBudget({ grid: spec.grid, species, families: familiesRequested(spec.extra) }, spec.file);
   const solution = solve(built.input);
+  const amounts = givenAmounts(spec, built.solution.water.density);
   const model = buildModel(built.input, solution, {
-    activity: spec.activity,
-    ligands: spec.ligands,
+    activity: amountNumber(amounts.element),
+    ligands: Object.fromEntries(Object.entries(amounts.ligands).map(([k, a]) => [k, amountNumber(a)])),
+    amounts,
     sources: built.sources,
     warnings: built.warnings,
     water: waterSummary(built),

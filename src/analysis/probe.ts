@@ -1,18 +1,23 @@
 /**
  * The `probe` report: the answer at one operating point, evaluated exactly from the ψ planes —
  * predominant species and its verdict (immunity / passivation / corrosion at the threshold
- * activity), runner-up and margin, the nearest boundary, the distance to it in mV (at fixed pH) and
- * in pH units (at fixed E), and which change of condition would cross it.
+ * activity), runner-up and margin, and distances with one definition per name:
+ *  - vertical: the change of E at this pH (mV) to the boundary above or below, the nearer one;
+ *  - horizontal: the change of pH at this E to the boundary at lower or higher pH, the nearer one;
+ *  - nearest boundary: the shortest distance in the (pH, E) plane with 1 pH counted as the Nernst
+ *    slope s = RT·ln10/F at T (59.16 mV at 25 °C), given in mV on that scale, with the point reached.
+ * Every boundary is named the same way everywhere: the pair of species it separates.
  */
 import { classify } from '../diagram/classify.js';
 import { type Verdict, verdictOf } from '../diagram/verdict.js';
-import type { RegionClass } from '../model.js';
+import type { GivenAmount, RegionClass } from '../model.js';
 import type { Computed } from '../pipeline.js';
 import { probeGeometry, psiAt } from '../solve/point.js';
 import type { SolverSpecies } from '../solve/types.js';
 
 /** A verdict, or 'unknown' where the species could not be carried to T (undetermined). */
 export type PointVerdict = Verdict | 'unknown';
+import { nernstSlope } from '../thermo/constants.js';
 
 export interface Crossing {
   /** Change needed: V for potential, pH units for pH (signed). */
@@ -20,7 +25,23 @@ export interface Crossing {
   /** What lies beyond, with its verdict. */
   to: string;
   verdict: PointVerdict;
+  /** The boundary crossed, named by the two species it separates. */
+  between: [string, string];
   reaction: string;
+}
+
+/**
+ * Margin to the runner-up: ψ(runner-up) − ψ(predominant) in kJ per mol of the element, and the
+ * change of potential (at this pH) or of pH (at this potential) that closes it on the ψ planes.
+ * A shift is null when the margin does not depend on that variable — e.g. no electron transfer
+ * between the two (same oxidation state): no potential change reaches the runner-up — with `note`
+ * saying why.
+ */
+export interface Margin {
+  kJPerMol: number;
+  potentialV: number | null;
+  pH: number | null;
+  note?: string;
 }
 
 export interface ProbeResult {
@@ -34,15 +55,28 @@ export interface ProbeResult {
   class: RegionClass;
   /** 'unknown' where the predominant species is undetermined at T (no temperature data). */
   verdict: PointVerdict;
-  /** Threshold activity of dissolved species the verdict refers to. */
+  /** Threshold activity (or molality, see `amount`) of dissolved species the verdict refers to. */
   threshold: number;
+  /** The dissolved-element amount as the file gives it, with its unit (model.amounts.element). */
+  amount?: GivenAmount;
   runnerUp: string | null;
-  margin: { kJPerMol: number; potentialV: number | null };
+  margin: Margin;
   ligandSpecies: Record<string, string>;
   crossings: { raiseE: Crossing | null; lowerE: Crossing | null; lowerPH: Crossing | null; raisePH: Crossing | null };
-  /** Distance to the nearest boundary: mV along E at this pH, pH units along pH at this E. */
+  /**
+   * Vertical distance `mV`: signed change of E at this pH to the nearer of the boundaries above and
+   * below (crossings.raiseE / lowerE). Horizontal distance `pH`: signed change of pH at this E to
+   * the nearer of the boundaries at lower and higher pH (crossings.lowerPH / raisePH).
+   */
   distance: { mV: number | null; pH: number | null };
-  nearestBoundary: { between: [string, string]; reaction: string; equation: string; distanceMV: number } | null;
+  /** Shortest distance in the (pH, E) plane, 1 pH counted as the Nernst slope (see `metric`). */
+  nearestBoundary: {
+    between: [string, string];
+    reaction: string;
+    equation: string;
+    at: { pH: number; E: number };
+    distance: { value: number; unit: 'mV'; metric: string };
+  } | null;
   /** One sentence: which change of condition crosses first. */
   advice: string;
   /** The diagram's warnings, led by the caveat for this point when its species is undetermined. */
@@ -63,13 +97,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
   const best = input.species[order[0][1]];
   const second = order.length > 1 ? input.species[order[1][1]] : null;
   const marginKJ = order.length > 1 ? order[1][0] - order[0][0] : 0;
-  let potentialV: number | null = null;
-  if (second) {
-    const h = 1e-4;
-    const a = psiAt(input, pH, E + h).psi;
-    const slope = (a[order[1][1]] - a[order[0][1]] - marginKJ) / h;
-    potentialV = Math.abs(slope) > 1e-12 ? -marginKJ / slope : null;
-  }
+  const margin: Margin = second ? marginShifts(input, pH, E, order[0][1], order[1][1], marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
   const winnerAt = (x: number, y: number) => {
     const p = psiAt(input, x, y).psi;
     const k = p.indexOf(Math.min(...p));
@@ -77,11 +105,11 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     return { formula: sp.formula, verdict: pointVerdict(input.element, sp, classes) };
   };
   const g = probeGeometry(c.model.boundaries, pH, E, input.kelvin);
-  const cross = (x: { shift: number; boundary: { reaction: string } } | undefined, dx: number, dy: number): Crossing | null => {
+  const cross = (x: { shift: number; boundary: { between: [string, string]; reaction: string } } | undefined, dx: number, dy: number): Crossing | null => {
     if (!x) return null;
     // Just beyond the boundary (0.05 mV or 0.001 pH further).
     const w = winnerAt(pH + dx * (x.shift + Math.sign(x.shift) * 1e-3), E + dy * (x.shift + Math.sign(x.shift) * 5e-5));
-    return { shift: x.shift, to: w.formula, verdict: w.verdict, reaction: x.boundary.reaction };
+    return { shift: x.shift, to: w.formula, verdict: w.verdict, between: x.boundary.between, reaction: x.boundary.reaction };
   };
   const crossings = {
     raiseE: cross(g.up, 0, 1),
@@ -108,18 +136,60 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     class: cls,
     verdict,
     threshold: c.model.activity,
+    ...(c.model.amounts ? { amount: thresholdAmount(c) } : {}),
     runnerUp: second ? second.formula : null,
-    margin: { kJPerMol: marginKJ, potentialV },
+    margin,
     ligandSpecies,
     crossings,
     distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP },
-    nearestBoundary: nb ? { between: nb.between, reaction: nb.reaction, equation: nb.equation, distanceMV: g.nearest!.distanceV * 1000 } : null,
+    nearestBoundary: nb ? nearestOf(g.nearest!, input.kelvin) : null,
     advice: '',
     warnings,
   };
   if (ref) r.reference = ref;
   r.advice = advice(r);
   return r;
+}
+
+/**
+ * The shifts that close the margin: ψ is a plane in (pH, E) within a ligand cell, so the margin
+ * changes by its slope times the shift; slopes from a 1 mV and a 0.001 pH step. A slope below
+ * 0.01 kJ/mol per V (about 1e-4 electrons per atom) or per pH counts as none.
+ */
+function marginShifts(input: Computed['built']['input'], pH: number, E: number, i: number, j: number, m: number): Margin {
+  const hE = 1e-3;
+  const hP = 1e-3;
+  const a = psiAt(input, pH, E + hE).psi;
+  const b = psiAt(input, pH + hP, E).psi;
+  const slopeE = (a[j] - a[i] - m) / hE;
+  const slopeP = (b[j] - b[i] - m) / hP;
+  const potentialV = Math.abs(slopeE) > 0.01 ? -m / slopeE : null;
+  const dpH = Math.abs(slopeP) > 0.01 ? -m / slopeP : null;
+  const out: Margin = { kJPerMol: m, potentialV, pH: dpH };
+  if (potentialV === null && dpH === null) out.note = 'no change of potential or pH alone reaches the runner-up (no electron or H+ exchanged with it; it depends on the ligand or dissolved activities)';
+  else if (potentialV === null) out.note = 'the runner-up is reached without electron transfer (same oxidation state): no change of potential reaches it, only a change of pH';
+  else if (dpH === null) out.note = 'the runner-up is reached without H+ or OH- exchange: no change of pH reaches it, only a change of potential';
+  return out;
+}
+
+/** The element's amount; the default threshold read as a molality (ionic strength given) says so. */
+function thresholdAmount(c: Computed): GivenAmount {
+  const a = c.model.amounts!.element;
+  const molal = c.model.species.some((x) => x.role === 'main' && x.molality !== undefined);
+  return a.kind === 'activity' && a.isDefault && molal ? { kind: 'molality', value: a.value, molality: a.value, isDefault: true } : a;
+}
+
+/** The nearest boundary in the plane, with its metric stated. */
+function nearestOf(n: NonNullable<ReturnType<typeof probeGeometry>['nearest']>, kelvin: number): NonNullable<ProbeResult['nearestBoundary']> {
+  const b = n.boundary;
+  const s = nernstSlope(kelvin) * 1000;
+  return {
+    between: b.between,
+    reaction: b.reaction,
+    equation: b.equation,
+    at: { pH: n.at[0], E: n.at[1] },
+    distance: { value: n.distanceV * 1000, unit: 'mV', metric: `shortest distance in the (pH, E) plane, 1 pH counted as ${s.toFixed(2)} mV (RT ln10/F at T)` },
+  };
 }
 
 function advice(r: ProbeResult): string {

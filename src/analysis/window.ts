@@ -7,9 +7,11 @@
  *           them); 2. at each interval's midpoint, the E intervals of every region on the vertical line,
  *           sorted: the region directly above the metal's; 3. runs of intervals where that region is
  *           dissolved form a window; 4. along a window, E_dep(pH) is the metal's upper edge (exact,
- *           piecewise linear), margin = E_dep − E_H2(pH); 5. the solid that takes over at each end.
+ *           piecewise linear), margin = E_dep − E_H2(pH); 5. the solid that takes over at each end;
+ *        6. notes true of the result (window-notes.ts): the sign of each margin, or why there is none.
  */
 import type { DiagramModel, RegionModel } from '../model.js';
+import { type AboveRun, marginNote, marginZeros, noWindowNote, WINDOW_DEFINITION } from './window-notes.js';
 
 export interface WindowResult {
   element: string;
@@ -136,10 +138,9 @@ export function platingWindow(model: DiagramModel, tol = 1e-9): WindowResult {
     const after = cols.find((c) => c.a >= w.pH[1] - 1e-12 && c.col.above >= 0 && model.regions[c.col.above].class === 'solid');
     if (after) firstSolid = { pH: after.a, species: model.regions[after.col.above].species };
   }
-  const notes = [
-    'Window: a dissolved species of the element lies directly above the metal, so the bath keeps the metal in solution and deposits it below E_dep.',
-    'marginToHydrogen > 0: the metal deposits at a potential above the hydrogen line (before hydrogen evolution at equilibrium); overpotentials are not included.',
-  ];
+  // Step 6: notes that are true of this result.
+  const notes = [WINDOW_DEFINITION, ...windows.map((w) => marginNote(w, marginZeros(w, eH2)))];
+  if (!windows.length) notes.push(noWindowNote(model.element, aboveRuns(model, cols)));
   const warnings = [...model.warnings];
   const und = new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species));
   const touched = windows.flatMap((w) => [...w.dissolved, w.boundedBy.low, w.boundedBy.high]).filter((x): x is string => x !== null && und.has(x));
@@ -148,4 +149,17 @@ export function platingWindow(model: DiagramModel, tol = 1e-9): WindowResult {
     warnings.unshift(`window edges undetermined at ${model.temperature.celsius} °C: ${[...new Set(touched)].join(', ') || 'the metal'} has only ΔfG° (placed with its 25 °C value)`);
   }
   return { element: model.element, temperature: { celsius: model.temperature.celsius }, windows, firstSolid, notes, warnings };
+}
+
+/** Runs of what lies directly above the metal, over the pH intervals where the metal has a field. */
+function aboveRuns(model: DiagramModel, cols: { a: number; b: number; col: Column }[]): AboveRun[] {
+  const runs: AboveRun[] = [];
+  for (const c of cols) {
+    if (c.col.top === null) continue;
+    const r = c.col.above >= 0 ? model.regions[c.col.above] : null;
+    const last = runs[runs.length - 1];
+    if (last && last.species === (r?.species ?? null) && Math.abs(last.pH[1] - c.a) < 1e-9) last.pH[1] = c.b;
+    else runs.push({ pH: [c.a, c.b], species: r?.species ?? null, class: r?.class ?? null });
+  }
+  return runs;
 }

@@ -2,7 +2,7 @@
  * Verb `cell`: energies, equilibrium and thermoneutral potentials of one reaction at a temperature
  * or over a range of temperatures.
  */
-import type { Command } from 'commander';
+import { type Command, Option } from 'commander';
 import { numberArg } from './args.js';
 import { cellReaction, cellTable, temperatureSteps, type CellResult, type SpeciesLookup } from '../thermo/cell.js';
 import { ReactionError, type ReactionSubject } from '../chem/reaction-parse.js';
@@ -25,6 +25,8 @@ interface CellCliOptions {
   range?: string;
   electrons?: string;
   extrapolation: string;
+  ref?: string;
+  /** Hidden alias of --ref (the name this verb used before). */
   reference?: string;
   ph?: string;
   json?: boolean;
@@ -35,7 +37,7 @@ interface CellCliOptions {
 const CLI = 'command line';
 
 /** The argument or option a reaction error is about. */
-const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--reference', activity: '--activity' };
+const REACTION_FIELD: Record<ReactionSubject, string> = { reaction: 'REACTION', electrons: '--electrons', reference: '--ref', activity: '--activity' };
 
 /** `--activity SPECIES=VALUE` (repeatable) into a map; the value a positive number. */
 function activityOption(value: string, prev: Record<string, number> = {}): Record<string, number> {
@@ -63,8 +65,9 @@ export function registerCell(program: Command, deps: CellDeps): void {
     .option('--electrons <N>', 'electrons transferred (for full reactions whose oxidation states are not decided)')
     .option('--extrapolation <mode>', "best (each species' own model: IAPWS water, HKF for aqueous species, Cp polynomials), cp (constant Cp°) or constant-h-s (ΔH − TΔS)", 'best')
     .option('--activity <species=value>', 'activity of a species as written (gases: pressure in bar), e.g. Fe+2=1e-6; repeatable; others at 1', activityOption)
-    .option('--reference <name>', 'also give half-reaction potentials against a reference electrode')
-    .option('--ph <pH>', 'pH, for --reference rhe')
+    .option('--ref <name>', 'also give half-reaction potentials against a reference electrode')
+    .addOption(new Option('--reference <name>', 'same as --ref').hideHelp())
+    .option('--ph <pH>', 'pH, for --ref rhe')
     .option('--species <file>', 'a system file whose inline species are used first (then the built-in library)')
     .option('--json', 'machine-readable output')
     .addHelpText('after', `\nReference electrodes:\n${listReferences().map((l) => `  ${l}`).join('\n')}\n`)
@@ -77,6 +80,11 @@ export function registerCell(program: Command, deps: CellDeps): void {
       const electrons = opts.electrons === undefined ? undefined : num(opts.electrons, '--electrons', 'a positive number of electrons');
       if (electrons !== undefined && !(electrons > 0)) throw new InputError(CLI, '--electrons', 'a positive number of electrons', opts.electrons);
       const pH = opts.ph === undefined ? undefined : num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 });
+      if (opts.ref !== undefined && opts.reference !== undefined) throw new InputError(CLI, '--ref', 'one of --ref and --reference (the same option), not both');
+      const reference = opts.ref ?? opts.reference;
+      if (reference !== undefined && reference.trim().toLowerCase() === 'rhe' && pH === undefined) {
+        throw new InputError(CLI, '--ph', 'a pH with --ref rhe (the reversible hydrogen electrode moves with the pH: E_SHE = E_RHE − 0.0592·pH at 25 °C)', 'no --ph');
+      }
       let temperatures: number[];
       if (opts.range !== undefined) {
         const parts = opts.range.split(':');
@@ -93,7 +101,7 @@ export function registerCell(program: Command, deps: CellDeps): void {
       }
       if (temperatures.some((t) => t <= -273.15)) throw new InputError(CLI, opts.range ? '--range' : '--temperature', 'temperatures above −273.15 °C', opts.range ?? opts.temperature);
       const lookup = opts.species === undefined ? deps.lookup : fileLookup(opts.species, deps.lookup);
-      const cellOpts = { lookup, electrons, extrapolation, reference: opts.reference, pH, activities: opts.activity };
+      const cellOpts = { lookup, electrons, extrapolation, reference, pH, activities: opts.activity };
       let rows: CellResult[];
       try {
         rows = temperatures.length === 1 && opts.range === undefined

@@ -37,7 +37,8 @@ export function registerCore(program: Command): void {
     .description('compute the diagram of a system file and write it; format by extension: .svg, .pdf, .png, .html (interactive), .json (diagram model)')
     .argument('<file>', 'system file (.json, .yaml, .yml)')
     .requiredOption('-o, --output <path>', 'output file (.svg, .pdf, .png, .html or .json)')
-    .option('--width <length>', 'figure width: mm, or e.g. "170mm", "800px"')
+    .option('--width <length>', 'figure width: mm, or e.g. "170mm", "3in", "800px" (a PNG then has 800 pixels across)')
+    .option('--dpi <n>', 'PNG resolution in dots per inch (default 300; 96 with a width in px)')
     .option('--height <length>', 'figure height')
     .option('--style <style>', 'color, gray or lines')
     .option('--font <family>', 'font family (SVG/PNG)')
@@ -69,12 +70,15 @@ export function registerCore(program: Command): void {
     .description('every boundary reaction and line equation')
     .argument('<file>', 'system file')
     .option('--json', 'machine-readable output')
-    .option('--ref <name>', 'also give each line against this reference electrode (sce, agcl-sat, cse, ...)')
+    .option('--ref <name>', "also give each line against this reference electrode (sce, agcl-sat, cse, ...; default: the file's reference)")
     .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
       const spec = loadSpecWith(file, opts);
       if (spec.composition) return linesComposition(spec, opts);
       const c = compute(spec);
-      const ref = opts.ref === undefined ? undefined : displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), c.spec.temperature, 'command line', '--ref');
+      // --ref, else the file's own `reference:` (as draw and probe do).
+      const given = opts.ref !== undefined ? readReference(new Fields('command line'), opts.ref, '--ref') : c.spec.operating.reference;
+      const [where, field] = opts.ref !== undefined ? ['command line', '--ref'] : [c.spec.file, 'reference'];
+      const ref = given === undefined ? undefined : displayReference(given, c.spec.temperature, where, field);
       warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
       const rows = lineRows(c.model, ref);
       if (opts.json) {

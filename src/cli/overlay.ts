@@ -1,5 +1,5 @@
 /**
- * `ephmap overlay FILE... -o out.svg|pdf|png [--temperatures 25,90,150] [--activities 1e-6,1e-4]`:
+ * `ephmap overlay FILE... -o out.svg|pdf|png|html [--temperatures 25,90,150] [--activities 1e-6,1e-4]`:
  * several diagrams in one frame (one system at several temperatures/activities, or several systems).
  */
 import type { Command } from 'commander';
@@ -10,6 +10,10 @@ import { computeLayers, layerSpecs, layerWarnings, overlayFigure, overlaySetting
 import { InputError } from '../system/errors.js';
 import { NUMBER_TEXT } from '../system/fields.js';
 import { checkOutputs, writeOne } from './outputs.js';
+import { withSecondAxis } from '../figure/compose.js';
+import { displayReference } from '../analysis/points.js';
+import { Fields } from '../system/fields.js';
+import { readReference } from '../system/operating.js';
 
 /** "25,90,150" → [25, 90, 150]; InputError naming the option for anything that is not a number list. */
 export function numberList(v: string, option: string, what: string): number[] {
@@ -26,30 +30,40 @@ interface OverlayOpts extends FigureOverrides {
   output: string;
   temperatures?: string;
   activities?: string;
+  ref?: string;
 }
+
+const OVERLAY_FORMATS = ['svg', 'pdf', 'png', 'html'];
 
 export function registerOverlay(program: Command): void {
   program
     .command('overlay')
     .description('several diagrams in one figure: one system file at several --temperatures or --activities, or several system files (e.g. Fe, Cr, Ni)')
     .argument('<files...>', 'system files; the first is the base layer')
-    .requiredOption('-o, --output <path>', 'output file (.svg, .pdf or .png)')
+    .requiredOption('-o, --output <path>', 'output file (.svg, .pdf, .png or .html; in .html the pointer read-out is that of the base layer)')
     .option('--temperatures <list>', 'temperatures in °C, comma-separated, e.g. 25,90,150')
     .option('--activities <list>', 'activities of the dissolved species, comma-separated, e.g. 1e-6,1e-4')
-    .option('--width <length>', 'figure width: mm, or e.g. "170mm", "800px"')
+    .option('--width <length>', 'figure width: mm, or e.g. "170mm", "3in", "800px" (a PNG then has 800 pixels across)')
+    .option('--dpi <n>', 'PNG resolution in dots per inch (default 300; 96 with a width in px)')
+    .option('--font <family>', 'font family (SVG/PNG/HTML)')
+    .option('--ref <name>', "second potential axis against this reference electrode (sce, agcl-sat, cse, ...; default: the base file's reference)")
     .option('--height <length>', 'figure height')
     .option('--style <style>', 'color, gray or lines (lines only when the elements differ)')
     .option('--title <text>', 'figure title')
     .option('--no-caption', 'leave out the caption block (kept when the elements differ)')
     .option('--grid', 'draw a light grid')
     .action(async (files: string[], opts: OverlayOpts) => {
-      const [dotExt] = checkOutputs([{ path: opts.output, option: '--output', extensions: ['.svg', '.pdf', '.png'] }], files.map((f, i) => ({ path: f, option: `<files> #${i + 1}` })));
+      const [dotExt] = checkOutputs([{ path: opts.output, option: '--output', extensions: OVERLAY_FORMATS.map((x) => `.${x}`) }], files.map((f, i) => ({ path: f, option: `<files> #${i + 1}` })));
       const ext = dotExt!.slice(1);
       const temperatures = opts.temperatures === undefined ? undefined : numberList(opts.temperatures, '--temperatures', 'temperatures in °C');
       const activities = opts.activities === undefined ? undefined : numberList(opts.activities, '--activities', 'activities');
       const specs = files.map((f) => loadSpec(f));
       const layers = computeLayers(layerSpecs({ specs, temperatures, activities }));
       const fig = overlaySettings(layers, opts);
+      if (opts.ref !== undefined) {
+        const r = displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), layers[0].spec.temperature, 'command line', '--ref');
+        withSecondAxis(layers[0], fig, r);
+      }
       for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
       const { input } = overlayFigure(layers, fig, ext === 'pdf');
       await writeOne(opts.output, await renderFigure(input, ext as FigureFormat));

@@ -7,8 +7,12 @@
 import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
-import { captionLines, figureInput } from '../figure/compose.js';
-import { figureSettingsWidth } from '../figure/options.js';
+import { captionLines, figureInput, withSecondAxis } from '../figure/compose.js';
+import { type FigureOverrides, figureSettingsWidth } from '../figure/options.js';
+import { withFigureFlags } from './figure-flags.js';
+import { displayReference } from '../analysis/points.js';
+import { Fields } from '../system/fields.js';
+import { readReference } from '../system/operating.js';
 import { compute } from '../pipeline.js';
 import { reportData } from '../report/report-data.js';
 import { reportHtml } from '../report/report-html.js';
@@ -26,12 +30,12 @@ type ReportFormat = (typeof REPORT_FORMATS)[number];
 const REPORT_WIDTH = '160mm';
 
 export function registerReport(program: Command): void {
-  withSpecOptions(program
-    .command('report'))
+  withFigureFlags(withSpecOptions(program
+    .command('report')))
     .description('one document (.md with a .svg beside it, self-contained .html, or .pdf): conditions, figure, reactions, operating points with verdicts, plating window, sources, cautions')
     .argument('<file>', 'system file (.json, .yaml, .yml)')
     .requiredOption('-o, --output <path>', 'output file (.md, .html or .pdf)')
-    .action(async (file: string, opts: { output: string } & SpecOverrides) => {
+    .action(async (file: string, opts: { output: string; ref?: string } & SpecOverrides & FigureOverrides) => {
       if (basename(opts.output, extname(opts.output)) === '') {
         throw new InputError('command line', '--output', 'a file name ending in .md, .html or .pdf', JSON.stringify(opts.output));
       }
@@ -42,12 +46,19 @@ export function registerReport(program: Command): void {
       checkOutputs(outputs, [{ path: file, option: '<file>' }]);
       const fmt = ext as ReportFormat;
       const spec = loadSpecWith(file, opts);
-      const fig = figureSettingsWidth(spec, {}, REPORT_WIDTH);
+      const { output: _o, ref: _r, ...figOpts } = opts;
+      const fig = figureSettingsWidth(spec, figOpts, REPORT_WIDTH);
       if (spec.composition) return reportComposition(spec, fig, opts.output, fmt);
       const c = compute(spec);
+      if (opts.ref !== undefined) {
+        withSecondAxis(c, fig, displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), spec.temperature, 'command line', '--ref'));
+      }
       for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
       const data = reportData(c);
-      const input = figureInput(c, fig);
+      // The document prints the caption under the figure once; the figure itself carries none.
+      const withCap = figureInput(c, fig);
+      const input = { ...withCap, options: { ...withCap.options, show: { ...withCap.options.show, caption: false } } };
+      delete input.caption;
       const caption = captionLines(c);
       if (fmt === 'md') {
         const svgName = `${basename(opts.output, extname(opts.output))}.svg`;
@@ -62,9 +73,8 @@ export function registerReport(program: Command): void {
         const svg = (await renderFigure(input, 'svg')) as string;
         await writeOne(opts.output, reportHtml(data, svg, caption));
       } else {
-        // Vector figure; its caption is printed under it by the report, so the figure omits its own.
-        const noCaption = { ...input, options: { ...input.options, show: { ...input.options.show, caption: false } } };
-        const scene = buildScene(noCaption);
+        // Vector figure; its caption is printed under it by the report.
+        const scene = buildScene(input);
         const { reportPdf } = await import('../report/report-pdf.js');
         await writeOne(opts.output, await reportPdf(data, scene, { width: fig.options.width, height: fig.options.height }, caption));
       }

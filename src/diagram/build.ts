@@ -37,7 +37,7 @@ function round(v: number, d: number): number {
 export function buildModel(
   input: SolverInput,
   sol: Solution,
-  meta: { activity: number; ligands: Record<string, number>; sources: string[]; warnings: string[]; water?: Record<string, number | string>; classes?: Record<string, Verdict> },
+  meta: { activity: number; ligands: Record<string, number>; amounts?: DiagramModel['amounts']; sources: string[]; warnings: string[]; water?: Record<string, number | string>; classes?: Record<string, Verdict> },
 ): DiagramModel {
   const regions: RegionModel[] = sol.regions
     .filter((r) => r.area > 0)
@@ -85,5 +85,6 @@ export function buildModel(
   };
   if (input.ligands.length) model.ligandRegions = ligandRegions;
   if (meta.water) model.water = meta.water;
+  if (meta.amounts) model.amounts = meta.amounts;
   return model;
 }

@@ -12,9 +12,7 @@ import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
 import type { DisplayedReference } from '../analysis/points.js';
 import { referenceOffset } from '../thermo/reference.js';
-import { fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
-
-const sup = powerOfTen;
+import { elementAmountText, fmtCelsius, ligandAmountTexts, shortSource } from '../report/format.js';
 
 /** What a figure is composed from: a computed diagram of either kind (the fixed kind may carry its solver state). */
 export type Drawn = Computed | ComputedAny;
@@ -22,10 +20,9 @@ export type Drawn = Computed | ComputedAny;
 export function captionLines(c: Pick<Computed, 'model'>): string[] {
   const m = c.model;
   if (m.kind === 'composition') return bathCaptionLines(m);
-  const corrected = m.species.some((x) => x.role === 'main' && x.molality !== undefined);
-  const lig = Object.entries(m.ligands).map(([k, v]) => `${k} ${sup(v)}`);
+  const lig = ligandAmountTexts(m);
   const lines = [
-    `${m.element}–H\u2082O${lig.length ? `–${Object.keys(m.ligands).join('–')}` : ''} at ${fmtCelsius(m.temperature.celsius)} °C; dissolved ${m.element} ${corrected ? `${sup(m.activity)} mol/kg` : `activity ${sup(m.activity)}`}` +
+    `${m.element}–H\u2082O${lig.length ? `–${Object.keys(m.ligands).join('–')}` : ''} at ${fmtCelsius(m.temperature.celsius)} °C; dissolved ${m.element} ${elementAmountText(m)}` +
       (lig.length ? `; ligand totals ${lig.join(', ')}` : '') +
       `; p(H\u2082) = ${m.waterLines.pressures.H2} bar, p(O\u2082) = ${m.waterLines.pressures.O2} bar.`,
   ];

@@ -28,6 +28,8 @@ export interface FigureOverrides {
   caption?: boolean;
   grid?: boolean;
   lineWidth?: string;
+  /** PNG resolution in dots per inch. */
+  dpi?: string;
   /** Comma-separated decorations to switch on / off (water, grid, caption, neutral, triplePoints, ligands, legend, title). */
   show?: string;
   hide?: string;
@@ -87,9 +89,11 @@ export function figureSettings(spec: SystemSpec, cli: FigureOverrides = {}): Fig
   }
   // Step: command-line overrides.
   const c = new Fields('command line');
+  if (cli.dpi !== undefined) opt.dpi = c.number(Number(cli.dpi), '--dpi', { min: 10, max: 2400 });
   if (cli.width !== undefined) opt.width = lengthCli(c, cli.width, '--width');
+  pixelWidth(opt, cli.width ?? o.width);
   if (cli.height !== undefined) opt.height = lengthCli(c, cli.height, '--height');
-  else if (cli.width !== undefined) opt.height = Math.round(opt.width * (DEFAULT_FIGURE.height / DEFAULT_FIGURE.width) * 100) / 100;
+  else if (cli.width !== undefined || (o.height === undefined && cli.dpi !== undefined)) opt.height = Math.round(opt.width * (DEFAULT_FIGURE.height / DEFAULT_FIGURE.width) * 100) / 100;
   if (cli.width !== undefined && o.fontSize === undefined && cli.fontSize === undefined) opt.fontSize = opt.width >= 150 ? 9 : DEFAULT_FIGURE.fontSize;
   if (cli.style !== undefined) opt.style = c.oneOf(cli.style, '--style', ['color', 'gray', 'lines'] as const);
   if (cli.font !== undefined) opt.fontFamily = c.string(cli.font, '--font', 'a font family name', 200).replace(/[<>"&]/g, '');
@@ -109,6 +113,19 @@ export function figureSettings(spec: SystemSpec, cli: FigureOverrides = {}): Fig
   if (cli.caption === false) opt.show.caption = false;
   if (cli.grid === true) opt.show.grid = true;
   return { options: opt, families };
+}
+
+/**
+ * A width given in pixels ("800px") asks for a PNG that many pixels across: the raster resolution
+ * becomes --dpi, or 96 px/in (CSS pixels, as the layout reads px) when none is given, and the figure
+ * is laid out px/dpi inches wide. Other units leave the resolution at --dpi or 300.
+ */
+function pixelWidth(opt: FigureOptions, given: unknown): void {
+  const m = typeof given === 'string' ? /^\s*([0-9]*\.?[0-9]+(?:[eE][+-]?[0-9]+)?)\s*px\s*$/.exec(given) : null;
+  if (!m) return;
+  const dpi = opt.dpi ?? 96;
+  opt.dpi = dpi;
+  opt.width = Math.round((Number(m[1]) / dpi) * 25.4 * 1e6) / 1e6;
 }
 
 function lengthCli(c: Fields, v: string, opt: string): number {

@@ -22,8 +22,8 @@ export async function renderFigure(input: FigureInput, format: FigureFormat): Pr
     return sceneToPdf(scene);
   }
   const { svgToPng } = await import('../render/png.js');
-  // 300 dpi print resolution.
-  return svgToPng(sceneToSvg(scene), Math.round(mmToPx(input.options.width, 300)));
+  // The figure's resolution (--dpi; a width given in px sets it so the PNG has those pixels), else 300 dpi.
+  return svgToPng(sceneToSvg(scene), Math.round(mmToPx(input.options.width, input.options.dpi ?? 300)));
 }
 
 /**

@@ -14,7 +14,7 @@ import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
 import type { FigureInput } from '../render/scene.js';
 import { InputError } from '../system/errors.js';
 import { T_RANGE, type SystemSpec } from '../system/spec.js';
-import { fmtAmount, fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
+import { elementAmountText, fmtCelsius, ligandAmountTexts, shortSource } from '../report/format.js';
 
 /**
  * Dash styles of the overlay layers, in order (names understood by the renderer's parseDash): the
@@ -73,9 +73,10 @@ export function layerSpecs(req: OverlayRequest): SystemSpec[] {
 /** Label of a layer: "Fe, 90 °C, a = 10⁻⁶" (ASCII "1e-6" where the output font lacks superscripts). */
 export function layerLabel(c: Computed, ascii: boolean): string {
   const m = c.model;
-  const a = ascii ? fmtAmount(m.activity) : powerOfTen(m.activity);
-  const lig = Object.entries(m.ligands).map(([k, v]) => `${k} ${ascii ? fmtAmount(v) : powerOfTen(v)}`);
-  return `${m.element}, ${fmtCelsius(m.temperature.celsius)} \u00b0C, a = ${a}${lig.length ? `, ${lig.join(', ')}` : ''}`;
+  const el = elementAmountText(m, ascii);
+  const a = el.startsWith('activity ') ? `a = ${el.slice('activity '.length)}` : el;
+  const lig = ligandAmountTexts(m, ascii);
+  return `${m.element}, ${fmtCelsius(m.temperature.celsius)} \u00b0C, ${a}${lig.length ? `, ${lig.join(', ')}` : ''}`;
 }
 
 export interface OverlayFigure {

@@ -30,6 +30,8 @@ export interface FigureOptions {
   title?: string;
   /** Second potential axis on the right: E_ref = E_SHE − offset (V); label e.g. "E / V vs SCE". */
   secondAxis?: { label: string; offset: number };
+  /** PNG resolution in dots per inch (default 300): the PNG is width/25.4 × dpi pixels across. */
+  dpi?: number;
 }
 
 /** Single-column journal figure: 85 mm wide, 8 pt text. */

@@ -71,8 +71,13 @@ export function layoutFigure(b: SceneBase): FigureBands {
   if (plot.h < 4 * fs * 3 || plot.w < 4 * fs * 4) {
     throw new FigureFitError(
       plot.w < 4 * fs * 4 ? '--width' : '--height',
-      `figure ${o.width}×${o.height} mm is too small for the plot with its caption and legend (plot ${(plot.w * 25.4 / 72).toFixed(0)}×${((plot.h * 25.4) / 72).toFixed(0)} mm); make it larger or hide the caption/legend`,
+      `figure ${mmText(o.width)}×${mmText(o.height)} mm is too small for the plot with its caption and legend (plot ${(plot.w * 25.4 / 72).toFixed(0)}×${((plot.h * 25.4) / 72).toFixed(0)} mm); make it larger or hide the caption/legend`,
     );
   }
   return { ...ticks, showTitle, titleSize, titleRuns, xLabelBase, xTitleBase, legendRows: rows, legendTop, legSize, legRowH, captionLines: caption, captionTop, capSize, capLead, plot };
+}
+
+/** A length in mm for messages: at most 2 decimals, so "3in" reads 76.2, not 76.19999999999999. */
+function mmText(mm: number): string {
+  return String(Number(mm.toFixed(2)));
 }

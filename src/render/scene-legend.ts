@@ -2,6 +2,7 @@
  * The legend and the caption of a figure: which entries and lines there are, how they wrap into
  * rows (layout), and their scene items once the plot is placed (drawing).
  */
+import { elementAmountText } from '../report/format.js';
 import type { RegionClass } from '../model.js';
 import { textBox, baselineForCentre } from './labels.js';
 import { CAP_HEIGHT, runsWidth } from './metrics.js';
@@ -55,7 +56,9 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
     const runs: TextRun[] =
       input.baseLabel !== undefined
         ? richRuns(input.baseLabel)
-        : [...plainRuns('boundaries, '), { text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...powerOfTenRuns(model.activity)];
+        : model.amounts && model.amounts.element.kind !== 'activity'
+          ? plainRuns(`boundaries, ${elementAmountText(model)}`)
+          : [...plainRuns('boundaries, '), { text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...powerOfTenRuns(model.activity)];
     legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
   }
   if ((input.families?.length ?? 0) > 0) {

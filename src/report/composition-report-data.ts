@@ -97,6 +97,7 @@ export function compositionReportData(spec: SystemSpec, cc: ComputedComposition,
   const ligands = Object.keys(cc.setup.totals).slice(1);
   const gamma = cc.setup.solver.gamma;
   return {
+    envelopes: [],
     title: spec.title ?? `${m.element}\u2013H\u2082O${ligands.map((l) => `\u2013${l}`).join('')} at ${fmtCelsius(m.temperature.celsius)} \u00b0C, the bath as made up`,
     element: m.element,
     celsius: m.temperature.celsius,

@@ -4,6 +4,8 @@
  * the same number always gives the same text.
  */
 
+import type { DiagramModel, GivenAmount } from '../model.js';
+
 /** A number to `sig` significant digits, plain between 1e-3 and 1e4, exponential outside. */
 export function fmtNum(v: number, sig = 4): string {
   if (!Number.isFinite(v)) return String(v);
@@ -74,4 +76,36 @@ export function mdCode(s: string): string {
 export function mdTable(header: string[], rows: string[][]): string {
   const line = (r: string[]) => `| ${r.join(' | ')} |`;
   return [line(header), line(header.map(() => '---')), ...rows.map(line)].join('\n');
+}
+
+/** A number as the file gave it: "10⁻⁶" (ASCII "1e-6") for powers of ten below 0.01, else plain. */
+function givenNumber(v: number, ascii: boolean): string {
+  const e = Math.log10(v);
+  if (Math.abs(e - Math.round(e)) < 1e-9 && Math.round(e) <= -2) return ascii ? fmtAmount(v) : powerOfTen(v);
+  return fmtNum(v, 4);
+}
+
+/**
+ * An amount with its unit, exactly as computed: "activity 10⁻⁶", "1.3 mol/kg",
+ * "60 mg/L (0.00169 mol/kg)", "5 mg/L as Fe (…)". `molal` marks the default threshold read as a
+ * molality (an ionic strength is given). Without `a` (models from older versions) `fallback` is
+ * written as an activity.
+ */
+export function amountLabel(a: GivenAmount | undefined, fallback: number, opts: { molal?: boolean; ascii?: boolean } = {}): string {
+  const ascii = opts.ascii ?? false;
+  if (!a) return `${opts.molal ? '' : 'activity '}${givenNumber(fallback, ascii)}${opts.molal ? ' mol/kg' : ''}`;
+  if (a.kind === 'activity') return opts.molal && a.isDefault ? `${givenNumber(a.value, ascii)} mol/kg` : `activity ${givenNumber(a.value, ascii)}`;
+  if (a.kind === 'molality') return `${givenNumber(a.value, ascii)} mol/kg`;
+  return `${fmtNum(a.value, 4)} mg/L${a.as ? ` as ${a.as}` : ''}${a.molality !== undefined ? ` (${fmtNum(a.molality, 3)} mol/kg)` : ''}`;
+}
+
+/** The dissolved-element amount of a model, with its unit. */
+export function elementAmountText(m: DiagramModel, ascii = false): string {
+  const molal = m.species.some((x) => x.role === 'main' && x.molality !== undefined);
+  return amountLabel(m.amounts?.element, m.activity, { molal, ascii });
+}
+
+/** Each ligand's total with its unit: ["Cl 60 mg/L (0.00169 mol/kg)", "S activity 10⁻³"]. */
+export function ligandAmountTexts(m: DiagramModel, ascii = false): string[] {
+  return Object.entries(m.ligands).map(([k, v]) => `${k} ${amountLabel(m.amounts?.ligands[k], v, { ascii })}`);
 }

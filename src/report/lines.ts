@@ -3,6 +3,7 @@
  */
 import { lineEquationText } from '../diagram/line-text.js';
 import type { BoundaryModel, DiagramModel } from '../model.js';
+import { elementAmountText, ligandAmountTexts } from './format.js';
 import { table } from './table.js';
 
 export interface LineRow {
@@ -29,19 +30,26 @@ export function equationAgainst(line: BoundaryModel['line'], ref: DisplayReferen
   return lineEquationText(line, { scale: ref.label, offset: ref.offset });
 }
 
-/** One row per distinct reaction; runs of the same reaction are combined. */
+/**
+ * One row per connected segment of each reaction: boundary pieces with the same reaction that meet
+ * end to end are combined; pieces that do not touch (e.g. Cu/Cu2O on either side of a Cu(NH3)2+
+ * field) are separate rows, each with its own span.
+ */
 export function lineRows(model: DiagramModel, ref?: DisplayReference): LineRow[] {
-  const rows = new Map<string, LineRow>();
+  const groups = new Map<string, BoundaryModel[]>();
   for (const b of model.boundaries) {
     const key = `${b.between.join('|')}|${b.reaction}`;
-    const xs = b.points.map((p) => p[0]);
-    const ys = b.points.map((p) => p[1]);
-    const r = rows.get(key);
-    if (r) {
-      r.pHRange = [Math.min(r.pHRange[0], ...xs), Math.max(r.pHRange[1], ...xs)];
-      r.ERange = [Math.min(r.ERange[0], ...ys), Math.max(r.ERange[1], ...ys)];
-    } else {
-      rows.set(key, {
+    const g = groups.get(key);
+    if (g) g.push(b);
+    else groups.set(key, [b]);
+  }
+  const rows: LineRow[] = [];
+  for (const pieces of groups.values()) {
+    for (const part of connected(pieces)) {
+      const xs = part.flatMap((b) => b.points.map((p) => p[0]));
+      const ys = part.flatMap((b) => b.points.map((p) => p[1]));
+      const b = part[0];
+      rows.push({
         between: b.between,
         ligandSpecies: b.ligandSpecies,
         reaction: b.reaction,
@@ -53,14 +61,36 @@ export function lineRows(model: DiagramModel, ref?: DisplayReference): LineRow[]
       });
     }
   }
-  return [...rows.values()];
+  return rows;
+}
+
+/** Pieces grouped by shared end points (within 1e-7 in pH and V), in order of lowest pH. */
+function connected(pieces: BoundaryModel[]): BoundaryModel[][] {
+  const parent = pieces.map((_, k) => k);
+  const find = (k: number): number => (parent[k] === k ? k : (parent[k] = find(parent[k])));
+  const ends = (b: BoundaryModel) => [b.points[0], b.points[b.points.length - 1]];
+  const near = (p: [number, number], q: [number, number]) => Math.abs(p[0] - q[0]) < 1e-7 && Math.abs(p[1] - q[1]) < 1e-7;
+  for (let i = 0; i < pieces.length; i++) {
+    for (let j = i + 1; j < pieces.length; j++) {
+      if (ends(pieces[i]).some((p) => ends(pieces[j]).some((q) => near(p, q)))) parent[find(i)] = find(j);
+    }
+  }
+  const out = new Map<number, BoundaryModel[]>();
+  pieces.forEach((b, k) => {
+    const r = find(k);
+    const g = out.get(r);
+    if (g) g.push(b);
+    else out.set(r, [b]);
+  });
+  const minPH = (g: BoundaryModel[]) => Math.min(...g.flatMap((b) => b.points.map((p) => p[0])));
+  return [...out.values()].sort((a, b) => minPH(a) - minPH(b));
 }
 
 export function linesText(model: DiagramModel, ref?: DisplayReference): string {
   const rows = lineRows(model, ref);
   const corrected = model.species.some((x) => x.role === 'main' && x.molality !== undefined);
-  const head = `${model.element} at ${model.temperature.celsius} °C; dissolved ${model.element} ${corrected ? 'molality' : 'activity'} ${fmtA(model.activity)}${corrected ? ' mol/kg (activities below)' : ''}` +
-    (Object.keys(model.ligands).length ? `; ligands ${Object.entries(model.ligands).map(([k, v]) => `${k} ${fmtA(v)}`).join(', ')}` : '') +
+  const head = `${model.element} at ${model.temperature.celsius} °C; dissolved ${model.element} ${elementAmountText(model, true)}${corrected ? ' (activities below)' : ''}` +
+    (Object.keys(model.ligands).length ? `; ligand totals ${ligandAmountTexts(model, true).join(', ')}` : '') +
     '\nPotentials in V vs SHE at the diagram temperature.';
   const body = table(
     ['boundary', 'reaction', 'E°/V or log K', 'line', ...(ref ? [`line vs ${ref.label}`] : []), 'pH range'],
@@ -85,11 +115,6 @@ export function linesText(model: DiagramModel, ref?: DisplayReference): string {
   const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${w.reaction}: ${w.equation}`).join('\n');
   const warn = model.warnings.length ? `\nWarnings:\n${model.warnings.map((w) => `  ${w}`).join('\n')}\n` : '';
   return `${head}\n\n${body}\n${actText}\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n${warn}`;
-}
-
-function fmtA(a: number): string {
-  const e = Math.log10(a);
-  return Number.isInteger(Math.round(e * 1e9) / 1e9) ? `1e${Math.round(e)}` : String(a);
 }
 
 export interface ActivityRow {

@@ -1,32 +1,59 @@
 /**
  * The `probe` answer as plain text for people: the point, the verdict, the runner-up and margin,
- * the distances to the nearest boundary and each crossing. Computes nothing.
+ * the distances (each with its definition) and each crossing. Computes nothing.
  */
-import type { ProbeResult } from '../analysis/probe.js';
+import type { Crossing, ProbeResult } from '../analysis/probe.js';
+import { amountLabel } from './format.js';
+
+const mv = (v: number) => `${v >= 0 ? '+' : ''}${(v * 1000).toFixed(1)} mV`;
+const ph = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(3)} pH`;
+const pair = (x: { between: [string, string] }) => x.between.join(' / ');
+
+/** The runner-up line: margin, and the shift of E and of pH that closes it (or why there is none). */
+function runnerUpLine(r: ProbeResult): string {
+  if (!r.runnerUp) return 'runner-up: none';
+  const m = r.margin;
+  const parts = [`margin ${m.kJPerMol.toFixed(3)} kJ per mol of element`];
+  if (m.potentialV !== null) parts.push(`${mv(m.potentialV)} at this pH`);
+  if (m.pH !== null) parts.push(`${ph(m.pH)} at this potential`);
+  if (m.note) parts.push(m.note);
+  return `runner-up: ${r.runnerUp} (${parts.join('; ')})`;
+}
+
+/** The nearer of two crossings in one direction, named by its boundary. */
+function nearer(a: Crossing | null, b: Crossing | null, fmt: (v: number) => string, dirA: string, dirB: string): string {
+  const pick = a && b ? (Math.abs(a.shift) <= Math.abs(b.shift) ? a : b) : a ?? b;
+  if (!pick) return 'no boundary in the diagram';
+  return `${fmt(pick.shift)} to the boundary ${pick === a ? dirA : dirB} (${pair(pick)})`;
+}
 
 export function probeText(r: ProbeResult): string {
-  const mv = (v: number) => `${v >= 0 ? '+' : ''}${(v * 1000).toFixed(1)} mV`;
-  const ph = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(3)} pH`;
   const where = r.reference
     ? `pH ${r.pH}, E ${r.reference.E} V vs ${r.reference.label} (= ${r.E.toFixed(4)} V vs SHE), ${r.temperature.celsius} °C`
     : `pH ${r.pH}, E ${r.E} V vs SHE, ${r.temperature.celsius} °C`;
+  const c = r.crossings;
   const lines = [
     `point: ${where}`,
-    `verdict: ${r.verdict.toUpperCase()} — ${r.predominant} predominates (${r.class}; dissolved-species threshold activity ${r.threshold})`,
-    `runner-up: ${r.runnerUp ?? 'none'} (margin ${r.margin.kJPerMol.toFixed(3)} kJ per mol of element${r.margin.potentialV !== null ? `, ${mv(r.margin.potentialV)}` : ''})`,
-    `distance to the nearest boundary: ${r.distance.mV === null ? 'none along E' : mv(r.distance.mV / 1000)} (at this pH); ${r.distance.pH === null ? 'none along pH' : ph(r.distance.pH)} (at this potential)`,
+    `verdict: ${r.verdict.toUpperCase()} — ${r.predominant} predominates (${r.class}; dissolved-species threshold ${amountLabel(r.amount, r.threshold, { ascii: true })})`,
+    runnerUpLine(r),
+    `vertical distance (change of E at this pH): ${nearer(c.raiseE, c.lowerE, mv, 'above', 'below')}`,
+    `horizontal distance (change of pH at this potential): ${nearer(c.lowerPH, c.raisePH, ph, 'at lower pH', 'at higher pH')}`,
   ];
-  const c = r.crossings;
   for (const [name, x, unit] of [
     ['raise E', c.raiseE, 'V'],
     ['lower E', c.lowerE, 'V'],
     ['lower pH', c.lowerPH, 'pH'],
     ['raise pH', c.raisePH, 'pH'],
   ] as const) {
-    if (x) lines.push(`  ${name.padEnd(8)} ${unit === 'V' ? mv(x.shift) : ph(x.shift)} → ${x.to} (${x.verdict}): ${x.reaction}`);
+    if (x) lines.push(`  ${name.padEnd(8)} ${unit === 'V' ? mv(x.shift) : ph(x.shift)} → ${x.to} (${x.verdict}), across ${pair(x)}: ${x.reaction}`);
   }
   lines.push(r.advice);
-  if (r.nearestBoundary) lines.push(`nearest boundary: ${r.nearestBoundary.between.join(' / ')}: ${r.nearestBoundary.reaction} [${r.nearestBoundary.equation}]`);
+  const nb = r.nearestBoundary;
+  if (nb) {
+    lines.push(
+      `nearest boundary in the plane: ${pair(nb)}, ${nb.distance.value.toFixed(1)} mV away at pH ${nb.at.pH.toFixed(3)}, E ${nb.at.E.toFixed(4)} V vs SHE (${nb.distance.metric}): ${nb.reaction} [${nb.equation}]`,
+    );
+  }
   if (r.warnings.length) lines.push('warnings:', ...r.warnings.map((w) => `  ${w}`));
   lines.push('Equilibrium thermodynamics only — not kinetics; follow the applicable codes and a qualified corrosion professional.');
   return `${lines.join('\n')}\n`;

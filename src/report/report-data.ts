@@ -5,6 +5,7 @@
  * cautions (REPORT_CAUTIONS). The writers (report-md, report-html, report-pdf) only lay
  * it out. Deterministic: no dates, no machine paths.
  */
+import { type EnvelopeResult, probeEnvelopes } from '../analysis/envelopes.js';
 import { findReference, referenceOffset } from '../thermo/reference.js';
 import { loadLibrary } from '../data/library.js';
 import type { Computed } from '../pipeline.js';
@@ -63,7 +64,9 @@ export interface ReportData {
    * `points`, which is then empty); see report/composition-report-data.ts.
    */
   speciation?: SpeciationSection;
-  /** The plating window, when a dissolved field lies directly above the metal somewhere. */
+  /** Envelopes (boxes) and paths of the system file, answered at their sample points. */
+  envelopes: EnvelopeResult[];
+  /** The plating window, when the system file asks for it (`platingWindow: true`). */
   window: WindowResult | null;
   sources: string[];
   species: ReportSpecies[];
@@ -153,7 +156,8 @@ export function reportData(c: Computed): ReportData {
   const m = c.model;
   const warnings = [...m.warnings];
   const pts = probeOperatingPoints(c, warnings);
-  const win = platingWindow(m);
+  const envelopes = probeEnvelopes(c, warnings);
+  const win = c.spec.extra.platingWindow === true ? platingWindow(m) : null;
   const species = speciesSources(c);
   const sources = [...m.sources];
   const ref = c.spec.operating.reference;
@@ -173,7 +177,8 @@ export function reportData(c: Computed): ReportData {
       { couple: 'O\u2082/H\u2082O', reaction: m.waterLines.oxygen.reaction, equation: m.waterLines.oxygen.equation },
     ],
     points: pts,
-    window: win.windows.length ? win : null,
+    envelopes,
+    window: win,
     sources,
     species,
     warnings,
@@ -181,6 +186,13 @@ export function reportData(c: Computed): ReportData {
     closing: REPORT_CLOSING,
     verdictBasis: VERDICT_BASIS,
   };
+}
+
+/** One envelope or path as plain text: its verdicts, then each sample's answer. */
+export function envelopeText(e: EnvelopeResult): string {
+  const head = `${e.label} (${e.kind === 'box' ? 'envelope' : 'path'}, E vs ${e.scale}): ${e.verdicts.length === 1 ? `${e.verdicts[0]} at every sample` : `mixed: ${e.verdicts.join(', ')}`}`;
+  const at = e.samples.map((s) => `${s.where === 'centre' || s.where.startsWith('point') ? `${s.where} (pH ${fmtNum(s.pH)}, E ${fmtNum(s.Egiven)})` : s.where}: ${s.predominant} (${s.verdict})`);
+  return `${head}. ${e.kind === 'box' ? 'Corners and centre' : 'Points'}: ${at.join('; ')}.`;
 }
 
 /** Crossing lines of a point, in a fixed order, as plain text. */

@@ -5,7 +5,7 @@
 import { esc } from '../render/svg.js';
 import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
-import { crossingTexts } from './report-data.js';
+import { crossingTexts, envelopeText } from './report-data.js';
 import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 const STYLE = [
@@ -111,6 +111,12 @@ export function reportHtml(d: ReportData, svg: string, caption: string[]): strin
     o.push('</ul>');
   }
 
+  if (d.envelopes.length) {
+    o.push('<h2>Envelopes and paths</h2>');
+    o.push('<p>Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here — see the figure.</p>');
+    o.push(`<ul>${d.envelopes.map((e) => `<li>${esc(envelopeText(e))}</li>`).join('')}</ul>`);
+  }
+
   if (d.window) {
     const w = d.window;
     o.push('<h2>Plating window</h2>');
@@ -121,7 +127,7 @@ export function reportHtml(d: ReportData, svg: string, caption: string[]): strin
       esc(`${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`),
       esc(`${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`),
     ])));
-    o.push(`<p>${w.firstSolid ? `First solid above the window: ${code(w.firstSolid.species)} from pH ${esc(w.firstSolid.pH.toFixed(2))}.` : 'No solid appears above the window within the diagram.'}</p>`);
+    o.push(`<p>${w.firstSolid ? `First solid above the window: ${code(w.firstSolid.species)} from pH ${esc(w.firstSolid.pH.toFixed(2))}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).')}</p>`);
     o.push(`<ul>${w.notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>`);
   }
 

@@ -4,7 +4,7 @@
  */
 import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
-import { crossingTexts } from './report-data.js';
+import { crossingTexts, envelopeText } from './report-data.js';
 import { fmtCelsius, fmtNum, fmtSigned, mdCode, mdEsc, mdTable } from './format.js';
 
 export function reportMarkdown(d: ReportData, figureFile: string, caption: string[]): string {
@@ -71,6 +71,13 @@ export function reportMarkdown(d: ReportData, figureFile: string, caption: strin
     out.push('');
   }
 
+  if (d.envelopes.length) {
+    para('## Envelopes and paths');
+    para('Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here — see the figure.');
+    for (const e of d.envelopes) out.push(`- ${mdEsc(envelopeText(e))}`);
+    out.push('');
+  }
+
   if (d.window) {
     const w = d.window;
     para('## Plating window');
@@ -81,7 +88,7 @@ export function reportMarkdown(d: ReportData, figureFile: string, caption: strin
       `${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`,
       `${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`,
     ])));
-    para(w.firstSolid ? `First solid above the window: ${mdCode(w.firstSolid.species)} from pH ${w.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.');
+    para(w.firstSolid ? `First solid above the window: ${mdCode(w.firstSolid.species)} from pH ${w.firstSolid.pH.toFixed(2)}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).'));
     for (const n of w.notes) out.push(`- ${mdEsc(n)}`);
     out.push('');
   }

@@ -9,7 +9,7 @@ import { drawSceneOnPdf } from '../render/pdf.js';
 import { pdfText } from '../render/pdf-text.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
-import { crossingTexts } from './report-data.js';
+import { crossingTexts, envelopeText } from './report-data.js';
 import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 type Doc = PDFKit.PDFDocument;
@@ -188,6 +188,12 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
     }));
   }
 
+  if (d.envelopes.length) {
+    w.heading('Envelopes and paths');
+    w.para('Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here - see the figure.');
+    w.bullets(d.envelopes.map(envelopeText));
+  }
+
   if (d.window) {
     const win = d.window;
     w.heading('Plating window');
@@ -198,7 +204,7 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
       `${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`,
       `${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`,
     ]), [0.14, 0.2, 0.22, 0.2, 0.24]);
-    w.para(win.firstSolid ? `First solid above the window: ${win.firstSolid.species} from pH ${win.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.');
+    w.para(win.firstSolid ? `First solid above the window: ${win.firstSolid.species} from pH ${win.firstSolid.pH.toFixed(2)}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).'));
     w.bullets(win.notes);
   }
 

@@ -4,17 +4,21 @@
  */
 import type { WindowResult } from '../analysis/window.js';
 import type { DiagramModel } from '../model.js';
+import { elementAmountText, ligandAmountTexts } from './format.js';
 import { table } from './table.js';
 
 /** "Plating window for Ni at 25 °C (dissolved Ni 0.1; N 1); potentials in V vs SHE." */
 export function windowHeading(m: DiagramModel): string {
-  return `Plating window for ${m.element} at ${m.temperature.celsius} °C (dissolved ${m.element} ${m.activity}${Object.keys(m.ligands).length ? `; ${Object.entries(m.ligands).map(([k, x]) => `${k} ${x}`).join(', ')}` : ''}); potentials in V vs SHE.`;
+  return `Plating window for ${m.element} at ${m.temperature.celsius} °C (dissolved ${m.element} ${elementAmountText(m, true)}${Object.keys(m.ligands).length ? `; ligand totals ${ligandAmountTexts(m, true).join(', ')}` : ''}); potentials in V vs SHE.`;
 }
 
 export function windowText(r: WindowResult, head: string): string {
   const v = (x: number) => `${x >= 0 ? '+' : ''}${x.toFixed(3)}`;
   const warn = r.warnings.length ? `warnings:\n${r.warnings.map((w) => `  ${w}`).join('\n')}\n` : '';
-  if (!r.windows.length) return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n${warn}`;
+  if (!r.windows.length) {
+    const why = r.notes.filter((n) => n.startsWith('No window')).join('\n');
+    return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n${why.replace(/^No window: /, 'Why: ')}\n${warn}`;
+  }
   const rows = r.windows.map((w) => [
     `${w.pH[0].toFixed(2)}–${w.pH[1].toFixed(2)}`,
     w.dissolved.join(', '),

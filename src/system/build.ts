@@ -176,6 +176,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
 function keepLigandSpecies(spec: SystemSpec, s: ResolvedSpecies): boolean {
   const grouped = groupElements(s.f.elements, spec.ligandGroups);
   if (!grouped) return false;
+  if (!keepMixedLigand(spec, grouped)) return false;
   if ((s.f.elements[spec.element] ?? 0) > 0) return true;
   const L = Object.keys(spec.ligandGroups).find((k) => (grouped[k] ?? 0) > 0);
   if (!L) return true;
@@ -184,6 +185,20 @@ function keepLigandSpecies(spec: SystemSpec, s: ResolvedSpecies): boolean {
   if (Array.isArray(choice)) return choice.some((x) => splitPhase(x).formula === s.formula && (!splitPhase(x).phase || splitPhase(x).phase === s.phase));
   const def = LIGAND_DEFAULTS[L];
   return def ? s.phase === 'aq' && def.species.includes(s.formula) : true;
+}
+
+/**
+ * A species (of the main element or of the ligands alone) that holds two or more separately declared ligands (e.g. Fe(CN)6-4
+ * when the file declares C and N, i.e. carbonate and ammonia) is a compound of a group the file did
+ * not declare: carbonate and ammonia do not become cyanide in a cooling water. It is kept only when
+ * that group is itself a declared ligand (`CN`; then it groups to one ligand and never reaches
+ * here as a mix) or when every ligand it holds has `ligandSpecies: all` (the file asks for every
+ * redox change of those ligands).
+ */
+function keepMixedLigand(spec: SystemSpec, grouped: Record<string, number>): boolean {
+  const held = Object.keys(spec.ligandGroups).filter((L) => (grouped[L] ?? 0) > 0);
+  if (held.length < 2) return true;
+  return held.every((L) => spec.ligandSpecies[L] === 'all');
 }
 
 /**

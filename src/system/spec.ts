@@ -108,6 +108,7 @@ export const TOP_KEYS = [
   'paths',
   'classes',
   'families',
+  'platingWindow',
   'description',
   'elements',
   'composition',
@@ -243,6 +244,8 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     if (n > MAX_DESCRIPTION) throw new InputError(file, 'description', `a description of at most ${MAX_DESCRIPTION} characters`, `${n}`);
   }
   const extra: Record<string, unknown> = {};
+  // `platingWindow: true` asks `report` for its plating-window section (a bath, not a corrosion case).
+  if (o.platingWindow !== undefined) extra.platingWindow = f.boolean(o.platingWindow, 'platingWindow');
   for (const k of ['figure', 'reference', 'points', 'boxes', 'paths', 'classes', 'families', 'description']) {
     if (o[k] !== undefined) extra[k] = o[k];
   }

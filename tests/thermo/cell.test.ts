@@ -321,6 +321,6 @@ describe('cell command', () => {
     await expect(run([WATER, '--range', '25:x:5'])).rejects.toThrow(InputError);
     await expect(run([WATER, '--extrapolation', 'magic'])).rejects.toThrow(/--extrapolation/);
     await expect(run(['H2O(l) = H2(g) + O2(g)'])).rejects.toThrow(/command line: REACTION: expected a balanced reaction/);
-    await expect(run(['Cu+2 + 2e- = Cu(s)', '--reference', 'nowhere'])).rejects.toThrow(/--reference.*known: she, rhe, sce/);
+    await expect(run(['Cu+2 + 2e- = Cu(s)', '--reference', 'nowhere'])).rejects.toThrow(/--ref.*known: she, rhe, sce/);
   });
 });

@@ -1,0 +1,52 @@
+/**
+ * Issue 15, report: envelopes (boxes) and paths are answered in the document, the plating-window
+ * section appears only when the file asks for it (`platingWindow: true`), the figure options apply,
+ * and the caption is printed once (under the figure, not also inside it).
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../helpers/cli.js';
+import { tmpDir, writeTmp } from '../helpers/tmp.js';
+
+const dir = tmpDir();
+const body = `element: Fe
+reference: sce
+boxes:
+  - {label: "normal operation", pH: [8.8, 9.6], E: [-0.75, -0.55]}
+paths:
+  - {label: "start-up", points: [[7, -0.4], [8.5, -0.6], [9.2, -0.7]]}
+`;
+const fe = writeTmp(dir, 'fe.yaml', body);
+const bath = writeTmp(dir, 'bath.yaml', 'element: Cu\nactivity: 0.5\npH: [0, 6]\nplatingWindow: true\n');
+
+describe('report', () => {
+  it('answers envelopes and paths, and leaves out the window section unless asked', async () => {
+    const out = join(dir, 'fe.md');
+    const r = await runCli(['report', fe, '-o', out]);
+    expect(r.code).toBe(0);
+    const md = readFileSync(out, 'utf8');
+    expect(md).toContain('## Envelopes and paths');
+    expect(md).toMatch(/normal operation \(envelope, E vs SCE\): passivation at every sample/);
+    expect(md).toMatch(/start-up \(path, E vs SCE\)/);
+    expect(md).not.toContain('## Plating window');
+  });
+
+  it('includes the window section when the file sets platingWindow: true', async () => {
+    const out = join(dir, 'bath.md');
+    expect((await runCli(['report', bath, '-o', out])).code).toBe(0);
+    expect(readFileSync(out, 'utf8')).toContain('## Plating window');
+  });
+
+  it('takes the figure options and prints the caption once', async () => {
+    const out = join(dir, 'g.html');
+    const r = await runCli(['report', fe, '-o', out, '--width', '120mm', '--style', 'gray', '--ref', 'agcl-sat']);
+    expect(r.code).toBe(0);
+    const html = readFileSync(out, 'utf8');
+    expect(html).toContain('width="120mm"');
+    expect(html).toContain('Ag/AgCl');
+    // The caption's conditions appear once: in the document's caption, not also inside the figure.
+    expect(html.split('dissolved Fe activity').length - 1).toBe(1);
+    expect(html.split('<figcaption>')[0]).not.toContain('dissolved Fe activity');
+  });
+});
