@@ -144,7 +144,7 @@ describe('probe --points in composition mode', () => {
 describe('a failed solve on the command line: printed as failed, exit status 4', () => {
   const spec = readSpec({ element: 'Ag', composition: { Ag: 0.2, CN: 0.6 } }, 'b.yaml');
   const starved = (s: typeof spec) => compositionSetup(s, { newton: { maxIterations: 1, tol: 1e-11, maxStep: 2 }, noFallback: true });
-  const capture = (f: () => void) => {
+  const capture = async (f: () => Promise<void>) => {
     let out = '';
     const ow = process.stdout.write.bind(process.stdout);
     process.stdout.write = ((s: string) => {
@@ -153,7 +153,7 @@ describe('a failed solve on the command line: printed as failed, exit status 4',
     }) as typeof process.stdout.write;
     let err: unknown;
     try {
-      f();
+      await f();
     } catch (e) {
       err = e;
     } finally {
@@ -161,16 +161,16 @@ describe('a failed solve on the command line: printed as failed, exit status 4',
     }
     return { out, err };
   };
-  test('text: status failed, verdict unknown, no table; UndeterminedError (exit 4) after the output', () => {
-    const { out, err } = capture(() => probeComposition(spec, { ph: '12', potential: '0' }, undefined, starved));
+  test('text: status failed, verdict unknown, no table; UndeterminedError (exit 4) after the output', async () => {
+    const { out, err } = await capture(() => probeComposition(spec, { ph: '12', potential: '0' }, undefined, starved));
     expect(out).toMatch(/status: failed — the speciation could not be solved at this point; verdict unknown/);
     expect(out).not.toMatch(/verdict: [A-Z]/);
     expect(out).not.toContain('molality');
     expect(err).toBeInstanceOf(UndeterminedError);
     expect(exitStatusOf(err)).toBe(EXIT.partial);
   });
-  test('JSON: status failed with the reason, predominant null', () => {
-    const { out, err } = capture(() => probeComposition(spec, { ph: '12', potential: '0', json: true }, undefined, starved));
+  test('JSON: status failed with the reason, predominant null', async () => {
+    const { out, err } = await capture(() => probeComposition(spec, { ph: '12', potential: '0', json: true }, undefined, starved));
     const j = JSON.parse(out);
     expect(j.status).toBe('failed');
     expect(j.verdict).toBe('unknown');
@@ -178,10 +178,10 @@ describe('a failed solve on the command line: printed as failed, exit status 4',
     expect(j.reason).toMatch(/no convergence/);
     expect(exitStatusOf(err)).toBe(EXIT.partial);
   });
-  test('--points: every row written, failed rows say so; exit 4 naming the lines', () => {
+  test('--points: every row written, failed rows say so; exit 4 naming the lines', async () => {
     const log = writeTmp(dir, 'log2.csv', 'pH,potential\n12,0\n10,0.3\n');
     const out = join(dir, 'out2.csv');
-    const { err } = capture(() => probeComposition(spec, { points: log, output: out }, undefined, starved));
+    const { err } = await capture(() => probeComposition(spec, { points: log, output: out }, undefined, starved));
     const lines = readFileSync(out, 'utf8').trim().split('\n');
     expect(lines).toHaveLength(3);
     for (const l of lines.slice(1)) expect(l).toMatch(/,failed,,unknown,,0\.000001,"?no convergence/);

@@ -46,12 +46,18 @@ describe('reference electrode options', () => {
 });
 
 describe('probe -o without --points', () => {
-  it('is refused, naming --output, and writes nothing', async () => {
+  it('a .csv output for one point is refused, naming --output, and writes nothing', async () => {
     const out = join(dir, 'x.csv');
     const r = await runCli(['probe', cu, '--ph', '6', '--potential', '0.5', '-o', out]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/--output: expected -o only with --points/);
+    expect(r.stderr).toMatch(/--output/);
     expect(existsSync(out)).toBe(false);
+  });
+  it('a .json output for one point is written (the --json answer), never ignored', async () => {
+    const out = join(dir, 'x.json');
+    const r = await runCli(['probe', cu, '--ph', '6', '--potential', '0.5', '-o', out]);
+    expect(r.code).toBe(0);
+    expect(JSON.parse(readFileSync(out, 'utf8')).predominant).toBeDefined();
   });
 });
 
