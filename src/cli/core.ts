@@ -5,6 +5,7 @@ import { extname } from 'node:path';
 import type { Command } from 'commander';
 import { compute } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
+import { drawAlloy, linesAlloy, loadAlloyWith } from './alloy.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
@@ -24,6 +25,7 @@ const DRAW_FORMATS = ['svg', 'pdf', 'png', 'html', 'json'];
 interface DrawOptions extends FigureOverrides, SpecOverrides {
   output: string;
   ref?: string;
+  vary?: string;
 }
 
 
@@ -49,11 +51,15 @@ export function registerCore(program: Command): void {
     .option('--show <list>', 'decorations to show, comma-separated: water, grid, caption, neutral, triplePoints, ligands, legend, title')
     .option('--hide <list>', 'decorations to hide, same names')
     .option('--ref <name>', 'second potential axis against this reference electrode (sce, agcl-sat, cse, ...)')
+    .option('--vary <El=x,...>', 'alloy files: also draw the boundaries with this element at each mole fraction, e.g. Cr=0.05,0.12,0.18')
     .action(async (file: string, opts: DrawOptions) => {
       const ext = extname(opts.output).toLowerCase().slice(1);
       if (!DRAW_FORMATS.includes(ext)) {
         throw new InputError('command line', '--output', `a file name ending in ${DRAW_FORMATS.map((x) => `.${x}`).join(', ')}`, JSON.stringify(opts.output));
       }
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) return drawAlloy(alloy, opts, ext);
+      if (opts.vary !== undefined) throw new InputError('command line', '--vary', 'an alloy system file (with elements) for --vary');
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
       const c = compute(spec);
@@ -73,6 +79,11 @@ export function registerCore(program: Command): void {
     .option('--json', 'machine-readable output')
     .option('--ref <name>', 'also give each line against this reference electrode (sce, agcl-sat, cse, ...)')
     .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) {
+        if (opts.ref !== undefined) throw new InputError('command line', '--ref', 'no --ref with an alloy file yet');
+        return linesAlloy(alloy, opts.json === true);
+      }
       const c = compute(loadSpecWith(file, opts));
       const ref = opts.ref === undefined ? undefined : displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), c.spec.temperature, 'command line', '--ref');
       warn([...c.model.warnings, ...(ref?.warnings ?? [])]);

@@ -5,6 +5,7 @@
 import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
+import { loadAlloyWith, probeAlloy } from './alloy.js';
 import { numberArg } from './args.js';
 import { stableJson } from '../report/json.js';
 import { parsePointsCsv, pointsCsv } from '../report/points-csv.js';
@@ -40,6 +41,12 @@ export function registerProbe(program: Command): void {
     .option('-o, --output <csv>', 'with --points: write the results CSV here (default: standard output)')
     .option('--json', 'machine-readable output')
     .action((file: string, opts: ProbeOpts) => {
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) {
+        if (opts.points !== undefined || opts.ref !== undefined) throw new InputError('command line', opts.points !== undefined ? '--points' : '--ref', 'for an alloy file: --ph and --potential (V vs SHE) only, for now');
+        if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential');
+        return probeAlloy(alloy, num(opts.ph, '--ph', 'a pH value (number)'), num(opts.potential, '--potential', 'a potential in V (number)'), opts.json === true);
+      }
       const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');

@@ -7,6 +7,7 @@
 import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
+import { loadAlloyWith, reportAlloy } from './alloy.js';
 import { captionLines, figureInput } from '../figure/compose.js';
 import { figureSettingsWidth } from '../figure/options.js';
 import { compute } from '../pipeline.js';
@@ -36,6 +37,8 @@ export function registerReport(program: Command): void {
         throw new InputError('command line', '--output', 'a file name ending in .md, .html or .pdf', JSON.stringify(opts.output));
       }
       const fmt = ext as ReportFormat;
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) return reportAlloy(alloy, opts.output, fmt);
       const spec = loadSpecWith(file, opts);
       const fig = figureSettingsWidth(spec, {}, REPORT_WIDTH);
       const c = compute(spec);
