@@ -21,7 +21,6 @@ import { speciesPotentialsAt } from '../solve/alloy/psi.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
 import { type AlloyVerdict, assemblageVerdict } from '../solve/alloy/verdict.js';
 import { waterLines } from '../solve/solve.js';
-import { sampleGrid } from '../solve/trace/grid.js';
 import { joinTriplePoints, type TracedTriple } from '../solve/trace/junctions.js';
 import { type TracedBoundary, traceRegions } from '../solve/trace/regions.js';
 import type { SolverInput } from '../solve/types.js';
@@ -29,7 +28,7 @@ import type { AlloySpec } from '../system/alloy-spec.js';
 import { type BuiltAlloy, buildAlloySystem } from '../system/alloy-build.js';
 import { KELVIN } from '../thermo/constants.js';
 import { VERSION } from '../version.js';
-import { alloyField, type AlloyLabel, discoverAssemblages } from './alloy-field.js';
+import { alloyField, alloyGrid, type AlloyLabel, discoverAssemblages } from './alloy-field.js';
 import { assemblageReaction } from './alloy-reaction.js';
 import type { Verdict } from './verdict.js';
 
@@ -63,13 +62,13 @@ export function computeAlloy(spec: AlloySpec, opts: AlloyOptions = {}): Computed
   const { pH, E } = spec.base;
   // Step 2 (with step 5's check fed back: an assemblage found lower than both sides of a traced
   // boundary joins the labels and the trace is redone, at most three times).
-  const labels = discoverAssemblages(input, pH, E, n);
-  let traced = traceAlloy(input, labels, pH, E, n);
+  const { labels, psi } = discoverAssemblages(input, pH, E, n);
+  let traced = traceAlloy(input, labels, psi, pH, E, n);
   for (let round = 0; round < 3; round++) {
     const extra = missedLabels(input, labels, traced.boundaries);
     if (!extra.length) break;
     labels.push(...extra);
-    traced = traceAlloy(input, labels, pH, E, n);
+    traced = traceAlloy(input, labels, psi, pH, E, n);
   }
   const warnings = [...built.warnings];
   // Step 4.
@@ -114,9 +113,9 @@ export function computeAlloy(spec: AlloySpec, opts: AlloyOptions = {}): Computed
 }
 
 /** Steps 2–3: grid, regions, boundaries and triple points over the given labels. */
-function traceAlloy(input: AlloyInput, labels: readonly AlloyLabel[], pH: [number, number], E: [number, number], n: number): ReturnType<typeof traceRegions> & { triples: TracedTriple[] } {
+function traceAlloy(input: AlloyInput, labels: readonly AlloyLabel[], psi: number[][], pH: [number, number], E: [number, number], n: number): ReturnType<typeof traceRegions> & { triples: TracedTriple[] } {
   const field = alloyField(input, labels);
-  const g = sampleGrid(field, pH, E, n, n);
+  const g = alloyGrid(field, psi, pH, E, n);
   const traced = traceRegions(field, g);
   return { ...traced, triples: joinTriplePoints(field, g, traced.boundaries) };
 }
