@@ -172,3 +172,27 @@ it('Cu–Zn brass in mildly reducing acid: copper stays metal while zinc dissolv
   expect(a.verdict).toBe('partly-corroding');
   expect(a.dissolving).toEqual(['Zn']);
 });
+
+describe('Cu–Zn without a mixed compound: a boundary where only one element changes is that element’s own line', () => {
+  const m = computeAlloy(readAlloySpec({ elements: { Cu: 0.65, Zn: 0.35 }, activity: 1e-6 }, 'brass.yaml'), { grid: 80 }).model;
+  const single = { Cu: compute(readSpec({ element: 'Cu', activity: 1e-6 }, 'cu.yaml')).model, Zn: compute(readSpec({ element: 'Zn', activity: 1e-6 }, 'zn.yaml')).model };
+  it('every such boundary vertex lies within 1e-9 V (or pH) of the single-element boundary', () => {
+    let checked = 0;
+    for (const b of m.boundaries) {
+      const [A, B] = b.between.map((t) => t.split(' + '));
+      const onlyA = A.filter((x) => !B.includes(x));
+      const onlyB = B.filter((x) => !A.includes(x));
+      expect(onlyA.length, b.between.join(' | ')).toBe(1);
+      expect(onlyB.length).toBe(1);
+      const el = Object.keys(parseFormula(onlyA[0]).elements).find((e) => e === 'Cu' || e === 'Zn') as 'Cu' | 'Zn';
+      const exact = single[el].boundaries.filter((s) => s.between.slice().sort().join() === [onlyA[0], onlyB[0]].sort().join());
+      expect(exact.length, `${onlyA[0]} | ${onlyB[0]} in the ${el} diagram`).toBeGreaterThan(0);
+      for (const [pH, E] of b.points) {
+        const d = Math.min(...exact.map((s) => (s.line.kind === 'E' ? Math.abs(E - lineE(s, pH)) : Math.abs(pH - s.line.value!))));
+        expect(d).toBeLessThan(1e-9);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(50);
+  });
+});
