@@ -8,8 +8,10 @@
  * Steps:
  *  1. the alloy input (src/system/alloy-build.ts);
  *  2. assemblages discovered by the LP at every grid node, the field over them, the grid sampled;
- *  3. regions and boundaries traced, vertices refined by regula falsi to 1e-8 of a cell (boundaries
- *     are straight: the margin is a difference of ψ' planes), triple points joined;
+ *  3. without ligands: exact convex regions by half-plane clipping of the assemblages' G planes
+ *     (alloy-exact.ts; boundaries and triple points exact to rounding); with ligands: regions and
+ *     boundaries traced, vertices refined by regula falsi to 1e-8 of a cell (the margin is a
+ *     difference of piecewise-linear ψ' sums), triple points joined;
  *  4. per region its assemblage (assemblageAt at an inside point), verdict and fill class:
  *     immune → metal, passive → solid, corroding → dissolved, partly corroding → its own group;
  *  5. per boundary the reaction and line; the LP is asked at its midpoint whether some assemblage
@@ -21,13 +23,14 @@ import { speciesPotentialsAt } from '../solve/alloy/psi.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
 import { type AlloyVerdict, assemblageVerdict } from '../solve/alloy/verdict.js';
 import { waterLines } from '../solve/solve.js';
-import { joinTriplePoints, type TracedTriple } from '../solve/trace/junctions.js';
+import { joinTriplePoints } from '../solve/trace/junctions.js';
 import { type TracedBoundary, traceRegions } from '../solve/trace/regions.js';
 import type { SolverInput } from '../solve/types.js';
 import type { AlloySpec } from '../system/alloy-spec.js';
 import { type BuiltAlloy, buildAlloySystem } from '../system/alloy-build.js';
 import { KELVIN } from '../thermo/constants.js';
 import { VERSION } from '../version.js';
+import { exactAlloyRegions, type ExactAlloy } from './alloy-exact.js';
 import { alloyField, alloyGrid, type AlloyLabel, discoverAssemblages } from './alloy-field.js';
 import { assemblageReaction } from './alloy-reaction.js';
 import type { Verdict } from './verdict.js';
@@ -113,7 +116,10 @@ export function computeAlloy(spec: AlloySpec, opts: AlloyOptions = {}): Computed
 }
 
 /** Steps 2–3: grid, regions, boundaries and triple points over the given labels. */
-function traceAlloy(input: AlloyInput, labels: readonly AlloyLabel[], psi: number[][], pH: [number, number], E: [number, number], n: number): ReturnType<typeof traceRegions> & { triples: TracedTriple[] } {
+function traceAlloy(input: AlloyInput, labels: readonly AlloyLabel[], psi: number[][], pH: [number, number], E: [number, number], n: number): ExactAlloy {
+  // No ligands: every assemblage's grand potential is a plane, and the regions are exact convex
+  // polygons (alloy-exact.ts). With ligands: traced on the grid and refined.
+  if (input.ligands.length === 0) return exactAlloyRegions(input, labels, pH, E);
   const field = alloyField(input, labels);
   const g = alloyGrid(field, psi, pH, E, n);
   const traced = traceRegions(field, g);

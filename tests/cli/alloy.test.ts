@@ -98,10 +98,15 @@ it('Cu–Zn probe in mildly reducing acid: Cu + Zn+2, zinc dissolves (dezincific
 describe('--vary', () => {
   it('draws the other compositions as keyed layers and lists them in the JSON', async () => {
     const out = join(dir, 'vary.json');
-    const r = await runCli(['draw', steel, '-o', out, '--vary', 'Cr=0.05,0.12']);
+    const r = await runCli(['draw', steel, '-o', out, '--vary', 'Cr=0.05,0.70']);
     expect(r.code, r.stderr).toBe(0);
     const m = JSON.parse(readFileSync(out, 'utf8'));
     expect(m.sweep).toHaveLength(2);
+    // Cr 70 %: more chromium than FeCr2O4 can take up with the iron (Fe:Cr = 1:2), so Cr2O3 joins
+    // chromite where the 18 % alloy had iron oxide left over (pure phases: regions change only there).
+    const base = new Set(m.regions.map((x: { species: string }) => x.species));
+    const rich = m.sweep[1].regions.map((x: { species: string }) => x.species).filter((x: string) => !base.has(x));
+    expect(rich).toContain('Cr2O3 + NiO + FeCr2O4');
     expect(m.sweep[0].composition.Cr).toBeCloseTo(0.05, 12);
     expect(m.sweep[0].composition.Fe / m.sweep[0].composition.Ni).toBeCloseTo(0.7 / 0.12, 9);
     const svg = join(dir, 'vary.svg');

@@ -1,8 +1,9 @@
 /**
  * Alloy diagrams (issue 18): the traced model against independent checks.
  *  - A one-element "alloy" reproduces the single-element diagram of the fixed-activity pipeline: same
- *    regions, and every traced boundary vertex within 1e-9 V of the exact single-element line (the
- *    alloy boundaries are exact lines: regula falsi on a difference of ψ' planes).
+ *    regions, and every boundary vertex within 1e-9 V of the exact single-element line (Fe: exact
+ *    half-plane clipping of the assemblages' planes; Cu–S, with a ligand: traced and refined by
+ *    regula falsi on differences of ψ' sums, which are linear between ligand changes).
  *  - Every boundary reaction balances in every element and in charge (parsed back from its text with
  *    the chem parser, so the printed reaction is what is checked).
  *  - Boundaries are straight (no ligands): every vertex lies on the boundary's own line within 1e-9 V.
@@ -87,7 +88,7 @@ describe.each([
         checked++;
       }
     }
-    expect(checked).toBeGreaterThan(100);
+    expect(checked).toBeGreaterThan(10);
   });
 });
 
@@ -126,7 +127,7 @@ describe.each([
     for (const b of m.boundaries) expectBalanced(b.reaction);
   });
 
-  it.skipIf(data.ligands !== undefined)('boundaries are straight without ligands: every vertex on its own line within 1e-9 V (or pH)', () => {
+  it.skipIf('ligands' in data)('boundaries are straight without ligands: every vertex on its own line within 1e-9 V (or pH)', () => {
     for (const b of m.boundaries) {
       for (const [pH, E] of b.points) {
         const d = b.line.kind === 'E' ? Math.abs(E - lineE(b, pH)) : Math.abs(pH - b.line.value!);
