@@ -33,10 +33,16 @@ export function discoverAssemblages(input: AlloyInput, pH: [number, number], E: 
   const g = { nx: n, ny: n, x: pH, y: E };
   const psi: number[][] = new Array(n * n);
   const at = new Int32Array(n * n);
+  const index = new Map<string, number>();
   const add = (s: { indices: number[]; amounts: number[] }): number => {
     const key = s.indices.join(',');
-    if (!seen.has(key)) seen.set(key, { key, indices: s.indices, amounts: s.amounts });
-    return [...seen.keys()].indexOf(key);
+    let k = index.get(key);
+    if (k === undefined) {
+      k = index.size;
+      index.set(key, k);
+      seen.set(key, { key, indices: s.indices, amounts: s.amounts });
+    }
+    return k;
   };
   for (let j = 0; j < n; j++) {
     for (let i = 0; i < n; i++) {
