@@ -29,6 +29,19 @@ export interface RegionModel {
   polygons: Polygon[];
   /** Area in pH·V. */
   area: number;
+  /** Alloy kind: the phases and dissolved species, mol per mol of alloy atoms. */
+  assemblage?: { species: string; phase: Phase; amount: number }[];
+  /** Alloy kind: immune, passive, corroding, or partly corroding (some elements dissolve). */
+  alloyVerdict?: 'immune' | 'passive' | 'corroding' | 'partly-corroding';
+  /** Alloy kind: the main elements with a share in a dissolved species. */
+  dissolving?: string[];
+}
+
+/** Alloy kind: the bulk composition (mole fractions) and each element's threshold activity. */
+export interface AlloyModel {
+  composition: Record<string, number>;
+  activities: Record<string, number>;
+  grid: { nx: number; ny: number };
 }
 
 export interface LineCoefficients {
@@ -91,7 +104,7 @@ export interface CompositionModel {
 
 export interface DiagramModel {
   /** Kind of diagram (absent in older models: 'fixed-activity'). */
-  kind?: 'fixed-activity' | 'composition';
+  kind?: 'fixed-activity' | 'composition' | 'alloy';
   ephmap: string;
   element: string;
   temperature: { celsius: number; kelvin: number };
@@ -121,6 +134,8 @@ export interface DiagramModel {
   /** Composition mode: the totals, and the iso-solubility lines of the dissolved element. */
   composition?: CompositionModel;
   isoSolubility?: IsoSolubilityLine[];
+  /** Alloy kind: composition and threshold activities. */
+  alloy?: AlloyModel;
 }
 
 /** An amount as given in the system file, with the molality it converts to (absent for an activity). */

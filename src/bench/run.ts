@@ -12,6 +12,8 @@
  *   peak RSS MB: M                      — a 1000×1000 grid map in a fresh process; target ≤ 150
  *   composition 300x300 ms: T           — silver cyanide bath, composition mode, refined; target ≤ 1500
  *   composition points solved per second — point solutions (grid, refinement, iso-lines) per second
+ *   alloy 300x300 ms: T                 — Fe–Cr–Ni with S and C ligands (43 species), the traced alloy
+ *                                         diagram (src/bench/alloy.ts); target ≤ 2000
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -24,6 +26,7 @@ import { supportAt } from '../solve/alloy/assemblage.js';
 import { gridMap } from '../solve/grid.js';
 import { buildAlloySystem } from '../system/alloy-build.js';
 import { readAlloySpec } from '../system/alloy-spec.js';
+import { benchAlloy } from './alloy.js';
 import { benchComposition } from './composition.js';
 import { readSpec } from '../system/spec.js';
 
@@ -137,6 +140,11 @@ async function main(): Promise<void> {
     const cb = benchComposition(300, 3);
     console.log(`composition 300x300 ms: ${cb.ms.toFixed(0)}`);
     console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves; CPU ${cb.cpuMs.toFixed(0)} ms)`);
+
+    // 7. Alloy kind: Fe–Cr–Ni traced diagram, 300×300 with refinement.
+    const ab = benchAlloy(300, 2);
+    console.log(`alloy 300x300 ms: ${ab.ms.toFixed(0)}`);
+    console.log(`alloy species: ${ab.species}, regions: ${ab.regions} (CPU ${ab.cpuMs.toFixed(0)} ms)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -4,6 +4,7 @@
 import type { Command } from 'commander';
 import { compute, computeAny } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
+import { drawAlloy, linesAlloy, loadAlloyWith } from './alloy.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { InputError } from '../system/errors.js';
@@ -24,6 +25,7 @@ const DRAW_FORMATS = ['.svg', '.pdf', '.png', '.html', '.json'];
 interface DrawOptions extends FigureOverrides, SpecOverrides {
   output: string;
   ref?: string;
+  vary?: string;
 }
 
 
@@ -50,9 +52,13 @@ export function registerCore(program: Command): void {
     .option('--show <list>', 'decorations to show, comma-separated: water, grid, caption, neutral, triplePoints, ligands, legend, title')
     .option('--hide <list>', 'decorations to hide, same names')
     .option('--ref <name>', 'second potential axis against this reference electrode (sce, agcl-sat, cse, ...)')
+    .option('--vary <El=x,...>', 'alloy files: also draw the boundaries with this element at each mole fraction, e.g. Cr=0.05,0.12,0.18')
     .action(async (file: string, opts: DrawOptions) => {
       const [dotExt] = checkOutputs([{ path: opts.output, option: '--output', extensions: DRAW_FORMATS }], [{ path: file, option: '<file>' }]);
       const ext = dotExt!.slice(1);
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) return drawAlloy(alloy, opts, ext);
+      if (opts.vary !== undefined) throw new InputError('command line', '--vary', 'an alloy system file (with elements) for --vary');
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
       const c = computeAny(spec);
@@ -72,6 +78,11 @@ export function registerCore(program: Command): void {
     .option('--json', 'machine-readable output')
     .option('--ref <name>', "also give each line against this reference electrode (sce, agcl-sat, cse, ...; default: the file's reference)")
     .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) {
+        if (opts.ref !== undefined) throw new InputError('command line', '--ref', 'no --ref with an alloy file yet');
+        return linesAlloy(alloy, opts.json === true);
+      }
       const spec = loadSpecWith(file, opts);
       if (spec.composition) return linesComposition(spec, opts);
       const c = compute(spec);

@@ -7,6 +7,7 @@
 import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
+import { loadAlloyWith, probeAlloy } from './alloy.js';
 import { numberArg } from './args.js';
 import { stableJson } from '../report/json.js';
 import { parsePointsCsv, pointsCsv } from '../report/points-csv.js';
@@ -46,6 +47,12 @@ export function registerProbe(program: Command): void {
       if (opts.output !== undefined) {
         const inputs = [{ path: file, option: '<file>' }, ...(opts.points !== undefined ? [{ path: opts.points, option: '--points' }] : [])];
         checkOutputs([{ path: opts.output, option: '--output', extensions: opts.points !== undefined ? ['.csv'] : ['.json'] }], inputs);
+      }
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) {
+        if (opts.points !== undefined || opts.ref !== undefined) throw new InputError('command line', opts.points !== undefined ? '--points' : '--ref', 'for an alloy file: --ph and --potential (V vs SHE) only, for now');
+        if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential');
+        return probeAlloy(alloy, num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 }), num(opts.potential, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 }), opts.json === true);
       }
       const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;

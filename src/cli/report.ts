@@ -7,6 +7,7 @@
 import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
+import { loadAlloyWith, reportAlloy } from './alloy.js';
 import { captionLines, figureInput, withSecondAxis } from '../figure/compose.js';
 import { type FigureOverrides, figureSettingsWidth } from '../figure/options.js';
 import { withFigureFlags } from './figure-flags.js';
@@ -45,6 +46,8 @@ export function registerReport(program: Command): void {
       if (ext === 'md') outputs.push({ path: join(dirname(opts.output), `${basename(opts.output, extname(opts.output))}.svg`), option: '--output (its figure)', extensions: ['.svg'] });
       checkOutputs(outputs, [{ path: file, option: '<file>' }]);
       const fmt = ext as ReportFormat;
+      const alloy = loadAlloyWith(file, opts);
+      if (alloy) return reportAlloy(alloy, opts.output, fmt);
       const spec = loadSpecWith(file, opts);
       const { output: _o, ref: _r, ...figOpts } = opts;
       const fig = figureSettingsWidth(spec, figOpts, REPORT_WIDTH);

@@ -11,6 +11,11 @@ import { figureSettings } from '../figure/options.js';
 import { renderFigure } from '../figure/output.js';
 import { computeAny, loadSpec } from '../pipeline.js';
 import { exitStatusOf } from '../errors.js';
+import { computeAlloy } from '../diagram/alloy.js';
+import { alloyFigureInput } from '../figure/alloy.js';
+import type { FigureInput } from '../render/scene.js';
+import { isAlloyData, readAlloySpec } from '../system/alloy-spec.js';
+import { readSystemFile } from '../system/read.js';
 
 function bar(done: number, total: number, name: string): void {
   const width = 24;
@@ -36,13 +41,22 @@ export async function buildGallery(dir: string): Promise<string[]> {
     const path = join(dir, f);
     const name = basename(f).replace(/\.ya?ml$/, '');
     bar(n, files.length, name);
-    const spec = loadSpec(path);
-    const c = computeAny(spec);
-    const fig = figureSettings(spec);
-    const input = figureInput(c, fig);
+    // Alloy files (elements) through the alloy kind; every other file through the pipeline.
+    const data = readSystemFile(path);
+    let input: FigureInput;
+    let title: string | undefined;
+    if (isAlloyData(data)) {
+      const spec = readAlloySpec(data, path);
+      input = alloyFigureInput(computeAlloy(spec).model, spec, figureSettings(spec.base));
+      title = spec.base.title;
+    } else {
+      const spec = loadSpec(path);
+      input = figureInput(computeAny(spec), figureSettings(spec));
+      title = spec.title;
+    }
     await writeOutput(join(dir, `${name}.svg`), await renderFigure(input, 'svg'), { makeDirs: false });
     await writeOutput(join(dir, `${name}.pdf`), await renderFigure(input, 'pdf'), { makeDirs: false });
-    entries.push({ name, title: spec.title ?? name, text: describe(readFileSync(path, 'utf8')) });
+    entries.push({ name, title: title ?? name, text: describe(readFileSync(path, 'utf8')) });
     n++;
   }
   bar(n, files.length, 'done');

@@ -90,15 +90,15 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
       // Composition mode: where the point solver failed, first (it is drawn over the fills).
       ...(model.composition?.undetermined.length ? [{ label: 'Undetermined', formula: '', name: '', reading: 'the speciation could not be solved here', polygons: model.composition.undetermined.map((poly) => poly.map((ring) => ring.map(pt))) }] : []),
       ...model.regions.map((r) => ({
-        label: formulaUnicode(r.species),
+        label: unicodeLabel(r.species),
         formula: r.species,
         name: r.name ?? '',
-        reading: (r.undetermined ? 'unknown' : r.verdict ?? verdictOf(r.class, r.species)) + (model.kind === 'composition' ? ` (the form holding the largest share of ${model.element})` : ''),
+        reading: (r.undetermined ? 'unknown' : r.alloyVerdict ? alloyReading(r.alloyVerdict, r.dissolving ?? []) : r.verdict ?? verdictOf(r.class, r.species)) + (model.kind === 'composition' ? ` (the form holding the largest share of ${model.element})` : ''),
         polygons: r.polygons.map((poly) => poly.map((ring) => ring.map(pt))),
       })),
     ],
     boundaries: model.boundaries.map((b) => ({
-      between: b.between.map(formulaUnicode).join(' / '),
+      between: b.between.map(unicodeLabel).join(' / '),
       reaction: reactionUnicode(b.reaction),
       equation: signMinus(b.equation),
       equation2: second ? equationInScale(b.line, second.offset, second.name) : null,
@@ -106,6 +106,17 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
     })),
     ...(grid ? { grid: { ...grid, forms: grid.forms.map(formulaUnicode) } } : {}),
   };
+}
+
+/** A formula, or an alloy assemblage "Fe2O3 + Cr2O3 + Ni+2" term by term, in Unicode. */
+function unicodeLabel(text: string): string {
+  return text.split(' + ').map(formulaUnicode).join(' + ');
+}
+
+/** The read-out of an alloy region's verdict, naming the dissolving elements. */
+function alloyReading(v: NonNullable<DiagramModel['regions'][number]['alloyVerdict']>, dissolving: readonly string[]): string {
+  if (v === 'partly-corroding') return `partly corroding: ${dissolving.join(', ')} ${dissolving.length > 1 ? 'dissolve' : 'dissolves'}, the rest stays solid`;
+  return v === 'immune' ? 'immune (metals only)' : v === 'passive' ? 'passive (solids only, nothing dissolves)' : 'corroding (everything dissolves)';
 }
 
 /** JSON safe inside an HTML script element (no "</script>", no "<!--"). */

@@ -35,8 +35,8 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
   for (const c of ['element', 'solid', 'dissolved', 'gas'] as RegionClass[]) {
     if (!present.has(c)) continue;
     const tint = CLASS_TINTS[c][0]!;
-    const moved = reclassified(c);
-    const runs = moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
+    const moved = model.kind === 'alloy' ? [] : reclassified(c);
+    const runs = model.kind === 'alloy' ? plainRuns(alloySwatchName(c)) : moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
     out.push({ kind: 'swatch', fill: o.style === 'gray' ? toGray(tint) : tint, runs });
   }
   const und = [...new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species))].sort();
@@ -45,6 +45,14 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
     out.push({ kind: 'swatch', fill: UNDETERMINED_FILL, runs: plainRuns('undetermined') });
   }
   return out;
+}
+
+/** Alloy kind: the swatch names by assemblage verdict, naming the elements that dissolve. */
+function alloySwatchName(c: RegionClass): string {
+  if (c === 'element') return 'metals (immune)';
+  if (c === 'solid') return 'solids only (passive)';
+  if (c === 'dissolved') return 'all dissolved (corroding)';
+  return 'partly corroding: dissolved species in the label';
 }
 
 /** Every legend entry in order: swatches, the base boundaries, families, water, overlay layers. */

@@ -20,6 +20,8 @@ function push(runs: TextRun[], text: string, shift: TextRun['shift'], italic = f
  * valid formula is returned as one plain run.
  */
 export function formulaRuns(text: string): TextRun[] {
+  // An alloy assemblage ("Fe2O3 + Cr2O3 + Ni+2"; no formula holds " + "): each term typeset.
+  if (text.includes(' + ')) return text.split(' + ').flatMap((t, i) => [...(i ? [{ text: ' + ', shift: 'normal' as const }] : []), ...formulaRuns(t)]);
   const { formula, phase } = splitPhase(text);
   let tokens;
   try {

@@ -98,13 +98,13 @@ function startBasis(p: Prepared, psi: number[]): number[] {
 }
 
 /** The optimal support at (pH, E) without building the full answer: basis indices with n > 0
- *  (ascending), tied species indices, grand potential. For grids and bisection. */
-export function supportAt(input: AlloyInput, pH: number, E: number): { indices: number[]; amounts: number[]; ties: number[]; grandPotential: number; ligandSpecies: Record<string, string> } {
+ *  (ascending), tied species indices, grand potential, and the ψ' vector used. For grids and bisection. */
+export function supportAt(input: AlloyInput, pH: number, E: number): { indices: number[]; amounts: number[]; ties: number[]; grandPotential: number; ligandSpecies: Record<string, string>; psi: number[] } {
   const p = prepare(input);
   const { psi, ligandSpecies } = speciesPotentialsAt(input, pH, E);
   const sol = solveLp({ A: p.A, b: p.b, c: psi, basis: startBasis(p, psi), tieTol: TIE_KJ });
   const order = sol.basis.map((_, k) => k).filter((k) => sol.values[k] > AMOUNT_EPS).sort((i, j) => sol.basis[i] - sol.basis[j]);
-  return { indices: order.map((k) => sol.basis[k]), amounts: order.map((k) => sol.values[k]), ties: sol.ties, grandPotential: sol.objective, ligandSpecies };
+  return { indices: order.map((k) => sol.basis[k]), amounts: order.map((k) => sol.values[k]), ties: sol.ties, grandPotential: sol.objective, ligandSpecies, psi };
 }
 
 export function assemblageAt(input: AlloyInput, pH: number, E: number): Assemblage {

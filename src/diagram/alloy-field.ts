@@ -1,0 +1,95 @@
+/**
+ * The alloy kind as a TraceField (src/solve/trace/field.ts), so that the generic grid → contour →
+ * refine machinery draws assemblage regions (issue 18).
+ *
+ * For a basis of the LP (assemblage L with amounts n_L = B⁻¹b, which depend on the composition only,
+ * never on pH or E) the grand potential per mol of alloy atoms is G_L(pH, E) = Σ_k n_{L,k} ψ'_k(pH, E);
+ * the LP optimum at a point is the lowest G_L over the feasible bases. So the score of label L is
+ * −G_L: the argmax is the optimal assemblage, and the margin between two labels is a difference of
+ * ψ' planes — exactly linear where the ligands' predominant species do not change, so every
+ * boundary comes out straight and regula falsi (refine.ts) lands on it in one or two steps.
+ *
+ * Steps: 1. the assemblages are discovered by the LP point solver (supportAt) at every grid node and
+ * at the midpoint of every grid edge whose two nodes differ;
+ * 2. the field solves ψ' at a point (psi.ts) and scores each discovered label.
+ * A label that wins only between grid nodes is not discovered; computeAlloy checks every boundary
+ * against the LP and warns where a lower assemblage exists (raise the grid).
+ */
+import { supportAt } from '../solve/alloy/assemblage.js';
+import { speciesPotentialsAt } from '../solve/alloy/psi.js';
+import type { AlloyInput } from '../solve/alloy/types.js';
+import { argmax, type TraceField } from '../solve/trace/field.js';
+import { type GridSample, gridX, gridY } from '../solve/trace/grid.js';
+import type { AssemblageAmounts } from './alloy-reaction.js';
+
+export interface AlloyLabel extends AssemblageAmounts {
+  key: string;
+}
+
+/** Step 1: every assemblage optimal at a node of the n × n grid (in order of first appearance), and
+ *  the ψ' vector of every node (the field's state there, kept for the grid sample). */
+export function discoverAssemblages(input: AlloyInput, pH: [number, number], E: [number, number], n: number): { labels: AlloyLabel[]; psi: number[][] } {
+  const seen = new Map<string, AlloyLabel>();
+  const g = { nx: n, ny: n, x: pH, y: E };
+  const psi: number[][] = new Array(n * n);
+  const at = new Int32Array(n * n);
+  const index = new Map<string, number>();
+  const add = (s: { indices: number[]; amounts: number[] }): number => {
+    const key = s.indices.join(',');
+    let k = index.get(key);
+    if (k === undefined) {
+      k = index.size;
+      index.set(key, k);
+      seen.set(key, { key, indices: s.indices, amounts: s.amounts });
+    }
+    return k;
+  };
+  for (let j = 0; j < n; j++) {
+    for (let i = 0; i < n; i++) {
+      const s = supportAt(input, gridX(g, i), gridY(g, j));
+      psi[i + j * n] = s.psi;
+      at[i + j * n] = add(s);
+    }
+  }
+  // Between two neighbouring nodes of different assemblages, the LP at the midpoint too: an
+  // assemblage in a sliver thinner than a cell shows there (one solve per boundary edge).
+  for (let j = 0; j < n; j++) {
+    for (let i = 0; i < n; i++) {
+      const k = i + j * n;
+      if (i + 1 < n && at[k] !== at[k + 1]) add(supportAt(input, (gridX(g, i) + gridX(g, i + 1)) / 2, gridY(g, j)));
+      if (j + 1 < n && at[k] !== at[k + n]) add(supportAt(input, gridX(g, i), (gridY(g, j) + gridY(g, j + 1)) / 2));
+    }
+  }
+  return { labels: [...seen.values()], psi };
+}
+
+/** The grid sample of the field from the nodes' ψ' vectors (as sampleGrid would compute it). */
+export function alloyGrid(field: TraceField<number[]>, psi: number[][], pH: [number, number], E: [number, number], n: number): GridSample<number[]> {
+  const L = field.labels;
+  const label = new Int32Array(n * n);
+  const scores = new Float64Array(n * n * L);
+  const out = new Float64Array(L);
+  for (let k = 0; k < n * n; k++) {
+    field.scores(psi[k], out);
+    scores.set(out, k * L);
+    label[k] = argmax(out);
+  }
+  return { nx: n, ny: n, x: pH, y: E, label, scores, value: new Float64Array(n * n).fill(NaN), states: psi, failed: 0 };
+}
+
+/** Step 2: the field over the discovered labels; its state is the ψ' vector of a point. */
+export function alloyField(input: AlloyInput, labels: readonly AlloyLabel[]): TraceField<number[]> {
+  return {
+    labels: labels.length,
+    solve: (x, y) => speciesPotentialsAt(input, x, y).psi,
+    scores(psi, out) {
+      for (let l = 0; l < labels.length; l++) {
+        const { indices, amounts } = labels[l];
+        let G = 0;
+        for (let k = 0; k < indices.length; k++) G += amounts[k] * psi[indices[k]];
+        out[l] = -G;
+      }
+      return true;
+    },
+  };
+}

@@ -1,0 +1,77 @@
+/**
+ * Text of the alloy outputs (issue 18): the probe read-out and the report (Markdown; HTML wraps the
+ * same sections). Formulas are printed as elsewhere today (plain ASCII charges, e.g. Fe+2).
+ */
+import type { AlloyProbe } from '../analysis/alloy-probe.js';
+import type { DiagramModel } from '../model.js';
+import { fmtCelsius, fmtNum, mdCode, mdEsc, mdTable } from './format.js';
+import { lineRows } from './lines.js';
+
+export const VERDICT_WORDS: Record<AlloyProbe['verdict'], string> = {
+  immune: 'immune (every element stays metal)',
+  passive: 'passive (solid compounds, nothing dissolves)',
+  corroding: 'corroding (the whole alloy dissolves)',
+  'partly-corroding': 'partly corroding',
+};
+
+/** The verdict in words, naming the dissolving elements when some dissolve and some do not. */
+export function verdictText(verdict: AlloyProbe['verdict'], dissolving: readonly string[]): string {
+  if (verdict !== 'partly-corroding') return VERDICT_WORDS[verdict];
+  return `partly corroding: ${dissolving.join(', ')} ${dissolving.length > 1 ? 'dissolve' : 'dissolves'}, the rest stays solid`;
+}
+
+const DIR: Record<string, string> = { 'E+': 'more oxidising (E up)', 'E-': 'more reducing (E down)', 'pH+': 'more alkaline (pH up)', 'pH-': 'more acid (pH down)' };
+
+export function alloyProbeText(r: AlloyProbe): string {
+  const out = [
+    `pH ${fmtNum(r.pH)}, E ${fmtNum(r.E)} V vs SHE`,
+    `assemblage: ${r.label}${r.ties.length ? ` (on a boundary: ${r.ties.join(', ')} could replace part of it)` : ''}`,
+    `verdict: ${verdictText(r.verdict, r.dissolving)}`,
+    'amounts (mol per mol of alloy atoms):',
+    ...r.assemblage.map((p) => `  ${p.species.padEnd(14)} ${p.amount.toFixed(6)}   holds ${Object.entries(p.share).filter(([, v]) => v > 0).map(([e, v]) => `${(100 * v).toFixed(1)} % of ${e}`).join(', ')}`),
+    'margins to the neighbouring assemblages:',
+    ...r.margins.map((m) => `  ${DIR[m.direction].padEnd(24)} ${m.distance === null ? 'none within the diagram' : `${m.distance.toFixed(4)} ${m.direction.startsWith('E') ? 'V' : 'pH'} to ${m.to}`}`),
+    'Equilibrium only: pure phases (no solid-solution activities), no kinetics or film quality.',
+  ];
+  return `${out.join('\n')}\n`;
+}
+
+/** The report's sections as Markdown (the figure referenced by `svgName`). */
+export function alloyReportMarkdown(model: DiagramModel, svgName: string | null, caption: string[]): string {
+  const a = model.alloy!;
+  const parts: string[] = [`# Alloy ${mdEsc(model.element)} at ${fmtCelsius(model.temperature.celsius)} °C`, ''];
+  if (svgName) parts.push(`![diagram](${svgName})`, '');
+  parts.push(...caption.map(mdEsc), '');
+  parts.push('## Composition', '', mdTable(['element', 'mole fraction', 'threshold activity of its dissolved species'], Object.keys(a.composition).map((e) => [e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '');
+  parts.push('## Assemblages', '', mdTable(['assemblage', 'verdict', 'amounts (mol per mol of alloy atoms)', 'area (pH·V)'], model.regions.map((r) => [
+    mdCode(r.species),
+    mdEsc(verdictText(r.alloyVerdict!, r.dissolving ?? [])),
+    mdEsc(r.assemblage!.map((p) => `${p.species} ${fmtNum(p.amount)}`).join(', ')),
+    fmtNum(r.area, 3),
+  ])), '');
+  parts.push('## Reactions between neighbouring assemblages', '', mdTable(['between', 'reaction', 'line'], lineRows(model).map((r) => [mdEsc(r.between.join(' | ')), mdCode(r.reaction), mdCode(r.equation)])), '');
+  if (model.warnings.length) parts.push('## Warnings', '', ...model.warnings.map((w) => `- ${mdEsc(w)}`), '');
+  parts.push('## What this diagram does not say', '',
+    '- Phases are pure compounds: no solid-solution activities (a chromium-rich spinel film is not an ideal mixture of FeCr2O4 and Fe3O4), no alloy-metal activities below one.',
+    '- Equilibrium only: no kinetics, film quality, breakdown or localized attack; a passive assemblage is a thermodynamic possibility, not a guarantee.',
+    '', '## Sources', '', ...model.sources.map((s) => `- ${mdEsc(s)}`), '');
+  return parts.join('\n');
+}
+
+/** The same report as one self-contained HTML page with the SVG inline. */
+export function alloyReportHtml(model: DiagramModel, svg: string, caption: string[]): string {
+  const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+  const a = model.alloy!;
+  const row = (cells: string[]) => `<tr>${cells.map((c) => `<td>${esc(c)}</td>`).join('')}</tr>`;
+  return [
+    '<!DOCTYPE html>', '<html lang="en"><head><meta charset="utf-8">', `<title>Alloy ${esc(model.element)}</title>`,
+    '<style>body{font-family:sans-serif;max-width:60em;margin:auto}td{border-bottom:1px solid #ccc;padding:2px 6px}code{font-size:95%}</style></head><body>',
+    `<h1>Alloy ${esc(model.element)} at ${fmtCelsius(model.temperature.celsius)} °C</h1>`, svg, ...caption.map((c) => `<p>${esc(c)}</p>`),
+    '<h2>Composition</h2><table>', ...Object.keys(a.composition).map((e) => row([e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '</table>',
+    '<h2>Assemblages</h2><table>', ...model.regions.map((r) => row([r.species, verdictText(r.alloyVerdict!, r.dissolving ?? []), r.assemblage!.map((p) => `${p.species} ${fmtNum(p.amount)}`).join(', ')])), '</table>',
+    '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model).map((r) => row([r.between.join(' | '), r.reaction, r.equation])), '</table>',
+    ...(model.warnings.length ? ['<h2>Warnings</h2><ul>', ...model.warnings.map((w) => `<li>${esc(w)}</li>`), '</ul>'] : []),
+    '<h2>What this diagram does not say</h2><ul><li>Phases are pure compounds: no solid-solution activities.</li><li>Equilibrium only: no kinetics, film quality or localized attack.</li></ul>',
+    '<h2>Sources</h2><ul>', ...model.sources.map((s) => `<li>${esc(s)}</li>`), '</ul></body></html>', '',
+  ].join('\n');
+}
