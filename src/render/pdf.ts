@@ -117,6 +117,7 @@ export async function sceneToPdf(scene: Scene, opts: { creationDate?: Date } = {
     compress: true,
     info: {
       Title: scene.title,
+      ...(scene.caption !== undefined ? { Subject: scene.caption } : {}),
       Creator: 'ephmap',
       Producer: 'ephmap',
       CreationDate: opts.creationDate ?? new Date(Date.UTC(2000, 0, 1)),

@@ -84,7 +84,10 @@ export interface FigureBands {
   off: number;
   showTitle: boolean;
   titleSize: number;
+  /** The whole title (document metadata), and as laid out: wrapped lines, their line spacing. */
   titleRuns: TextRun[];
+  titleLines: TextRun[][];
+  titleLead: number;
   /** Baselines of the x tick labels and of the x-axis title, below the plot's bottom edge. */
   xLabelBase: number;
   xTitleBase: number;
@@ -92,6 +95,8 @@ export interface FigureBands {
   legendTop: number;
   legSize: number;
   legRowH: number;
+  /** Gap between legend entries in a row, in legend font sizes. */
+  legGap: number;
   captionLines: { text: string; italic: boolean }[];
   captionTop: number;
   capSize: number;

@@ -68,7 +68,7 @@ const sampleW = (e: LegendEntry, legSize: number): number => (e.kind === 'swatch
 const entryW = (e: LegendEntry, legSize: number): number => sampleW(e, legSize) + 0.4 * legSize + runsWidth(e.runs, legSize) * PROSE_SAFETY;
 
 /** Entries wrapped greedily into rows of at most `innerW` pt. */
-export function legendRows(legend: LegendEntry[], legSize: number, innerW: number): LegendEntry[][] {
+export function legendRows(legend: LegendEntry[], legSize: number, innerW: number, gapEm = 1.4): LegendEntry[][] {
   const rows: LegendEntry[][] = [];
   let row: LegendEntry[] = [];
   let x = 0;
@@ -80,7 +80,7 @@ export function legendRows(legend: LegendEntry[], legSize: number, innerW: numbe
       x = 0;
     }
     row.push(e);
-    x += w + 1.4 * legSize;
+    x += w + gapEm * legSize;
   }
   if (row.length) rows.push(row);
   return rows;
@@ -109,7 +109,7 @@ export function legendItems(ctx: SceneContext): SceneItem[] {
       const tx = x + sw + 0.4 * legSize;
       const base = baselineForCentre(e.runs, legSize, cy);
       out.push(text('legend-label', e.runs, tx, base, legSize, 'start', ink.text, { box: textBox(e.runs, legSize, tx, base, 'start') }));
-      x += entryW(e, legSize) + 1.4 * legSize;
+      x += entryW(e, legSize) + bands.legGap * legSize;
     }
   });
   return out;
