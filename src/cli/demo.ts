@@ -7,6 +7,7 @@ import type { Command } from 'commander';
 import { figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { renderFigure } from '../figure/output.js';
+import { reportFigureNotes } from './notes.js';
 import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { readSpec } from '../system/spec.js';
@@ -35,6 +36,7 @@ export function registerDemo(program: Command): void {
         for (const fmt of ['svg', 'pdf'] as const) {
           const p = join(opts.out, `${d.name}.${fmt}`);
           writeAtomic(p, await renderFigure(input, fmt));
+          if (fmt === 'svg') reportFigureNotes(c.model, `(${d.name}) `);
           written.push(p);
         }
         const pj = join(opts.out, `${d.name}.json`);

@@ -11,8 +11,14 @@ import { type FigureOverrides, figureSettings } from './options.js';
 
 export type FigureFormat = 'svg' | 'pdf' | 'png' | 'html';
 
+/**
+ * Draws a figure input in one format. What the layout did to fit the size (scene notes) is kept in
+ * the model's `figureNotes` for the caller to report.
+ */
 export async function renderFigure(input: FigureInput, format: FigureFormat): Promise<string | Uint8Array> {
   const scene = buildScene(input);
+  if (scene.notes.length) input.model.figureNotes = [...scene.notes];
+  else delete input.model.figureNotes;
   if (format === 'svg') return sceneToSvg(scene);
   if (format === 'html') {
     const { sceneToHtml } = await import('../render/html.js');
