@@ -3,6 +3,8 @@
  * when asked for, so SVG and JSON runs start fast.
  */
 import type { Computed } from '../pipeline.js';
+import { InputError } from '../errors.js';
+import { BUNDLED_FAMILY, isBundledFamily } from '../render/font-names.js';
 import { mmToPx } from '../render/options.js';
 import { buildScene, type FigureInput } from '../render/scene.js';
 import { sceneToSvg } from '../render/svg.js';
@@ -16,6 +18,14 @@ export type FigureFormat = 'svg' | 'pdf' | 'png' | 'html';
  * the model's `figureNotes` for the caller to report.
  */
 export async function renderFigure(input: FigureInput, format: FigureFormat): Promise<string | Uint8Array> {
+  if ((format === 'pdf' || format === 'png') && !isBundledFamily(input.options.fontFamily)) {
+    throw new InputError(
+      'figure',
+      'font (--font)',
+      `${BUNDLED_FAMILY} for ${format.toUpperCase()} output (it embeds the bundled font only; other families apply to SVG and HTML)`,
+      JSON.stringify(input.options.fontFamily),
+    );
+  }
   const scene = buildScene(input);
   if (scene.notes.length) input.model.figureNotes = [...scene.notes];
   else delete input.model.figureNotes;

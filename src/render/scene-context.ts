@@ -8,7 +8,7 @@ import type { Tick } from './axes.js';
 import { clipPolyline } from './clip.js';
 import { inflate, polylineSegments, rectRing, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
 import type { Layout } from './labels.js';
-import { stringWidth } from './metrics.js';
+import { runsWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
 import { inks, normColor } from './palette.js';
 import type { Point, Rect, ScenePath, SceneText, TextRun } from './scene-types.js';
@@ -237,17 +237,17 @@ export function dashStroke(dash: number[] | null, width: number): { dash: number
   return { dash: dash.map((d, k) => (k % 2 === 1 ? d + width : d)), lineCap: 'round' };
 }
 
-/** Widening for running text (caption, legend): lower-case prose in DejaVu Sans is up to 18 % wider. */
-export const PROSE_SAFETY = 1.2;
+/** Widening for running text (caption, legend), as FONT_SAFETY: the metrics are the bundled font's own. */
+export const PROSE_SAFETY = 1.06;
 
-/** Words wrapped greedily to `width` pt at `size` pt (measured with PROSE_SAFETY). */
+/** Words wrapped greedily to `width` pt at `size` pt (measured as drawn, scripts raised, with PROSE_SAFETY). */
 export function wrapText(s: string, size: number, width: number): string[] {
   const words = s.split(/\s+/).filter(Boolean);
   const out: string[] = [];
   let cur = '';
   for (const w of words) {
     const next = cur ? `${cur} ${w}` : w;
-    if (cur && stringWidth(next, size) * PROSE_SAFETY > width) {
+    if (cur && runsWidth(expandScripts([{ text: next, shift: 'normal' }]), size) * PROSE_SAFETY > width) {
       out.push(cur);
       cur = w;
     } else cur = next;

@@ -4,7 +4,7 @@
  * to squeeze when the plot would be too small.
  */
 import { niceTicks, type Tick } from './axes.js';
-import { CAP_HEIGHT, FONT_SAFETY, stringWidth } from './metrics.js';
+import { CAP_HEIGHT, DESCENT, FONT_SAFETY, stringWidth } from './metrics.js';
 import { MIN_FONT_PT } from './options.js';
 import type { FigureBands, SceneBase } from './scene-context.js';
 import { captionLines, legendEntries, legendRows } from './scene-legend.js';
@@ -79,7 +79,8 @@ export function layoutFigure(b: SceneBase, plan: LayoutPlan = PLAN_AS_GIVEN): Fi
   const title = showTitle ? fitTitle(titleRuns, fs * 1.1, innerW, Math.min(fs * 1.1, plan.titleFloor)) : { lines: [], size: fs * 1.1, steps: [] };
   const titleSize = title.size;
   const titleLead = titleSize * 1.2;
-  const top = showTitle ? pad + titleSize * 1.5 + (title.lines.length - 1) * titleLead : Math.max(pad, 0.65 * fs);
+  // Title band: the last title line's cap height and descent, then room for the top E tick label's upper half.
+  const top = showTitle ? pad + (CAP_HEIGHT + DESCENT) * titleSize + (title.lines.length - 1) * titleLead + 0.6 * fs : Math.max(pad, 0.65 * fs);
   const xLabelBase = tickLen + tickGap + CAP_HEIGHT * fs; // below plot bottom
   const xTitleBase = xLabelBase + 0.5 * fs + CAP_HEIGHT * fs * 1.05 + 0.25 * fs;
   let below = xTitleBase + 0.25 * fs;

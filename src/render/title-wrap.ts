@@ -20,7 +20,7 @@ function words(runs: readonly TextRun[]): TextRun[][] {
 }
 
 const join = (ws: TextRun[][]): TextRun[] => ws.flatMap((w, i) => (i ? [{ text: ' ', shift: 'normal' as const }, ...w] : w));
-const width = (runs: readonly TextRun[], size: number): number => runsWidth(runs, size) * FONT_SAFETY;
+const width = (runs: readonly TextRun[], size: number): number => runsWidth(runs, size, true) * FONT_SAFETY; // titles are bold
 
 /** Greedy wrap of words into lines no wider than `maxW` at `size` (a lone long word gets its own line). */
 export function wrapRuns(runs: readonly TextRun[], size: number, maxW: number): TextRun[][] {
