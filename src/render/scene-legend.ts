@@ -52,7 +52,10 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
     legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
   }
   if ((input.families?.length ?? 0) > 0) {
-    legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs: plainRuns('other activities') });
+    // One key for the family: "a = 1, 10⁻², 10⁻⁴".
+    const acts = input.families!.map((f) => f.activity);
+    const runs: TextRun[] = [{ text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...acts.flatMap((a, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(a)])];
+    legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs });
   }
   if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });
   (input.overlays ?? []).forEach((ov, i) => {

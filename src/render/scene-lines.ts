@@ -46,13 +46,16 @@ export function familyLines(ctx: SceneContext): { items: SceneItem[]; labels: { 
   const items: SceneItem[] = [];
   const labels: { runs: TextRun[]; pieces: Point[][] }[] = [];
   const mainSegs: Segment[] = model.boundaries.flatMap((b) => segsOf(figLine(ctx, b.points)));
+  // Only a line with a dissolved species of the element on one side moves with its activity; the
+  // others (solid/solid, solid/metal) are drawn where they extend but not labelled.
+  const dissolved = new Set(model.species.filter((s) => s.role === 'main' && s.class === 'dissolved').map((s) => s.formula));
   for (const fam of input.families ?? []) {
     for (const b of fam.boundaries) {
       const pieces = figLine(ctx, b.points).filter((p) => !coincides(p, mainSegs, 0.4));
       if (!pieces.length) continue;
       items.push(line('family', pieces, ink.family, thin, null, { lineCap: 'round', data: { activity: fam.activity.toExponential(2) } }));
       layout.soft.push(...segsOf(pieces));
-      labels.push({ runs: powerOfTenRuns(fam.activity), pieces });
+      if (b.between.some((f) => dissolved.has(f))) labels.push({ runs: powerOfTenRuns(fam.activity), pieces });
     }
   }
   return { items, labels };
