@@ -3,7 +3,7 @@
  * options (in pt), the inks, the plot frame and the label layout; plus the small item factories
  * (text, line, rectangle ring, knock-out) and the dash and text-wrapping rules. Pure: no I/O.
  */
-import type { BoundaryModel, DiagramModel } from '../model.js';
+import type { BoundaryModel, DiagramModel, RegionClass } from '../model.js';
 import type { Tick } from './axes.js';
 import { clipPolyline } from './clip.js';
 import { inflate, polylineSegments, rectRing, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
@@ -68,6 +68,8 @@ export interface SceneBase {
 
 export interface LegendEntry {
   kind: 'swatch' | 'line';
+  /** Swatches: the tint group (region class) whose every tint in use the swatch shows. */
+  group?: RegionClass;
   fill?: string | null;
   stroke?: string;
   width?: number;

@@ -58,7 +58,7 @@ export function buildScene(input: FigureInput): Scene {
     { type: 'group', role: 'plot', clip: plot, children: plotChildren },
     { type: 'group', role: 'axes', children: axisItems(ctx) },
     { type: 'group', role: 'labels', children: labelItems },
-    { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx), ...captionItems(ctx)] },
+    { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx, fills.fills), ...captionItems(ctx)] },
   ];
   const o = base.o;
   return {
