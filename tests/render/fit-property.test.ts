@@ -11,10 +11,8 @@ import { figureInput } from '../../src/figure/compose.js';
 import { figureSettings, type FigureOverrides } from '../../src/figure/options.js';
 import { compute } from '../../src/pipeline.js';
 import { buildScene } from '../../src/render/scene.js';
-import { textBox } from '../../src/render/labels.js';
-import type { Rect, Scene, SceneText } from '../../src/render/scene-types.js';
 import { readSpec } from '../../src/system/spec.js';
-import { allItems } from './helpers.js';
+import { overlaps } from './overlap-helpers.js';
 
 const ELEMENTS = ['Ag', 'Al', 'Au', 'Co', 'Cr', 'Cu', 'Fe', 'Mn', 'Mo', 'Ni', 'Pb', 'Sn', 'Ti', 'Zn'];
 const TEMPS = Array.from({ length: 13 }, (_, i) => i * 25);
@@ -22,28 +20,6 @@ const WIDTHS = ['85mm', '170mm'];
 const TITLES = [undefined, 'Corrosion map of the cooling loop', 'A much longer title for the cooling-water loop of the north plant, with its pump casings, valves, condenser tubes and heat-exchanger shells at the design temperature'];
 const FONTS = ['7', '8', '9', '10', '11', '12'];
 const STYLES = ['color', 'gray', 'lines'];
-
-/** Boxes of upright text (the layout's own box where it kept one). */
-export function textBoxes(scene: Scene): { role: string; box: Rect; text: string }[] {
-  return allItems(scene)
-    .filter((t): t is SceneText => t.type === 'text' && t.rotate === 0)
-    .map((t) => ({ role: t.role, box: t.box ?? textBox(t.runs, t.size, t.x, t.y, t.anchor), text: t.runs.map((r) => r.text).join('') }));
-}
-
-const overlap = (a: Rect, b: Rect, tol: number): boolean => a.x + tol < b.x + b.w && b.x + tol < a.x + a.w && a.y + tol < b.y + b.h && b.y + tol < a.y + a.h;
-
-/** Pairs of text boxes that overlap by more than `tol` pt. */
-export function overlaps(scene: Scene, tol = 0.25): string[] {
-  const bs = textBoxes(scene);
-  const out: string[] = [];
-  for (let i = 0; i < bs.length; i++) for (let j = i + 1; j < bs.length; j++) {
-    if (overlap(bs[i]!.box, bs[j]!.box, tol)) out.push(`${bs[i]!.role} "${bs[i]!.text}" × ${bs[j]!.role} "${bs[j]!.text}"`);
-  }
-  for (const b of bs) {
-    if (b.box.x < -tol || b.box.y < -tol || b.box.x + b.box.w > scene.widthPt + tol || b.box.y + b.box.h > scene.heightPt + tol) out.push(`${b.role} "${b.text}" outside the figure`);
-  }
-  return out;
-}
 
 describe('every library element draws at every temperature and size', () => {
   it('builds with no throw and no overlapping text', () => {
