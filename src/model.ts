@@ -130,6 +130,8 @@ export interface DiagramModel {
   /** The scale potentials are shown in, besides SHE (reference electrode), when one is set. */
   reference?: { id: string; label: string; offset: number };
   warnings: string[];
+  /** What the figure layout did to fit the requested size (set when a figure is drawn; none: absent). */
+  figureNotes?: string[];
   sources: string[];
   /** Composition mode: the totals, and the iso-solubility lines of the dissolved element. */
   composition?: CompositionModel;

@@ -19,6 +19,7 @@ import { catalogEntries, catalogText } from '../report/catalog.js';
 import { figureInput, withSecondAxis } from '../figure/compose.js';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
+import { reportFigureNotes } from './notes.js';
 
 const DRAW_FORMATS = ['.svg', '.pdf', '.png', '.html', '.json'];
 
@@ -68,6 +69,7 @@ export function registerCore(program: Command): void {
       warn(c.model.warnings);
       const data = ext === 'json' ? stableJson(c.model) : await renderFigure(figureInput(c, fig), ext as FigureFormat);
       await writeOne(opts.output, data);
+      reportFigureNotes(c.model);
       process.stdout.write(`wrote ${opts.output}\n`);
     });
 

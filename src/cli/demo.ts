@@ -14,6 +14,7 @@ import type { Command } from 'commander';
 import { figureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { renderFigure } from '../figure/output.js';
+import { reportFigureNotes } from './notes.js';
 import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { readSpec } from '../system/spec.js';
@@ -46,6 +47,7 @@ export function registerDemo(program: Command): void {
         const mine: OutputFile[] = [];
         for (const fmt of ['svg', 'pdf'] as const) mine.push({ path: join(opts.out, `${d.name}.${fmt}`), data: await renderFigure(input, fmt) });
         mine.push({ path: join(opts.out, `${d.name}.json`), data: stableJson(c.model) });
+        reportFigureNotes(c.model, `(${d.name}) `);
         files.push(...mine);
         lines.push(`${d.name}: ${mine.map((f) => f.path).join(', ')}\n`);
       }

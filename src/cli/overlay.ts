@@ -5,6 +5,7 @@
 import type { Command } from 'commander';
 import type { FigureOverrides } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
+import { reportFigureNotes } from './notes.js';
 import { loadSpec } from '../pipeline.js';
 import { computeLayers, layerSpecs, layerWarnings, overlayFigure, overlaySettings } from '../figure/overlay.js';
 import { InputError } from '../system/errors.js';
@@ -67,6 +68,7 @@ export function registerOverlay(program: Command): void {
       for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
       const { input } = overlayFigure(layers, fig, ext === 'pdf');
       await writeOne(opts.output, await renderFigure(input, ext as FigureFormat));
+      reportFigureNotes(input.model);
       process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);
     });
 }

@@ -6,6 +6,7 @@ import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-option
 import { windowFigureInput } from '../figure/compose.js';
 import { figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
+import { reportFigureNotes } from './notes.js';
 import { compute } from '../pipeline.js';
 import { stableJson } from '../report/json.js';
 import { platingWindow } from '../analysis/window.js';
@@ -42,6 +43,7 @@ export function registerWindow(program: Command): void {
       const r = platingWindow(c.model);
       if (opts.output && fmt) {
         await writeOne(opts.output, await renderFigure(windowFigureInput(c, fig, r.windows), fmt));
+        reportFigureNotes(c.model);
       }
       const head = windowHeading(c.model);
       if (opts.json) process.stdout.write(stableJson(r));

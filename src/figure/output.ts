@@ -2,6 +2,8 @@
  * Render a composed figure to bytes by output format. PDF, PNG and HTML modules load lazily, only
  * when asked for, so SVG and JSON runs start fast.
  */
+import { InputError } from '../errors.js';
+import { BUNDLED_FAMILY, isBundledFamily } from '../render/font-names.js';
 import { mmToPx } from '../render/options.js';
 import { buildScene, type FigureInput } from '../render/scene.js';
 import { sceneToSvg } from '../render/svg.js';
@@ -10,8 +12,22 @@ import { type FigureOverrides, figureSettings } from './options.js';
 
 export type FigureFormat = 'svg' | 'pdf' | 'png' | 'html';
 
+/**
+ * Draws a figure input in one format. What the layout did to fit the size (scene notes) is kept in
+ * the model's `figureNotes` for the caller to report.
+ */
 export async function renderFigure(input: FigureInput, format: FigureFormat): Promise<string | Uint8Array> {
+  if ((format === 'pdf' || format === 'png') && !isBundledFamily(input.options.fontFamily)) {
+    throw new InputError(
+      'figure',
+      'font (--font)',
+      `${BUNDLED_FAMILY} for ${format.toUpperCase()} output (it embeds the bundled font only; other families apply to SVG and HTML)`,
+      JSON.stringify(input.options.fontFamily),
+    );
+  }
   const scene = buildScene(input);
+  if (scene.notes.length) input.model.figureNotes = [...scene.notes];
+  else delete input.model.figureNotes;
   if (format === 'svg') return sceneToSvg(scene);
   if (format === 'html') {
     const { sceneToHtml } = await import('../render/html.js');

@@ -107,9 +107,37 @@ export function placeMarkLabel(
     const r = leaderPlace(layout, w, h, mark, size, allowSoft, own);
     if (r) return commit({ cx: r.cx, cy: r.cy, hx: hw, hy: hh, angle: 0 }, r.leader);
   }
-  // (3) Beside the mark over soft lines; (4) the first place regardless.
+  // (3) Beside the mark over soft lines; (4) the free place in the plot nearest the mark, with a
+  // leader; (5) the first place, kept inside the plot.
   const idx = firstFree(layout, first, gap, false);
-  return commit(first[Math.max(0, idx)]!);
+  if (idx >= 0) return commit(first[idx]!);
+  const free = nearestFreeInPlot(layout, w, h, mark, gap);
+  if (free) {
+    const end = nearestOnRect([free.cx, free.cy], mark);
+    return commit({ cx: free.cx, cy: free.cy, hx: hw, hy: hh, angle: 0 }, [end, nearestOnRect(end, { x: free.cx - hw, y: free.cy - hh, w, h })]);
+  }
+  const p = layout.plot;
+  const f0 = first[0]!;
+  return commit({ ...f0, cx: Math.min(Math.max(f0.cx, p.x + hw), p.x + p.w - hw), cy: Math.min(Math.max(f0.cy, p.y + hh), p.y + p.h - hh) });
+}
+
+/** A w × h box inside the plot, clear of every placed box (with `gap`), nearest the mark (grid of half heights). */
+function nearestFreeInPlot(layout: Layout, w: number, h: number, mark: Rect, gap: number): { cx: number; cy: number } | null {
+  const p = layout.plot;
+  const mc: Point = [mark.x + mark.w / 2, mark.y + mark.h / 2];
+  const step = Math.max(1, h / 2);
+  let best: { cx: number; cy: number; d: number } | null = null;
+  for (let cy = p.y + gap + h / 2; cy <= p.y + p.h - gap - h / 2; cy += step) {
+    for (let cx = p.x + gap + w / 2; cx <= p.x + p.w - gap - w / 2; cx += step) {
+      const d = Math.hypot(cx - mc[0], cy - mc[1]);
+      if (best && d >= best.d) continue;
+      const box = { x: cx - w / 2, y: cy - h / 2, w, h };
+      if (rectsOverlap(box, mark, 0)) continue;
+      if (!layout.boxFree(inflate(box, gap), 0)) continue;
+      best = { cx, cy, d };
+    }
+  }
+  return best;
 }
 
 /** Leader placement for placeMarkLabel: nearest free box around the mark, cost = distance + penalties. */

@@ -63,7 +63,7 @@ export function placeRegionLabels(
       outside.push(i);
     }
   });
-  if (outside.length > 0) placeAllOutside(layout, requests, outside, size, out);
+  if (outside.length > 0) placeAllOutside(layout, requests, outside, size, out, minSize);
   return out;
 }
 
@@ -140,7 +140,7 @@ function placeInside(layout: Layout, req: RegionLabelRequest, size: number, minS
  * Outside places for the labels that fit nowhere inside: the orders of the outside labels are
  * tried (all of them up to 4 labels, else as given) and the cheapest layout is kept.
  */
-function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[], outside: number[], size: number, out: (RegionLabelPlacement | null)[]): void {
+function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[], outside: number[], size: number, out: (RegionLabelPlacement | null)[], minSize = size): void {
   // Leader anchors: each region's own pole (a square probe; 1 pt is ample for a dot).
   const anchors = outside.map((i) => rectPole(requests[i]!.rings, [], 1, 1, 1).point);
   // Try the orders of the outside labels (all of them up to 4 labels, else as given) and keep the
@@ -152,7 +152,7 @@ function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[]
     let total = 0;
     const placed: [number, RegionLabelPlacement][] = [];
     for (const k of order) {
-      const r = placeOutside(layout, requests[outside[k]!]!, anchors[k]!, size);
+      const r = placeOutside(layout, requests[outside[k]!]!, anchors[k]!, size, minSize);
       placed.push([outside[k]!, r.placement]);
       total += r.cost;
       if (best && total >= best.cost) break;
@@ -193,16 +193,78 @@ const NO_PLACE = 1e6;
 /**
  * Outside place for a region label: the nearest free box around the anchor (16 directions, growing
  * radius) whose leader crosses no other leader or label; cost = distance + penalties for soft lines
- * under the box and for each boundary the leader crosses beyond the region's own. Adds the box and
- * the leader to the layout (the leader as a hard line, so later labels keep off it).
+ * under the box and for each boundary the leader crosses beyond the region's own. Tried at full
+ * size, then at `minSize`, then (still at `minSize`) letting the box sit over boundary lines at a
+ * heavy cost, so that the label always lands inside the plot clear of every other label. Adds the
+ * box and the leader to the layout (the leader as a hard line, so later labels keep off it).
  */
-function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number): { placement: RegionLabelPlacement; cost: number } {
+function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number, minSize = size): { placement: RegionLabelPlacement; cost: number } {
+  const tries: [number, boolean][] = [[size, false], [minSize, false], [minSize, true]];
+  let best: OutsideSpot | null = null;
+  let f = size;
+  for (const [s, overLines] of tries) {
+    best = searchOutside(layout, req, anchor, s, overLines);
+    f = s;
+    if (best) break;
+  }
+  if (!best) best = nearestFreeBox(layout, req, anchor, f);
+  if (!best) {
+    // Last resort: beside the anchor, kept inside the plot, over whatever is there.
+    const { w, h } = labelSize(req, f);
+    const cx = Math.min(Math.max(anchor[0], layout.plot.x + w / 2), layout.plot.x + layout.plot.w - w / 2);
+    const cy = Math.min(Math.max(anchor[1] - h, layout.plot.y + h / 2), layout.plot.y + layout.plot.h - h / 2);
+    best = { cost: NO_PLACE, cx, cy, box: { x: cx - w / 2, y: cy - h / 2, w, h } };
+  }
+  layout.addBox(best.box, 'region-label');
+  const end = nearestOnRect(anchor, best.box);
+  const len = Math.hypot(end[0] - anchor[0], end[1] - anchor[1]);
+  const trim = Math.min(len * 0.5, 0.15 * f);
+  const tip: Point = len > 0 ? [end[0] - ((end[0] - anchor[0]) / len) * trim, end[1] - ((end[1] - anchor[1]) / len) * trim] : end;
+  layout.leaders.push([anchor, tip]);
+  layout.hard.push([anchor, tip]);
+  return { placement: { key: req.key, runs: req.runs, size: f, cx: best.cx, cy: best.cy, angle: 0, box: best.box, leader: [anchor, tip] }, cost: best.cost };
+}
+
+interface OutsideSpot {
+  cost: number;
+  cx: number;
+  cy: number;
+  box: Rect;
+}
+
+/**
+ * Fallback of placeOutside: the free box (clear of every placed box, inside the plot) nearest the
+ * anchor on a grid of half font sizes, whatever lines it covers or its leader crosses.
+ */
+function nearestFreeBox(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number): OutsideSpot | null {
+  const { w, h } = labelSize(req, size);
   const gap = 0.25 * size;
-  const w = runsWidth(req.runs, size) * FONT_SAFETY;
-  const { top, bottom } = runsExtent(req.runs, size);
-  const h = bottom - top;
+  const { plot } = layout;
+  let best: OutsideSpot | null = null;
+  for (let y = plot.y + gap + h / 2; y <= plot.y + plot.h - gap - h / 2; y += size / 2) {
+    for (let x = plot.x + gap + w / 2; x <= plot.x + plot.w - gap - w / 2; x += size / 2) {
+      const box = { x: x - w / 2, y: y - h / 2, w, h };
+      const d = Math.hypot(x - anchor[0], y - anchor[1]);
+      if (best && d >= best.cost - NO_PLACE / 2) continue;
+      if (!layout.boxFree(inflate(box, gap), 0)) continue;
+      best = { cost: NO_PLACE / 2 + d, cx: x, cy: y, box };
+    }
+  }
+  return best;
+}
+
+/** Ink box size of a label at font size f (with the font-substitution widening). */
+function labelSize(req: RegionLabelRequest, f: number): { w: number; h: number } {
+  const { top, bottom } = runsExtent(req.runs, f);
+  return { w: runsWidth(req.runs, f) * FONT_SAFETY, h: bottom - top };
+}
+
+/** The search of placeOutside at one size; `overLines` lets the box cross boundaries (cost 6 sizes each). */
+function searchOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number, overLines: boolean): OutsideSpot | null {
+  const gap = 0.25 * size;
+  const { w, h } = labelSize(req, size);
   const step = 0.7 * size;
-  let best: { cost: number; cx: number; cy: number; box: Rect } | null = null;
+  let best: OutsideSpot | null = null;
   for (let k = 0; k < 24; k++) {
     const r = (k + 1) * step;
     for (const [dx, dy] of DIRECTIONS) {
@@ -216,7 +278,9 @@ function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, si
       if (!rectInside(padded, layout.plot)) continue;
       if (!layout.boxFree(padded, 0)) continue;
       if (insideRings([cx, cy], req.rings)) continue;
-      if (layout.anyHit(padded, layout.hard)) continue;
+      const hardHits = layout.hits(padded, layout.hard);
+      if (hardHits > 0 && !overLines) continue;
+      if (overLines && layout.anyHit(padded, layout.leaders)) continue;
       const end = nearestOnRect(anchor, box);
       let blocked = false;
       for (const b of layout.boxes) {
@@ -235,23 +299,10 @@ function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, si
       if (blocked) continue;
       const soft = layout.hits(padded, layout.soft);
       const crossings = countCrossings(anchor, end, layout.hard);
-      const cost = r + 4 * size * soft + 3 * size * Math.max(0, crossings - 1);
+      const cost = r + 4 * size * soft + 3 * size * Math.max(0, crossings - 1) + 6 * size * hardHits;
       if (!best || cost < best.cost - 1e-9) best = { cost, cx, cy, box };
     }
     if (best && best.cost <= r) break;
   }
-  if (!best) {
-    // Last resort: beside the anchor, over whatever is there (still reported through the box).
-    const cx = anchor[0];
-    const cy = anchor[1] - h;
-    best = { cost: NO_PLACE, cx, cy, box: { x: cx - w / 2, y: cy - h / 2, w, h } };
-  }
-  layout.addBox(best.box, 'region-label');
-  const end = nearestOnRect(anchor, best.box);
-  const len = Math.hypot(end[0] - anchor[0], end[1] - anchor[1]);
-  const trim = Math.min(len * 0.5, 0.15 * size);
-  const tip: Point = len > 0 ? [end[0] - ((end[0] - anchor[0]) / len) * trim, end[1] - ((end[1] - anchor[1]) / len) * trim] : end;
-  layout.leaders.push([anchor, tip]);
-  layout.hard.push([anchor, tip]);
-  return { placement: { key: req.key, runs: req.runs, size, cx: best.cx, cy: best.cy, angle: 0, box: best.box, leader: [anchor, tip] }, cost: best.cost };
+  return best;
 }

@@ -3,12 +3,13 @@
  * (the figure size) or points (fonts, lines); 1 in = 25.4 mm = 72 pt = 96 px (CSS reference pixel).
  */
 import { FigureFitError } from '../errors.js';
+import { SVG_FONT_FAMILY } from './font-names.js';
 
 export interface FigureOptions {
   /** Figure width and height in mm (the whole figure, caption and legend included). */
   width: number;
   height: number;
-  /** Font family list for SVG (the PDF always uses the standard Helvetica). */
+  /** Font family list for SVG; PDF and PNG draw with the bundled DejaVu Sans only (fonts.ts). */
   fontFamily: string;
   /** Base font size in pt (tick labels, region labels); other text scales from it. */
   fontSize: number;
@@ -38,7 +39,7 @@ export interface FigureOptions {
 export const DEFAULT_FIGURE: FigureOptions = {
   width: 85,
   height: 80,
-  fontFamily: "Helvetica, Arial, 'Liberation Sans', 'DejaVu Sans', sans-serif",
+  fontFamily: SVG_FONT_FAMILY,
   fontSize: 8,
   lineWidth: 1,
   style: 'color',

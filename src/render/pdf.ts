@@ -4,13 +4,9 @@
  * Output is reproducible: the creation date is fixed unless given.
  */
 import { runRise, runSize, runsWidth } from './metrics.js';
-import { winAnsi } from './pdf-text.js';
+import { faceOf, PDF_FACE, registerPdfFonts } from './fonts.js';
 import type { Scene, SceneItem, ScenePath, SceneText } from './scene-types.js';
 
-function fontName(italic: boolean, bold: boolean): string {
-  if (bold) return italic ? 'Helvetica-BoldOblique' : 'Helvetica-Bold';
-  return italic ? 'Helvetica-Oblique' : 'Helvetica';
-}
 
 // pdfkit's document type (kept loose to avoid loading the module for types at run time).
 type Doc = PDFKit.PDFDocument;
@@ -41,17 +37,16 @@ function drawPath(doc: Doc, p: ScenePath): void {
 }
 
 function drawText(doc: Doc, t: SceneText): void {
-  const total = runsWidth(t.runs, t.size);
+  const total = runsWidth(t.runs, t.size, t.bold ?? false);
   let x = t.anchor === 'start' ? t.x : t.anchor === 'middle' ? t.x - total / 2 : t.x - total;
   doc.save();
   if (t.rotate !== 0) doc.rotate(t.rotate, { origin: [t.x, t.y] });
   doc.fillColor(t.fill);
   for (const r of t.runs) {
     const size = runSize(r, t.size);
-    const s = winAnsi(r.text);
-    doc.font(fontName(r.italic ?? false, t.bold ?? false)).fontSize(size);
-    doc.text(s, x, t.y - runRise(r, t.size), { lineBreak: false, baseline: 'alphabetic' });
-    x += runsWidth([r], t.size);
+    doc.font(PDF_FACE[faceOf(r.italic ?? false, t.bold ?? false)]).fontSize(size);
+    doc.text(r.text, x, t.y - runRise(r, t.size), { lineBreak: false, baseline: 'alphabetic' });
+    x += runsWidth([r], t.size, t.bold ?? false);
   }
   doc.restore();
 }
@@ -92,6 +87,7 @@ export function drawSceneOnPdf(doc: Doc, scene: Scene, at: { x: number; y: numbe
   if (!(width > 0) || !Number.isFinite(width)) throw new Error(`figure width on the page must be positive, got ${width} pt`);
   const s = width / scene.widthPt;
   const cursor = { x: doc.x, y: doc.y };
+  registerPdfFonts(doc);
   doc.save();
   doc.translate(at.x, at.y);
   doc.scale(s);
@@ -117,6 +113,7 @@ export async function sceneToPdf(scene: Scene, opts: { creationDate?: Date } = {
     compress: true,
     info: {
       Title: scene.title,
+      ...(scene.caption !== undefined ? { Subject: scene.caption } : {}),
       Creator: 'ephmap',
       Producer: 'ephmap',
       CreationDate: opts.creationDate ?? new Date(Date.UTC(2000, 0, 1)),
@@ -128,6 +125,7 @@ export async function sceneToPdf(scene: Scene, opts: { creationDate?: Date } = {
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
   });
+  registerPdfFonts(doc);
   doc.rect(0, 0, scene.widthPt, scene.heightPt).fill(scene.background);
   drawItems(doc, scene.items);
   doc.end();

@@ -1,10 +1,11 @@
 /**
- * SVG → PNG raster with @resvg/resvg-js (loaded lazily). Fonts: the system fonts, with
- * DejaVu Sans as the sans-serif fallback when none of the SVG's families is installed.
+ * SVG → PNG raster with @resvg/resvg-js (loaded lazily). Fonts: only the bundled DejaVu Sans
+ * files (no system fonts), so the same SVG gives the same PNG bytes on every machine.
  */
+import { BUNDLED_FAMILY, fontFiles } from './fonts.js';
 
-/** Sans-serif family used when the figure's font families are missing on the machine. */
-export const PNG_FALLBACK_FONT = 'DejaVu Sans';
+/** The one family the rasteriser knows (every family the SVG names falls back to it). */
+export const PNG_FALLBACK_FONT = BUNDLED_FAMILY;
 
 /**
  * Renders SVG text to a PNG `widthPx` pixels wide (height follows the aspect ratio), on white.
@@ -19,7 +20,8 @@ export async function svgToPng(svg: string, widthPx: number): Promise<Buffer> {
     fitTo: { mode: 'width', value: widthPx },
     background: '#ffffff',
     font: {
-      loadSystemFonts: true,
+      loadSystemFonts: false,
+      fontFiles: fontFiles(),
       defaultFontFamily: PNG_FALLBACK_FONT,
       sansSerifFamily: PNG_FALLBACK_FONT,
     },

@@ -3,7 +3,8 @@
  * axis titles, and the figure title above the plot.
  */
 import type { Tick } from './axes.js';
-import { CAP_HEIGHT } from './metrics.js';
+import { CAP_HEIGHT, FONT_SAFETY, runsWidth } from './metrics.js';
+import { textBox } from './labels.js';
 import { line, rectPath, text, type SceneContext } from './scene-context.js';
 import type { Point, SceneItem } from './scene-types.js';
 import { plainRuns, quantityRuns } from './typeset.js';
@@ -52,9 +53,15 @@ export function axisItems(ctx: SceneContext): SceneItem[] {
   return items;
 }
 
-/** The bold title centred above the plot (when shown). */
+/** The bold title centred above the plot (when shown), one item per wrapped line. */
 export function titleItems(ctx: SceneContext): SceneItem[] {
   const { bands, W, pad, ink } = ctx;
   if (!bands.showTitle) return [];
-  return [text('title', bands.titleRuns, W / 2, pad + CAP_HEIGHT * bands.titleSize, bands.titleSize, 'middle', ink.text, { bold: true })];
+  return bands.titleLines.map((runs, i) => {
+    const y = pad + CAP_HEIGHT * bands.titleSize + i * bands.titleLead;
+    // The layout box of bold text: the regular box widened to the bold width.
+    const box = textBox(runs, bands.titleSize, W / 2, y, 'middle');
+    const w = runsWidth(runs, bands.titleSize, true) * FONT_SAFETY;
+    return text('title', runs, W / 2, y, bands.titleSize, 'middle', ink.text, { bold: true, box: { ...box, x: W / 2 - w / 2, w } });
+  });
 }

@@ -3,12 +3,12 @@
  * options (in pt), the inks, the plot frame and the label layout; plus the small item factories
  * (text, line, rectangle ring, knock-out) and the dash and text-wrapping rules. Pure: no I/O.
  */
-import type { BoundaryModel, DiagramModel } from '../model.js';
+import type { BoundaryModel, DiagramModel, RegionClass } from '../model.js';
 import type { Tick } from './axes.js';
 import { clipPolyline } from './clip.js';
 import { inflate, polylineSegments, rectRing, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
 import type { Layout } from './labels.js';
-import { stringWidth } from './metrics.js';
+import { runsWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
 import { inks, normColor } from './palette.js';
 import type { Point, Rect, ScenePath, SceneText, TextRun } from './scene-types.js';
@@ -71,6 +71,8 @@ export interface SceneBase {
 
 export interface LegendEntry {
   kind: 'swatch' | 'line';
+  /** Swatches: the tint group (region class) whose every tint in use the swatch shows. */
+  group?: RegionClass;
   fill?: string | null;
   stroke?: string;
   width?: number;
@@ -87,7 +89,10 @@ export interface FigureBands {
   off: number;
   showTitle: boolean;
   titleSize: number;
+  /** The whole title (document metadata), and as laid out: wrapped lines, their line spacing. */
   titleRuns: TextRun[];
+  titleLines: TextRun[][];
+  titleLead: number;
   /** Baselines of the x tick labels and of the x-axis title, below the plot's bottom edge. */
   xLabelBase: number;
   xTitleBase: number;
@@ -95,6 +100,8 @@ export interface FigureBands {
   legendTop: number;
   legSize: number;
   legRowH: number;
+  /** Gap between legend entries in a row, in legend font sizes. */
+  legGap: number;
   captionLines: { text: string; italic: boolean }[];
   captionTop: number;
   capSize: number;
@@ -235,17 +242,17 @@ export function dashStroke(dash: number[] | null, width: number): { dash: number
   return { dash: dash.map((d, k) => (k % 2 === 1 ? d + width : d)), lineCap: 'round' };
 }
 
-/** Widening for running text (caption, legend): lower-case prose in DejaVu Sans is up to 18 % wider. */
-export const PROSE_SAFETY = 1.2;
+/** Widening for running text (caption, legend), as FONT_SAFETY: the metrics are the bundled font's own. */
+export const PROSE_SAFETY = 1.06;
 
-/** Words wrapped greedily to `width` pt at `size` pt (measured with PROSE_SAFETY). */
+/** Words wrapped greedily to `width` pt at `size` pt (measured as drawn, scripts raised, with PROSE_SAFETY). */
 export function wrapText(s: string, size: number, width: number): string[] {
   const words = s.split(/\s+/).filter(Boolean);
   const out: string[] = [];
   let cur = '';
   for (const w of words) {
     const next = cur ? `${cur} ${w}` : w;
-    if (cur && stringWidth(next, size) * PROSE_SAFETY > width) {
+    if (cur && runsWidth(expandScripts([{ text: next, shift: 'normal' }]), size) * PROSE_SAFETY > width) {
       out.push(cur);
       cur = w;
     } else cur = next;

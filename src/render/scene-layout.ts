@@ -1,15 +1,16 @@
 /**
  * Figure layout: tick values, the margins they need, the bands below the plot (axis title,
- * legend, caption) and above it (title), and so the plot rectangle. Refuses a figure too small.
+ * legend, caption) and above it (title), and so the plot rectangle. The fitting steps (scene-fit.ts) decide what
+ * to squeeze when the plot would be too small.
  */
-import { FigureFitError } from '../errors.js';
 import { niceTicks, type Tick } from './axes.js';
-import { CAP_HEIGHT, FONT_SAFETY, stringWidth } from './metrics.js';
+import { CAP_HEIGHT, DESCENT, FONT_SAFETY, stringWidth } from './metrics.js';
 import { MIN_FONT_PT } from './options.js';
 import type { FigureBands, SceneBase } from './scene-context.js';
 import { captionLines, legendEntries, legendRows } from './scene-legend.js';
 import type { Rect } from './scene-types.js';
 import { richRuns } from './typeset.js';
+import { fitTitle } from './title-wrap.js';
 
 /** Tick values, their counts from a first guess of the plot size. */
 function axisTicks(b: SceneBase): { xTicks: Tick[]; yTicks: Tick[]; y2Ticks: Tick[]; off: number } {
@@ -39,27 +40,47 @@ function sideMargins(b: SceneBase, t: ReturnType<typeof axisTicks>): { left: num
   return { left, right };
 }
 
+/** How hard the layout squeezes: set by the fitting steps of scene-fit.ts. */
+export interface LayoutPlan {
+  /** Smallest title size the title may shrink to (pt). */
+  titleFloor: number;
+  /** Legend folded: set at the smallest font with tight spacing. */
+  foldLegend: boolean;
+  /** Caption left out of the drawing (kept in the figure's metadata). */
+  dropCaption: boolean;
+}
+
+export const PLAN_AS_GIVEN: LayoutPlan = { titleFloor: MIN_FONT_PT, foldLegend: false, dropCaption: false };
+
+/** Smallest plot the layout accepts, in font sizes: 12 across, 10 down. */
+export const MIN_PLOT_W_FS = 12;
+export const MIN_PLOT_H_FS = 10;
+
 /**
- * Lays the figure out: (1) ticks, (2) side margins, (3) caption and legend rows at the inner
- * width, (4) the bands from the top (title) and from the plot's bottom edge down (tick labels,
- * axis title, legend, caption), (5) the plot rectangle between them. Throws FigureFitError naming
- * --width or --height when the plot would be smaller than 4 × 4 × 3 font sizes.
+ * Lays the figure out: (1) ticks, (2) side margins, (3) the title fitted to the width (wrapped,
+ * shrunk, cut), caption and legend rows at the inner width, (4) the bands from the top (title) and
+ * from the plot's bottom edge down (tick labels, axis title, legend, caption), (5) the plot
+ * rectangle between them. `fits` says whether the plot keeps at least MIN_PLOT_W_FS × MIN_PLOT_H_FS
+ * font sizes; `below`/`top` let the fitting steps compute the height needed.
  */
-export function layoutFigure(b: SceneBase): FigureBands {
+export function layoutFigure(b: SceneBase, plan: LayoutPlan = PLAN_AS_GIVEN): FigureBands & { fits: { w: boolean; h: boolean }; titleSteps: string[]; chrome: number } {
   const { o, model, W, H, fs, pad, tickLen, tickGap } = b;
   const ticks = axisTicks(b);
   const { left, right } = sideMargins(b, ticks);
   const innerW = W - 2 * pad;
   const capSize = Math.max(MIN_FONT_PT, fs * 0.85);
   const capLead = capSize * 1.28;
-  const caption = captionLines(b, capSize, innerW);
-  const legSize = b.small;
-  const legRowH = legSize * 1.45;
-  const rows = legendRows(legendEntries(b), legSize, innerW);
+  const caption = plan.dropCaption ? [] : captionLines(b, capSize, innerW);
+  const legSize = plan.foldLegend ? MIN_FONT_PT : b.small;
+  const legRowH = legSize * (plan.foldLegend ? 1.3 : 1.45);
+  const rows = legendRows(legendEntries(b), legSize, innerW, plan.foldLegend ? 0.8 : 1.4);
   const showTitle = o.show.title;
-  const titleSize = fs * 1.1;
   const titleRuns = o.title !== undefined ? richRuns(o.title) : richRuns(`${model.element}\u2013{H2O}, ${model.temperature.celsius.toFixed(0)} \u00b0C`);
-  const top = showTitle ? pad + titleSize * 1.5 : Math.max(pad, 0.65 * fs);
+  const title = showTitle ? fitTitle(titleRuns, fs * 1.1, innerW, Math.min(fs * 1.1, plan.titleFloor)) : { lines: [], size: fs * 1.1, steps: [] };
+  const titleSize = title.size;
+  const titleLead = titleSize * 1.2;
+  // Title band: the last title line's cap height and descent, then room for the top E tick label's upper half.
+  const top = showTitle ? pad + (CAP_HEIGHT + DESCENT) * titleSize + (title.lines.length - 1) * titleLead + 0.6 * fs : Math.max(pad, 0.65 * fs);
   const xLabelBase = tickLen + tickGap + CAP_HEIGHT * fs; // below plot bottom
   const xTitleBase = xLabelBase + 0.5 * fs + CAP_HEIGHT * fs * 1.05 + 0.25 * fs;
   let below = xTitleBase + 0.25 * fs;
@@ -68,16 +89,10 @@ export function layoutFigure(b: SceneBase): FigureBands {
   const captionTop = below + (caption.length ? 0.45 * fs : 0);
   below = captionTop + caption.length * capLead + pad * 0.6;
   const plot: Rect = { x: left, y: top, w: W - left - right, h: H - top - below };
-  if (plot.h < 4 * fs * 3 || plot.w < 4 * fs * 4) {
-    throw new FigureFitError(
-      plot.w < 4 * fs * 4 ? '--width' : '--height',
-      `figure ${mmText(o.width)}×${mmText(o.height)} mm is too small for the plot with its caption and legend (plot ${(plot.w * 25.4 / 72).toFixed(0)}×${((plot.h * 25.4) / 72).toFixed(0)} mm); make it larger or hide the caption/legend`,
-    );
-  }
-  return { ...ticks, showTitle, titleSize, titleRuns, xLabelBase, xTitleBase, legendRows: rows, legendTop, legSize, legRowH, captionLines: caption, captionTop, capSize, capLead, plot };
+  const fits = { w: plot.w >= MIN_PLOT_W_FS * fs, h: plot.h >= MIN_PLOT_H_FS * fs };
+  return {
+    ...ticks, showTitle, titleSize, titleRuns, titleLines: title.lines, titleLead, xLabelBase, xTitleBase, legendRows: rows, legendTop, legSize, legRowH, legGap: plan.foldLegend ? 0.8 : 1.4,
+    captionLines: caption, captionTop, capSize, capLead, plot, fits, titleSteps: title.steps, chrome: top + below,
+  };
 }
 
-/** A length in mm for messages: at most 2 decimals, so "3in" reads 76.2, not 76.19999999999999. */
-function mmText(mm: number): string {
-  return String(Number(mm.toFixed(2)));
-}

@@ -9,6 +9,7 @@ import { CAP_HEIGHT, runsWidth } from './metrics.js';
 import { CLASS_NAMES, CLASS_TINTS, fillGroup, toGray, UNDETERMINED_FILL } from './palette.js';
 import { dashStroke, line, overlayInk, parseDash, PROSE_SAFETY, rectPath, text, wrapText, type LegendEntry, type SceneBase, type SceneContext } from './scene-context.js';
 import { bathLegendEntries } from './scene-iso.js';
+import { drawsLigands, ligandDash, neutralDash } from './scene-lines.js';
 import type { SceneItem, TextRun } from './scene-types.js';
 import { formulaRuns, plainRuns, powerOfTenRuns, richRuns } from './typeset.js';
 
@@ -37,7 +38,7 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
     const tint = CLASS_TINTS[c][0]!;
     const moved = model.kind === 'alloy' ? [] : reclassified(c);
     const runs = model.kind === 'alloy' ? plainRuns(alloySwatchName(c)) : moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
-    out.push({ kind: 'swatch', fill: o.style === 'gray' ? toGray(tint) : tint, runs });
+    out.push({ kind: 'swatch', group: c, fill: o.style === 'gray' ? toGray(tint) : tint, runs });
   }
   const und = [...new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species))].sort();
   if (und.length) {
@@ -70,10 +71,18 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
     legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
   }
   if ((input.families?.length ?? 0) > 0) {
-    legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs: plainRuns('other activities') });
+    // One key for the family: "a = 1, 10⁻², 10⁻⁴".
+    const acts = input.families!.map((f) => f.activity);
+    const runs: TextRun[] = [{ text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...acts.flatMap((a, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(a)])];
+    legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs });
   }
   if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });
   legend.push(...bathLegendEntries(b));
+  const [pH0, pH1] = model.domain.pH;
+  if (o.show.neutral && input.neutralPH !== undefined && input.neutralPH > pH0 && input.neutralPH < pH1) {
+    legend.push({ kind: 'line', stroke: ink.family, width: Math.max(0.5, 0.7 * lw), dash: neutralDash(b.k), runs: plainRuns('neutral water') });
+  }
+  if (drawsLigands(o, model)) legend.push({ kind: 'line', stroke: ink.ligand, width: thin * 0.8, dash: ligandDash(b.k), runs: plainRuns('ligand acid\u2013base boundaries') });
   (input.overlays ?? []).forEach((ov, i) => {
     legend.push({ kind: 'line', stroke: overlayInk(ink, ov, i), width: 0.8 * lw, dash: parseDash(ov.dash, lw), runs: richRuns(ov.label) });
   });
@@ -81,13 +90,13 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
 }
 
 /** Width of an entry's sample (swatch or line) at legend size `legSize`. */
-const sampleW = (e: LegendEntry, legSize: number): number => (e.kind === 'swatch' ? legSize * 1.1 : legSize * 2.6);
+const sampleW = (e: LegendEntry, legSize: number): number => (e.kind === 'swatch' ? legSize * 1.6 : legSize * 2.6);
 
 /** Width of an entry: sample, gap, text. */
 const entryW = (e: LegendEntry, legSize: number): number => sampleW(e, legSize) + 0.4 * legSize + runsWidth(e.runs, legSize) * PROSE_SAFETY;
 
 /** Entries wrapped greedily into rows of at most `innerW` pt. */
-export function legendRows(legend: LegendEntry[], legSize: number, innerW: number): LegendEntry[][] {
+export function legendRows(legend: LegendEntry[], legSize: number, innerW: number, gapEm = 1.4): LegendEntry[][] {
   const rows: LegendEntry[][] = [];
   let row: LegendEntry[] = [];
   let x = 0;
@@ -99,14 +108,39 @@ export function legendRows(legend: LegendEntry[], legSize: number, innerW: numbe
       x = 0;
     }
     row.push(e);
-    x += w + 1.4 * legSize;
+    x += w + gapEm * legSize;
   }
   if (row.length) rows.push(row);
   return rows;
 }
 
-/** Legend rows below the x-axis title: sample (swatch or line) then label, left to right. */
-export function legendItems(ctx: SceneContext): SceneItem[] {
+/**
+ * Tints a swatch shows: every fill used by the regions of its group (the class's tints in their
+ * order, then per-species colours), else the entry's own fill.
+ */
+function swatchTints(ctx: SceneContext, e: LegendEntry, fills: readonly (string | null)[]): string[] {
+  const used = new Set<string>();
+  ctx.model.regions.forEach((r, i) => {
+    const f = fills[i];
+    if (f && fillGroup(r.class, r.verdict) === e.group) used.add(f);
+  });
+  const order = CLASS_TINTS[e.group ?? 'solid'].map((t) => (ctx.o.style === 'gray' ? toGray(t) : t));
+  const tints = [...order.filter((t) => used.has(t)), ...[...used].filter((t) => !order.includes(t)).sort()];
+  return tints.length ? tints : [e.fill ?? '#ffffff'];
+}
+
+/** A swatch: one rectangle, or side-by-side stripes of every tint in use, outlined once. */
+function swatchItems(r: { x: number; y: number; w: number; h: number }, tints: string[]): SceneItem[] {
+  const sw = r.w / tints.length;
+  const stripes = tints.map((t, k) => rectPath('legend-swatch', { x: r.x + k * sw, y: r.y, w: sw, h: r.h }, { fill: t }));
+  return [...stripes, rectPath('legend-swatch-frame', r, { stroke: '#4d4d4d', strokeWidth: 0.35 })];
+}
+
+/**
+ * Legend rows below the x-axis title: sample (swatch or line) then label, left to right. `fills`
+ * (the regions' fills, as drawn) lets each swatch show every tint its group uses.
+ */
+export function legendItems(ctx: SceneContext, fills: readonly (string | null)[] = []): SceneItem[] {
   const { bands, pad, plot, ink } = ctx;
   const { legSize, legRowH } = bands;
   const bottomY = plot.y + plot.h;
@@ -118,7 +152,7 @@ export function legendItems(ctx: SceneContext): SceneItem[] {
       const sw = sampleW(e, legSize);
       if (e.kind === 'swatch') {
         const s = legSize * 0.95;
-        out.push(rectPath('legend-swatch', { x, y: cy - s / 2, w: sw, h: s }, { fill: e.fill ?? null, stroke: '#4d4d4d', strokeWidth: 0.35 }));
+        out.push(...swatchItems({ x, y: cy - s / 2, w: sw, h: s }, swatchTints(ctx, e, fills)));
       } else {
         const st = dashStroke(e.dash ?? null, e.width!);
         // A dotted sample starts and ends inside the swatch width (round caps reach half a width out).
@@ -128,7 +162,7 @@ export function legendItems(ctx: SceneContext): SceneItem[] {
       const tx = x + sw + 0.4 * legSize;
       const base = baselineForCentre(e.runs, legSize, cy);
       out.push(text('legend-label', e.runs, tx, base, legSize, 'start', ink.text, { box: textBox(e.runs, legSize, tx, base, 'start') }));
-      x += entryW(e, legSize) + 1.4 * legSize;
+      x += entryW(e, legSize) + bands.legGap * legSize;
     }
   });
   return out;

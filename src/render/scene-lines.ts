@@ -21,12 +21,23 @@ export function ligandLines(ctx: SceneContext): { items: SceneItem[]; labels: { 
       const rings = lr.polygons.flatMap((poly) => poly.map((ring) => clipRing(ring.map((p) => fr.toFig(p)), plot)).filter((g) => g.length >= 3));
       if (rings.length === 0) continue;
       const edges = ringSegments(rings).filter(([a, b]) => !onFrame(a, b, plot));
-      if (edges.length) items.push(line('ligand-boundary', edges.map(([a, b]) => [a, b]), ink.ligand, thin * 0.8, [0.01, 1.4 * k], { lineCap: 'round', data: { element: el } }));
+      // Dash-dot, so that it never reads as the dotted neutral-pH line (keyed in the legend).
+      if (edges.length) items.push(line('ligand-boundary', edges.map(([a, b]) => [a, b]), ink.ligand, thin * 0.8, ligandDash(k), { lineCap: 'round', data: { element: el } }));
       labels.push({ runs: formulaRuns(lr.species), rings });
     }
   }
   return { items, labels };
 }
+
+/** Dash of the ligand acid–base boundaries: dash-dot (a dot needs round caps). */
+export const ligandDash = (k: number): number[] => [2.4 * k, 1.3 * k, 0.01, 1.3 * k];
+
+/** Dash of the neutral-pH line: dotted. */
+export const neutralDash = (k: number): number[] => [0.01, 1.6 * k];
+
+/** Whether the ligand underlay is drawn (show.ligands and a ligand field exists). */
+export const drawsLigands = (o: { show: { ligands: boolean } }, model: { ligandRegions?: Record<string, unknown[]> }): boolean =>
+  o.show.ligands && Object.values(model.ligandRegions ?? {}).some((r) => r.length > 0);
 
 /** Grid lines at the inner ticks (when show.grid). */
 export function gridLines(ctx: SceneContext): SceneItem[] {
@@ -46,13 +57,16 @@ export function familyLines(ctx: SceneContext): { items: SceneItem[]; labels: { 
   const items: SceneItem[] = [];
   const labels: { runs: TextRun[]; pieces: Point[][] }[] = [];
   const mainSegs: Segment[] = model.boundaries.flatMap((b) => segsOf(figLine(ctx, b.points)));
+  // Only a line with a dissolved species of the element on one side moves with its activity; the
+  // others (solid/solid, solid/metal) are drawn where they extend but not labelled.
+  const dissolved = new Set(model.species.filter((s) => s.role === 'main' && s.class === 'dissolved').map((s) => s.formula));
   for (const fam of input.families ?? []) {
     for (const b of fam.boundaries) {
       const pieces = figLine(ctx, b.points).filter((p) => !coincides(p, mainSegs, 0.4));
       if (!pieces.length) continue;
       items.push(line('family', pieces, ink.family, thin, null, { lineCap: 'round', data: { activity: fam.activity.toExponential(2) } }));
       layout.soft.push(...segsOf(pieces));
-      labels.push({ runs: powerOfTenRuns(fam.activity), pieces });
+      if (b.between.some((f) => dissolved.has(f))) labels.push({ runs: powerOfTenRuns(fam.activity), pieces });
     }
   }
   return { items, labels };
@@ -83,7 +97,7 @@ export function neutralLine(ctx: SceneContext): { items: SceneItem[]; piece: Poi
     [x, plot.y],
   ];
   layout.soft.push(...polylineSegments(piece));
-  return { items: [line('neutral', [piece], ink.family, Math.max(0.5, 0.7 * lw), [0.01, 1.6 * k], { lineCap: 'round' })], piece };
+  return { items: [line('neutral', [piece], ink.family, Math.max(0.5, 0.7 * lw), neutralDash(k), { lineCap: 'round' })], piece };
 }
 
 /** Overlay layers' boundaries in their dash and ink; soft. */

@@ -111,4 +111,8 @@ export interface Scene {
   items: SceneItem[];
   /** Title for document metadata. */
   title: string;
+  /** What the layout did to fit the requested size (wrapped title, smaller fonts, …), once each. */
+  notes: string[];
+  /** The caption, when it was left out of the drawing to fit (kept as document metadata). */
+  caption?: string;
 }

@@ -5,10 +5,10 @@
  */
 import { Layout } from './labels.js';
 import { axisItems, titleItems } from './scene-axes.js';
-import { makeFrame, sceneBase, type FigureInput, type SceneContext } from './scene-context.js';
+import { makeFrame, type FigureInput, type SceneContext } from './scene-context.js';
 import { buildFills } from './scene-fills.js';
 import { isoLabels, isoLines, undeterminedFills } from './scene-iso.js';
-import { layoutFigure } from './scene-layout.js';
+import { fitFigure } from './scene-fit.js';
 import { captionItems, legendItems } from './scene-legend.js';
 import { familyLabels, ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-line-labels.js';
 import { boundaryLines, familyLines, gridLines, ligandLines, neutralLine, overlayLines, triplePoints, waterLines } from './scene-lines.js';
@@ -23,13 +23,13 @@ export { dashStroke, parseDash, wrapText } from './scene-context.js';
 export { CAUTION } from './scene-legend.js';
 
 /**
- * Builds the figure scene. Throws FigureFitError (naming the option) for a figure too small for its
- * plot, Error for other invalid options.
+ * Builds the figure scene, squeezed to fit its size (scene-fit.ts; the steps taken are in
+ * `notes`). Throws FigureFitError (naming the option) for a request that cannot fit, Error for
+ * other invalid options.
  */
 export function buildScene(input: FigureInput): Scene {
-  // (1) Sizes and inks from the options; (2) layout of the bands and the plot; (3) the context.
-  const base = sceneBase(input);
-  const bands = layoutFigure(base);
+  // (1)–(2) Sizes, inks and the layout of the bands and the plot, squeezed to fit; (3) the context.
+  const { base, bands, notes, droppedCaption } = fitFigure(input);
   const plot = bands.plot;
   const ctx: SceneContext = { ...base, bands, plot, fr: makeFrame(base.model, plot), layout: new Layout(plot, { x: 0, y: 0, w: base.W, h: base.H }) };
   // (4) Fills, then the lines in drawing order (each registers its obstacles with the layout).
@@ -62,7 +62,7 @@ export function buildScene(input: FigureInput): Scene {
     { type: 'group', role: 'plot', clip: plot, children: plotChildren },
     { type: 'group', role: 'axes', children: axisItems(ctx) },
     { type: 'group', role: 'labels', children: labelItems },
-    { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx), ...captionItems(ctx)] },
+    { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx, fills.fills), ...captionItems(ctx)] },
   ];
   const o = base.o;
   return {
@@ -76,5 +76,7 @@ export function buildScene(input: FigureInput): Scene {
     frame: { x0: plot.x, x1: plot.x + plot.w, y0: plot.y + plot.h, y1: plot.y, pH: [base.model.domain.pH[0], base.model.domain.pH[1]], E: [base.model.domain.E[0], base.model.domain.E[1]] },
     items,
     title: runsUnicode(bands.titleRuns),
+    notes,
+    ...(droppedCaption !== undefined ? { caption: droppedCaption } : {}),
   };
 }

@@ -223,6 +223,7 @@ export function buildSharesScene(input: SharesFigureInput): Scene {
     heightMm: o.height,
     fontFamily: o.fontFamily,
     background: '#ffffff',
+    notes: [],
     plot,
     // The frame maps the swept quantity (pH or E) on x and the share 0…1 on y (kept in the pH and E slots).
     frame: { x0: plot.x, x1: plot.x + plot.w, y0: plot.y + plot.h, y1: plot.y, pH: [L.d.range[0], L.d.range[1]], E: [0, 1] },

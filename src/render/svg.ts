@@ -119,6 +119,7 @@ export function sceneToSvg(scene: Scene): string {
     `<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="${num(scene.widthMm)}mm" height="${num(scene.heightMm)}mm" viewBox="0 0 ${num(scene.widthPt)} ${num(scene.heightPt)}" font-family="${esc(scene.fontFamily)}">`,
     `  <title>${esc(scene.title)}</title>`,
   ];
+  if (scene.caption !== undefined) head.push(`  <desc>${esc(scene.caption)}</desc>`);
   if (defs.length) head.push(`  <defs>${defs.join('')}</defs>`);
   head.push(`  <rect class="background" x="0" y="0" width="${num(scene.widthPt)}" height="${num(scene.heightPt)}" fill="${esc(scene.background)}"/>`);
   return [...head, ...out, '</svg>', ''].join('\n');

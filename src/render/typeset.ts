@@ -133,6 +133,7 @@ export function powerOfTenRuns(value: number): TextRun[] {
   const e = Math.log10(value);
   const rounded = Math.round(e);
   if (Math.abs(e - rounded) < 1e-6) {
+    if (rounded === 0) return plainRuns('1'); // "1", not 10⁰
     return [
       { text: '10', shift: 'normal' },
       { text: minus(String(rounded)), shift: 'sup' },

@@ -1,12 +1,12 @@
 /**
- * The report as a PDF (pdfkit, A4, the standard Helvetica fonts): text, tables and the figure,
+ * The report as a PDF (pdfkit, A4, the bundled DejaVu Sans, embedded): text, tables and the figure,
  * drawn as vector graphics from its scene (src/render/pdf.ts drawSceneOnPdf); a PNG is still
  * accepted in its place. Reproducible: the creation date is fixed, so the same input gives the
  * same bytes.
  */
 import { shortSource } from './format.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
-import { pdfText } from '../render/pdf-text.js';
+import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
@@ -42,19 +42,19 @@ class Writer {
   heading(s: string, size = 13): void {
     this.room(size * 4);
     this.doc.moveDown(0.6);
-    this.doc.font('Helvetica-Bold').fontSize(size).fillColor('#000000').text(pdfText(s), this.left, this.doc.y, { width: this.width });
+    this.doc.font(PDF_FACE.bold).fontSize(size).fillColor('#000000').text(s, this.left, this.doc.y, { width: this.width });
     this.doc.moveDown(0.3);
   }
 
   para(s: string, opts: { bold?: boolean; italic?: boolean; size?: number } = {}): void {
-    const font = opts.bold ? 'Helvetica-Bold' : opts.italic ? 'Helvetica-Oblique' : 'Helvetica';
-    this.doc.font(font).fontSize(opts.size ?? BODY).fillColor('#000000').text(pdfText(s), this.left, this.doc.y, { width: this.width });
+    const font = opts.bold ? PDF_FACE.bold : opts.italic ? PDF_FACE.italic : PDF_FACE.regular;
+    this.doc.font(font).fontSize(opts.size ?? BODY).fillColor('#000000').text(s, this.left, this.doc.y, { width: this.width });
     this.doc.moveDown(0.4);
   }
 
   bullets(items: string[]): void {
     for (const s of items) {
-      this.doc.font('Helvetica').fontSize(BODY).fillColor('#000000').text(pdfText(`\u2022 ${s}`), this.left + 6, this.doc.y, { width: this.width - 6 });
+      this.doc.font(PDF_FACE.regular).fontSize(BODY).fillColor('#000000').text(`\u2022 ${s}`, this.left + 6, this.doc.y, { width: this.width - 6 });
       this.doc.moveDown(0.15);
     }
     this.doc.moveDown(0.3);
@@ -66,16 +66,16 @@ class Writer {
     const pad = 2.5;
     const ws = fractions.map((f) => f * this.width);
     const cellH = (cells: string[], font: string) =>
-      Math.max(...cells.map((c, k) => doc.font(font).fontSize(size).heightOfString(pdfText(c), { width: ws[k] - 2 * pad }))) + 2 * pad;
+      Math.max(...cells.map((c, k) => doc.font(font).fontSize(size).heightOfString(c, { width: ws[k] - 2 * pad }))) + 2 * pad;
     const draw = (cells: string[], font: string, fill: string | null) => {
       const h = cellH(cells, font);
       let y = doc.y;
       if (y + h > this.bottom) {
         doc.addPage();
         y = doc.page.margins.top;
-        if (font !== 'Helvetica-Bold') {
+        if (font !== PDF_FACE.bold) {
           doc.y = y;
-          draw(header, 'Helvetica-Bold', '#eeeeee');
+          draw(header, PDF_FACE.bold, '#eeeeee');
           y = doc.y;
         }
       }
@@ -83,15 +83,15 @@ class Writer {
       cells.forEach((c, k) => {
         if (fill) doc.rect(x, y, ws[k], h).fill(fill);
         doc.rect(x, y, ws[k], h).lineWidth(0.4).strokeColor('#999999').stroke();
-        doc.font(font).fontSize(size).fillColor('#000000').text(pdfText(c), x + pad, y + pad, { width: ws[k] - 2 * pad });
+        doc.font(font).fontSize(size).fillColor('#000000').text(c, x + pad, y + pad, { width: ws[k] - 2 * pad });
         x += ws[k];
       });
       doc.y = y + h;
       doc.x = this.left;
     };
-    this.room(cellH(header, 'Helvetica-Bold') * 2);
-    draw(header, 'Helvetica-Bold', '#eeeeee');
-    for (const r of rows) draw(r, 'Helvetica', null);
+    this.room(cellH(header, PDF_FACE.bold) * 2);
+    draw(header, PDF_FACE.bold, '#eeeeee');
+    for (const r of rows) draw(r, PDF_FACE.regular, null);
     doc.moveDown(0.6);
   }
 }
@@ -111,7 +111,7 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
     size: 'A4',
     margins: { top: MARGIN, bottom: MARGIN, left: MARGIN, right: MARGIN },
     compress: true,
-    info: { Title: pdfText(d.title), Creator: 'ephmap', Producer: 'ephmap', CreationDate: new Date(Date.UTC(2000, 0, 1)) },
+    info: { Title: d.title, Creator: 'ephmap', Producer: 'ephmap', CreationDate: new Date(Date.UTC(2000, 0, 1)) },
   });
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -119,8 +119,9 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
   });
+  registerPdfFonts(doc);
   const w = new Writer(doc);
-  doc.font('Helvetica-Bold').fontSize(17).text(pdfText(d.title), w.left, MARGIN, { width: w.width });
+  doc.font(PDF_FACE.bold).fontSize(17).text(d.title, w.left, MARGIN, { width: w.width });
   doc.moveDown(0.3);
   w.para('Equilibrium thermodynamics only: a screening aid. See the cautions at the end.', { italic: true });
 

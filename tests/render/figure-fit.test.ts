@@ -36,11 +36,16 @@ describe('figure too small', () => {
       expect((e as FigureFitError).option).toBe('--font-size');
     }
   });
-  it('names --height when the caption leaves no room for the plot', () => {
-    const e = caught(() => buildScene({ model: iron(), options: opts({ width: 85, height: 40 }), caption: ['x '.repeat(200)] }));
-    expect(e).toBeInstanceOf(FigureFitError);
-    expect((e as FigureFitError).option).toBe('--height');
-    expect(exitStatusOf(e)).toBe(EXIT.input);
+  it('squeezes a caption that leaves no room for the plot: smaller fonts, taller, then caption to metadata', () => {
+    const s = buildScene({ model: iron(), options: opts({ width: 85, height: 40 }), caption: ['x '.repeat(2000)] });
+    expect(s.notes).toEqual([
+      'font size reduced from 8 to 6 pt to fit',
+      'height grown from 40 to 170 mm to fit the title, legend and caption',
+      'legend folded (smaller type, tighter spacing) to fit',
+      'caption moved to the figure metadata (not drawn) to fit',
+    ]);
+    expect(s.caption).toMatch(/^x x x/);
+    expect(s.plot.h).toBeGreaterThanOrEqual(10 * 6);
   });
   it('names --width when the font leaves no room across', () => {
     // 40 mm = 113 pt wide; at 24 pt the plot needs 4 × 4 × 24 = 384 pt.

@@ -217,7 +217,10 @@ describe('vector figure inside another PDF', () => {
     expect(pdf).toMatch(/1 0 0 1 100 120 cm/);
     expect(pdf).toMatch(/0\.5 0 0 0\.5 0 0 cm/);
     expect(pdf).not.toMatch(/\/Subtype \/Image/);
-    expect(pdf).toMatch(/Helvetica/);
+    // The bundled font, embedded (a TrueType font file stream), not a standard font.
+    expect(pdf).toMatch(/DejaVuSans/);
+    expect(pdf).toMatch(/\/FontFile2/);
+    expect(pdf).not.toMatch(/Helvetica/);
   });
 
   it('keeps sceneToPdf deterministic', async () => {

@@ -13,6 +13,8 @@ import { CLASS_TINTS } from '../../src/render/palette.js';
 import { buildScene } from '../../src/render/scene.js';
 import { runsUnicode } from '../../src/render/typeset.js';
 import { probe } from '../../src/analysis/probe.js';
+import { pointsCsv } from '../../src/report/points-csv.js';
+import { reportData } from '../../src/report/report-data.js';
 import { readSpec } from '../../src/system/spec.js';
 import { allItems, texts } from './helpers.js';
 
@@ -72,5 +74,17 @@ describe('classes: reclassification', () => {
     const after = pageData(moved.scene, moved.c.model).regions.find((r) => r.formula === 'Fe3O4')!;
     expect(before.reading).toBe('passivation');
     expect(after.reading).toBe('corrosion');
+  });
+
+  it('shows the reclassified verdict in the report and the points CSV', () => {
+    const at = fe3o4!.polygons[0]![0]!;
+    const pH = at.reduce((s, p) => s + p[0], 0) / at.length;
+    const E = at.reduce((s, p) => s + p[1], 0) / at.length;
+    const withPoint = (classes?: Record<string, string>) =>
+      compute(readSpec({ ...base, ...(classes ? { classes } : {}), points: [{ label: 'in magnetite', pH, E }] }, 'fe.yaml'));
+    expect(reportData(withPoint()).points.map((p) => p.result.verdict)).toEqual(['passivation']);
+    expect(reportData(withPoint({ Fe3O4: 'corrosion' })).points.map((p) => p.result.verdict)).toEqual(['corrosion']);
+    const csv = pointsCsv([{ row: { line: 2, pH, potential: E }, scale: 'SHE', result: probe(moved.c, pH, E) }]);
+    expect(csv.split('\n')[1]).toMatch(/,Fe3O4,corrosion,/);
   });
 });

@@ -8,7 +8,6 @@ import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { computeFile } from '../../src/pipeline.js';
-import { pdfText } from '../../src/render/pdf-text.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
@@ -126,6 +125,10 @@ describe('report (PDF)', () => {
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     // The figure is drawn as vectors, not embedded as an image.
     expect(bytes.includes(Buffer.from('/Subtype /Image'))).toBe(false);
+    // Text in the bundled font, embedded (issue 17): no standard (unembedded) Helvetica.
+    expect(bytes.includes(Buffer.from('DejaVuSans'))).toBe(true);
+    expect(bytes.includes(Buffer.from('/FontFile2'))).toBe(true);
+    expect(bytes.includes(Buffer.from('Helvetica'))).toBe(false);
   });
 
   // Reason for skipping: pdftotext (poppler-utils) is not installed; .ci/run installs it.
@@ -133,7 +136,7 @@ describe('report (PDF)', () => {
     const out = await report('p/report.pdf');
     const text = squash(execFileSync('pdftotext', ['-enc', 'UTF-8', out, '-'], { encoding: 'utf8' }));
     expect(text).toContain('V vs SHE'); // the figure's axis title is text in the PDF
-    for (const r of reactions) expect(text).toContain(pdfText(r));
+    for (const r of reactions) expect(text).toContain(squash(r)); // Unicode as written: the font is embedded
     // Table row: label, pH, E as given, E vs SHE, predominant species, verdict.
     for (const [label, verdict] of EXPECTED) expect(text).toMatch(new RegExp(`${label} \\S+ \\S+ V vs SHE \\S+ \\S+ ${verdict.toUpperCase()} `));
     expect(text).toContain(squash(NBS));
@@ -167,8 +170,3 @@ describe('report: bad input', () => {
   });
 });
 
-describe('pdfText', () => {
-  it('maps sub- and superscripts and Greek letters to the standard fonts', () => {
-    expect(pdfText('H\u2082O, 10\u207b\u2076, \u03b3, \u2212')).toBe('H2O, 10^-6, gamma, \u2013');
-  });
-});
