@@ -1,21 +1,19 @@
 /**
  * `ephmap probe FILE --ph X --potential Y [--ref NAME] [--json]` and
- * `ephmap probe FILE --points LOG.csv [-o OUT.csv]`.
+ * `ephmap probe FILE --points LOG.csv|- [-o OUT.csv|-] [--delimiter SEP] [--unit V|mV] [--strict]` (probe-points.ts).
  */
-import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { numberArg } from './args.js';
 import { stableJson } from '../report/json.js';
-import { parsePointsCsv, pointsCsv } from '../report/points-csv.js';
 import { probe } from '../analysis/probe.js';
 import { toShe } from '../analysis/points.js';
 import { pointComputer } from '../analysis/widen.js';
 import { probeText } from '../report/probe-text.js';
+import { runPoints } from './probe-points.js';
 import { InputError } from '../system/errors.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
-import { writeAtomic } from '../io/write.js';
 
 const num = numberArg;
 
@@ -26,6 +24,9 @@ interface ProbeOpts extends SpecOverrides {
   points?: string;
   output?: string;
   json?: boolean;
+  delimiter?: string;
+  unit?: string;
+  strict?: boolean;
 }
 
 export function registerProbe(program: Command): void {
@@ -36,37 +37,25 @@ export function registerProbe(program: Command): void {
     .option('--ph <pH>', 'pH at the point')
     .option('--potential <volts>', 'potential at the point, V (vs SHE unless --ref)')
     .option('--ref <name>', 'reference electrode the potential is measured against: she, rhe, sce, agcl-sat, agcl-3.5m, agcl-1m, agcl-sea, cse, hgo, mse')
-    .option('--points <csv>', 'logged series: CSV with columns pH, potential[, temperature]')
-    .option('-o, --output <csv>', 'with --points: write the results CSV here (default: standard output)')
+    .option('--points <csv>', 'logged series: CSV with columns pH, potential (or potential_mV)[, temperature, ionic_strength]; - reads standard input')
+    .option('-o, --output <csv>', 'with --points: write the results CSV here (default, or -: standard output)')
+    .option('--delimiter <sep>', 'with --points: separator of the input and output CSV: auto (default), ",", ";" or tab; with ";" or tab a decimal comma is read')
+    .option('--unit <unit>', 'with --points: unit of a potential column named without one: V (default) or mV')
+    .option('--strict', 'with --points: stop at the first bad row (exit status 2) instead of marking it and going on')
     .option('--json', 'machine-readable output')
-    .action((file: string, opts: ProbeOpts) => {
+    .action(async (file: string, opts: ProbeOpts) => {
       const spec = loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
-      const at = pointComputer(spec);
       if (opts.points !== undefined) {
         if (opts.ph !== undefined || opts.potential !== undefined) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
-        let text: string;
-        try {
-          text = readFileSync(opts.points, 'utf8');
-        } catch {
-          throw new InputError(opts.points, '', 'a readable CSV file', 'a file that cannot be read');
-        }
-        const rows = parsePointsCsv(text, opts.points);
-        const results = rows.map((row) => {
-          const T = row.temperature ?? spec.temperature;
-          if (!(T >= 0 && T <= 350)) throw new InputError(opts.points!, `line ${row.line} temperature`, 'a temperature from 0 to 350 °C', String(T));
-          const s = toShe(ref, row.potential, T, row.pH, opts.points!, `line ${row.line}`);
-          const c = at(T, { pH: row.pH, E: s.E });
-          return { row, scale: s.ref?.label ?? 'SHE', result: probe(c, row.pH, s.E, s.ref) };
-        });
-        const csv = pointsCsv(results);
-        if (opts.output) {
-          writeAtomic(opts.output, csv);
-          process.stdout.write(`wrote ${opts.output} (${results.length} rows)\n`);
-        } else process.stdout.write(csv);
+        await runPoints(file, spec, ref, { points: opts.points, output: opts.output, delimiter: opts.delimiter, unit: opts.unit, strict: opts.strict });
         return;
       }
+      for (const [given, name] of [[opts.output, '--output'], [opts.delimiter, '--delimiter'], [opts.unit, '--unit'], [opts.strict, '--strict']] as const) {
+        if (given !== undefined) throw new InputError('command line', name, `${name} only with --points`);
+      }
+      const at = pointComputer(spec);
       if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
       const pH = num(opts.ph, '--ph', 'a pH value (number)');
       const E0 = num(opts.potential, '--potential', 'a potential in V (number)');

@@ -1,70 +1,199 @@
 /**
- * Logged operating data for `probe --points`: read a CSV of pH, potential and an optional
- * temperature column; write one result row per input row.
- * Accepted headers (case-insensitive): pH; potential | E | E_V; temperature | T | t_C. Other
- * columns (e.g. a time stamp) are carried through in the output as `label`.
+ * Logged operating data for `probe --points`: the header of the input CSV, one input row read into
+ * numbers (or a per-row error), and one output row written.
+ *
+ * Input columns (header names, case-insensitive): `pH`; the potential as `potential` | `E` | `E_V`
+ * (V) or `potential_mV` | `E_mV` (mV); optional `temperature` | `T` | `t_C` (°C) and
+ * `ionic_strength` (mol/kg). Every other column is carried through to the output unchanged (user
+ * text, so neutralised against spreadsheet formulas). A column named twice (two pH columns, or a
+ * potential in V and in mV) refuses the file.
+ *
+ * Numbers: plain decimal or exponent notation; with a `;` or tab separator a decimal comma is read
+ * too (`7,25`). Hexadecimal (`0x7`), `Infinity`, thousands separators and blanks are refused for
+ * that row. Sane ranges (common practice for aqueous work): pH −2…16, |E| ≤ 5 V, 0…350 °C,
+ * ionic strength 0…10 mol/kg (the system file's own bound).
  */
-import { Fields } from '../system/fields.js';
+import { InputError } from '../errors.js';
+import { csvField } from '../io/csv-records.js';
+import { neutraliseCsvCell } from '../io/csv-cell.js';
 import type { ProbeResult } from '../analysis/probe.js';
+
+export type PotentialUnit = 'V' | 'mV';
+
+export interface PointsHeader {
+  pH: number;
+  potential: number;
+  /** Unit of the potential column (from its name, or --unit). */
+  unit: PotentialUnit;
+  temperature: number;
+  ionicStrength: number;
+  /** Indexes and names of the carried columns, in input order. */
+  extra: { index: number; name: string }[];
+  width: number;
+}
 
 export interface PointRow {
   line: number;
   pH: number;
+  /** Potential as given, V (converted from mV when the column is in mV). */
   potential: number;
   temperature?: number;
-  label?: string;
+  ionicStrength?: number;
+  extra: string[];
 }
 
-export function parsePointsCsv(text: string, file: string): PointRow[] {
-  const f = new Fields(file);
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  const lines = text.split(/\r?\n/).map((l) => l.trim());
-  const first = lines.findIndex((l) => l !== '' && !l.startsWith('#'));
-  if (first < 0) f.fail('', 'a CSV with a header row (pH, potential[, temperature]) and data rows', 'an empty file');
-  const sep = lines[first].includes(';') && !lines[first].includes(',') ? ';' : ',';
-  const head = lines[first].split(sep).map((h) => h.trim().toLowerCase());
-  const find = (names: string[]) => head.findIndex((h) => names.includes(h));
-  const iPH = find(['ph']);
-  const iE = find(['potential', 'e', 'e_v', 'e/v', 'potential_v']);
-  const iT = find(['temperature', 't', 't_c', 'temperature_c']);
-  const iL = head.findIndex((_, k) => k !== iPH && k !== iE && k !== iT);
-  if (iPH < 0 || iE < 0) f.fail('header', 'columns named pH and potential (optionally temperature)', lines[first]);
-  const rows: PointRow[] = [];
-  for (let k = first + 1; k < lines.length; k++) {
-    const l = lines[k];
-    if (l === '' || l.startsWith('#')) continue;
-    const cells = l.split(sep).map((c) => c.trim());
-    const num = (i: number, what: string) => {
-      const x = Number(cells[i]);
-      if (cells[i] === undefined || cells[i] === '' || !Number.isFinite(x)) f.fail(`line ${k + 1} ${what}`, 'a number', cells[i] ?? 'nothing');
-      return x;
-    };
-    const row: PointRow = { line: k + 1, pH: num(iPH, 'pH'), potential: num(iE, 'potential') };
-    if (iT >= 0 && cells[iT] !== '') row.temperature = num(iT, 'temperature');
-    if (iL >= 0 && cells[iL]) row.label = cells[iL];
-    rows.push(row);
-    if (rows.length > 1_000_000) f.fail('', 'at most 1,000,000 rows');
+const ROLES: Record<string, { role: 'pH' | 'potential' | 'temperature' | 'ionicStrength'; unit?: PotentialUnit }> = {
+  ph: { role: 'pH' },
+  potential: { role: 'potential' },
+  e: { role: 'potential' },
+  e_v: { role: 'potential', unit: 'V' },
+  'e/v': { role: 'potential', unit: 'V' },
+  potential_v: { role: 'potential', unit: 'V' },
+  potential_mv: { role: 'potential', unit: 'mV' },
+  e_mv: { role: 'potential', unit: 'mV' },
+  'e/mv': { role: 'potential', unit: 'mV' },
+  temperature: { role: 'temperature' },
+  t: { role: 'temperature' },
+  t_c: { role: 'temperature' },
+  temperature_c: { role: 'temperature' },
+  ionic_strength: { role: 'ionicStrength' },
+};
+
+/**
+ * The header row: which column holds what. `unit` (from --unit) applies to a potential column
+ * whose name carries no unit; a name with a unit that contradicts it is refused.
+ */
+export function readPointsHeader(fields: string[], file: string, unit: PotentialUnit | undefined): PointsHeader {
+  const at: Record<string, number> = { pH: -1, potential: -1, temperature: -1, ionicStrength: -1 };
+  let named: PotentialUnit | undefined;
+  const extra: { index: number; name: string }[] = [];
+  fields.forEach((raw, k) => {
+    const name = raw.trim();
+    const r = Object.hasOwn(ROLES, name.toLowerCase()) ? ROLES[name.toLowerCase()] : undefined;
+    if (!r) {
+      extra.push({ index: k, name });
+      return;
+    }
+    if (at[r.role] >= 0) throw new InputError(file, 'header', `one ${r.role} column`, `two (columns ${at[r.role] + 1} and ${k + 1}: "${fields[at[r.role]].trim()}" and "${name}")`);
+    at[r.role] = k;
+    if (r.role === 'potential') named = r.unit;
+  });
+  if (at.pH < 0 || at.potential < 0) throw new InputError(file, 'header', 'columns named pH and potential (or potential_mV), optionally temperature and ionic_strength', fields.join(','));
+  if (named && unit && named !== unit) throw new InputError(file, 'header', `a potential column in ${unit} (--unit ${unit})`, `"${fields[at.potential].trim()}"`);
+  return { pH: at.pH, potential: at.potential, unit: named ?? unit ?? 'V', temperature: at.temperature, ionicStrength: at.ionicStrength, extra, width: fields.length };
+}
+
+const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/** Why a row was refused: where (line, column), what was expected, what was found. */
+export interface RowError {
+  field: string;
+  expected: string;
+  got?: string;
+}
+
+/** The message for a refused row, as InputError words it. */
+export function rowErrorText(e: RowError): string {
+  return `${e.field}: expected ${e.expected}${e.got !== undefined ? `, got ${e.got}` : ''}`;
+}
+
+/** A number cell, or what was wrong with it. */
+function readNumber(cell: string | undefined, decimalComma: boolean): number | { expected: string; got: string } {
+  if (cell === undefined) return { expected: 'a number', got: 'nothing (the row is short)' };
+  let s = cell.trim();
+  if (s === '') return { expected: 'a number', got: 'a blank cell' };
+  if (decimalComma && /^[^,]*,[^,]*$/.test(s) && !s.includes('.')) s = s.replace(',', '.');
+  if (!NUMBER.test(s)) return { expected: 'a decimal number', got: JSON.stringify(cell.length > 40 ? `${cell.slice(0, 40)}…` : cell) };
+  return Number(s);
+}
+
+export const LIMITS = { pH: [-2, 16], E: 5, temperature: [0, 350], ionicStrength: [0, 10] } as const;
+
+/**
+ * One data row: its numbers, or what was wrong naming the line and column. `decimalComma` reads
+ * `7,25` as 7.25 (separator `;` or tab).
+ */
+export function readPointRow(fields: string[], line: number, h: PointsHeader, decimalComma: boolean): PointRow | RowError {
+  const where = (k: number, what: string) => `line ${line}, column ${k + 1} (${what})`;
+  const num = (k: number, what: string): number | RowError => {
+    const v = readNumber(fields[k], decimalComma);
+    return typeof v === 'number' ? v : { field: where(k, what), ...v };
+  };
+  const range = (k: number, what: string, v: number, lo: number, hi: number, unit: string): RowError | undefined =>
+    v < lo || v > hi ? { field: where(k, what), expected: `${lo} to ${hi}${unit}`, got: String(v) } : undefined;
+  const pH = num(h.pH, 'pH');
+  if (typeof pH !== 'number') return pH;
+  const bad = range(h.pH, 'pH', pH, LIMITS.pH[0], LIMITS.pH[1], '');
+  if (bad) return bad;
+  const pName = h.unit === 'mV' ? 'potential, mV' : 'potential, V';
+  const p = num(h.potential, pName);
+  if (typeof p !== 'number') return p;
+  const E = h.unit === 'mV' ? p / 1000 : p;
+  if (Math.abs(E) > LIMITS.E) return { field: where(h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
+  const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? '') };
+  if (h.temperature >= 0 && (fields[h.temperature] ?? '').trim() !== '') {
+    const T = num(h.temperature, 'temperature');
+    if (typeof T !== 'number') return T;
+    const r = range(h.temperature, 'temperature', T, LIMITS.temperature[0], LIMITS.temperature[1], ' °C');
+    if (r) return r;
+    row.temperature = T;
   }
-  if (!rows.length) f.fail('', 'at least one data row after the header');
-  return rows;
+  if (h.ionicStrength >= 0 && (fields[h.ionicStrength] ?? '').trim() !== '') {
+    const I = num(h.ionicStrength, 'ionic_strength');
+    if (typeof I !== 'number') return I;
+    const r = range(h.ionicStrength, 'ionic_strength', I, LIMITS.ionicStrength[0], LIMITS.ionicStrength[1], ' mol/kg');
+    if (r) return r;
+    row.ionicStrength = I;
+  }
+  return row;
 }
 
-const HEAD = ['line', 'label', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice'];
+const HEAD = ['line', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice', 'warnings', 'error'];
 
-function cell(v: string | number | null | undefined): string {
+/** The output header: the carried columns first (renamed `in_NAME` if they clash), then ours. */
+export function pointsOutputHeader(h: PointsHeader, sep: string): string {
+  const names = h.extra.map((x) => (HEAD.includes(x.name) ? `in_${x.name}` : x.name));
+  return [...names.map((n) => csvField(neutraliseCsvCell(n), sep)), ...HEAD].join(sep) + '\n';
+}
+
+/** A number as written: 8 significant digits, shortest form. */
+function num8(v: number | null | undefined): string {
   if (v === null || v === undefined) return '';
-  const s = typeof v === 'number' ? String(Number(v.toPrecision(8))) : v;
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  return String(Number(v.toPrecision(8)));
 }
 
-export function pointsCsv(rows: { row: PointRow; scale: string; result: ProbeResult }[]): string {
-  const out = [HEAD.join(',')];
-  for (const { row, scale, result: r } of rows) {
-    out.push(
-      [row.line, row.label ?? '', row.pH, row.potential, scale, r.E, r.temperature.celsius, r.predominant, r.verdict, r.runnerUp, r.margin.kJPerMol, r.distance.mV, r.distance.pH, r.nearestBoundary?.reaction ?? '', r.advice]
-        .map(cell)
-        .join(','),
-    );
-  }
-  return `${out.join('\n')}\n`;
+/** User text (carried cells, messages that echo cells): neutralised, then quoted as needed. */
+function text(s: string, sep: string): string {
+  return csvField(neutraliseCsvCell(s), sep);
+}
+
+/** One answered row. `warnings` are joined with " | ". */
+export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, warnings: readonly string[], sep: string): string {
+  const cells = row.extra.map((c) => text(c, sep));
+  cells.push(
+    String(row.line),
+    num8(row.pH),
+    num8(row.potential),
+    csvField(scale, sep),
+    num8(r.E),
+    num8(r.temperature.celsius),
+    csvField(r.predominant, sep),
+    r.verdict,
+    csvField(r.runnerUp ?? '', sep),
+    num8(r.margin.kJPerMol),
+    num8(r.distance.mV),
+    num8(r.distance.pH),
+    csvField(r.nearestBoundary?.reaction ?? '', sep),
+    csvField(r.advice, sep),
+    text(warnings.join(' | '), sep),
+    '',
+  );
+  return cells.join(sep) + '\n';
+}
+
+/** A row that could not be answered: carried columns, the line, and the error column. */
+export function pointsErrorRow(extra: readonly string[], line: number, message: string, sep: string): string {
+  const cells = extra.map((c) => text(c, sep));
+  cells.push(String(line), ...Array<string>(HEAD.length - 2).fill(''), text(message, sep));
+  return cells.join(sep) + '\n';
 }
