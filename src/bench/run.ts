@@ -12,6 +12,9 @@
  *   peak RSS MB: M                      — a 1000×1000 grid map in a fresh process; target ≤ 150
  *   composition 300x300 ms: T           — silver cyanide bath, composition mode, refined; target ≤ 1500
  *   composition points solved per second — point solutions (grid, refinement, iso-lines) per second
+ *   points 1e6 s: T                     — `probe --points` over 10⁶ rows in a child process; target ≤ 3
+ *   points peak RSS MB: M               — that child's peak RSS; target ≤ 120
+ *   points 2000 temperatures s: T       — 2,000 rows at 2,000 distinct temperatures (bench/points.ts)
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -25,6 +28,7 @@ import { gridMap } from '../solve/grid.js';
 import { buildAlloySystem } from '../system/alloy-build.js';
 import { readAlloySpec } from '../system/alloy-spec.js';
 import { benchComposition } from './composition.js';
+import { benchPoints } from './points.js';
 import { readSpec } from '../system/spec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -137,6 +141,12 @@ async function main(): Promise<void> {
     const cb = benchComposition(300, 3);
     console.log(`composition 300x300 ms: ${cb.ms.toFixed(0)}`);
     console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves; CPU ${cb.cpuMs.toFixed(0)} ms)`);
+
+    // 7. Logged series: the real command in a child process.
+    const pts = await benchPoints(cli, dir);
+    console.log(`points 1e6 s: ${pts.million.seconds.toFixed(2)} (CPU ${pts.million.cpuSeconds.toFixed(2)} s)`);
+    console.log(`points peak RSS MB: ${pts.million.peakRssMB.toFixed(1)}`);
+    console.log(`points 2000 temperatures s: ${pts.temps.seconds.toFixed(2)} (CPU ${pts.temps.cpuSeconds.toFixed(2)} s)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

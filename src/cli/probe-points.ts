@@ -70,7 +70,7 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
       throw new InputError(o.points, '', 'a readable CSV file', 'a path that is not a readable file');
     }
   }
-  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: 1 << 18 });
+  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: 1 << 16 });
   (input as NodeJS.ReadableStream & { setEncoding(e: string): void }).setEncoding('utf8');
   const sink: OutputSink = toFile ? await fileSink(o.output!) : stdoutSink();
   const answerer = pointsAnswerer(spec, ref, name);

@@ -170,11 +170,10 @@ export class CsvRecordReader {
   }
 }
 
+const NEEDS_QUOTES: Record<string, RegExp> = { ',': /[",\n\r]/, ';': /[";\n\r]/, '\t': /["\t\n\r]/ };
+
 /** One field written by RFC 4180: quoted when it holds the separator, a quote, CR or LF. */
 export function csvField(s: string, sep: string): string {
-  for (let i = 0; i < s.length; i++) {
-    const c = s[i];
-    if (c === sep || c === '"' || c === '\n' || c === '\r') return `"${s.replace(/"/g, '""')}"`;
-  }
-  return s;
+  const re = NEEDS_QUOTES[sep] ?? new RegExp(`["\n\r${sep.replace(/[\\\]^-]/g, '\\$&')}]`);
+  return re.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }

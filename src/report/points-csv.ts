@@ -40,6 +40,10 @@ export interface PointRow {
   temperature?: number;
   ionicStrength?: number;
   extra: string[];
+  /** The pH and potential cells as written, echoed when they are plain decimals (else formatted). */
+  given: { pH?: string; potential?: string };
+  /** Unit the potential was given in (the output echoes it in that unit). */
+  unit: PotentialUnit;
 }
 
 const ROLES: Record<string, { role: 'pH' | 'potential' | 'temperature' | 'ionicStrength'; unit?: PotentialUnit }> = {
@@ -84,6 +88,8 @@ export function readPointsHeader(fields: string[], file: string, unit: Potential
 }
 
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+/** A cell echoed as written: a plain decimal without spaces, exponent or sign other than minus. */
+const PLAIN = /^-?\d{1,9}(?:\.\d{1,8})?$/;
 
 /** Why a row was refused: where (line, column), what was expected, what was found. */
 export interface RowError {
@@ -100,6 +106,7 @@ export function rowErrorText(e: RowError): string {
 /** A number cell, or what was wrong with it. */
 function readNumber(cell: string | undefined, decimalComma: boolean): number | { expected: string; got: string } {
   if (cell === undefined) return { expected: 'a number', got: 'nothing (the row is short)' };
+  if (PLAIN.test(cell)) return Number(cell);
   let s = cell.trim();
   if (s === '') return { expected: 'a number', got: 'a blank cell' };
   if (decimalComma && /^[^,]*,[^,]*$/.test(s) && !s.includes('.')) s = s.replace(',', '.');
@@ -130,7 +137,9 @@ export function readPointRow(fields: string[], line: number, h: PointsHeader, de
   if (typeof p !== 'number') return p;
   const E = h.unit === 'mV' ? p / 1000 : p;
   if (Math.abs(E) > LIMITS.E) return { field: where(h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
-  const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? '') };
+  const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? ''), given: {}, unit: h.unit };
+  if (PLAIN.test(fields[h.pH])) row.given.pH = fields[h.pH];
+  if (PLAIN.test(fields[h.potential])) row.given.potential = fields[h.potential];
   if (h.temperature >= 0 && (fields[h.temperature] ?? '').trim() !== '') {
     const T = num(h.temperature, 'temperature');
     if (typeof T !== 'number') return T;
@@ -152,14 +161,50 @@ const HEAD = ['line', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'p
 
 /** The output header: the carried columns first (renamed `in_NAME` if they clash), then ours. */
 export function pointsOutputHeader(h: PointsHeader, sep: string): string {
-  const names = h.extra.map((x) => (HEAD.includes(x.name) ? `in_${x.name}` : x.name));
-  return [...names.map((n) => csvField(neutraliseCsvCell(n), sep)), ...HEAD].join(sep) + '\n';
+  const names = h.extra.map((x) => (HEAD.includes(x.name) || x.name === 'potential_mV' ? `in_${x.name}` : x.name));
+  const ours = h.unit === 'mV' ? HEAD.map((n) => (n === 'potential' ? 'potential_mV' : n)) : HEAD;
+  return [...names.map((n) => csvField(neutraliseCsvCell(n), sep)), ...ours].join(sep) + '\n';
 }
 
-/** A number as written: 8 significant digits, shortest form. */
-function num8(v: number | null | undefined): string {
+/**
+ * A number as written: rounded to 8 significant digits, then its shortest form — the same text as
+ * String(Number(v.toPrecision(8))), built without the general double-to-text conversion:
+ *  1. v·10^k is rounded to an integer n of 8 digits (10^k exact, so the product is off by at most
+ *     one rounding, ~10⁻⁸ of a unit); a product within 10⁻⁶ of a half, where that could decide,
+ *     and values outside 10⁻¹⁵…10²¹ go through toPrecision instead;
+ *  2. the digits of n without trailing zeros, placed by the rules of ECMAScript Number::toString
+ *     (plain notation from 10⁻⁶ to 10²¹, else d.ddde±x). No other decimal of at most 8 digits
+ *     rounds to the same double, so this is the shortest form that round-trips.
+ */
+export function num8(v: number | null | undefined): string {
   if (v === null || v === undefined) return '';
-  return String(Number(v.toPrecision(8)));
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  if (!(a >= 1e-15 && a < 1e21)) return String(Number(v.toPrecision(8)));
+  // Step 1.
+  let k = 7 - Math.floor(Math.log10(a));
+  let x = scale(a, k);
+  if (x >= 1e8) x = scale(a, --k);
+  else if (x < 1e7) x = scale(a, ++k);
+  if (Math.abs(x - Math.floor(x) - 0.5) < 1e-6) return String(Number(v.toPrecision(8)));
+  let n = Math.round(x);
+  // Step 2: digits, trailing zeros dropped; the value is 0.d₁d₂… × 10^p.
+  while (n % 10 === 0) (n /= 10), k--;
+  const d = String(n);
+  const p = d.length - k;
+  const sign = v < 0 ? '-' : '';
+  if (p >= d.length && p <= 21) return sign + d + '0'.repeat(p - d.length);
+  if (p > 0 && p <= 21) return `${sign}${d.slice(0, p)}.${d.slice(p)}`;
+  if (p > -6 && p <= 0) return `${sign}0.${'0'.repeat(-p)}${d}`;
+  const e = p - 1;
+  return `${sign}${d[0]}${d.length > 1 ? `.${d.slice(1)}` : ''}e${e >= 0 ? '+' : '-'}${Math.abs(e)}`;
+}
+
+const POW10 = Array.from({ length: 40 }, (_, k) => Number(`1e${k}`));
+
+/** a·10^k with an exact power of ten (|k| ≤ 22 keeps 10^|k| exact; beyond, one more rounding). */
+function scale(a: number, k: number): number {
+  return k >= 0 ? a * POW10[k] : a / POW10[-k];
 }
 
 /** User text (carried cells, messages that echo cells): neutralised, then quoted as needed. */
@@ -167,16 +212,24 @@ function text(s: string, sep: string): string {
   return csvField(neutraliseCsvCell(s), sep);
 }
 
+let lastCelsius = NaN;
+let lastCelsiusText = '';
+/** The temperature column: one value for long runs of rows, so its text is kept. */
+function celsiusText(T: number): string {
+  if (T !== lastCelsius) (lastCelsius = T), (lastCelsiusText = num8(T));
+  return lastCelsiusText;
+}
+
 /** One answered row. `warnings` are joined with " | ". */
 export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, warnings: readonly string[], sep: string): string {
   const cells = row.extra.map((c) => text(c, sep));
   cells.push(
     String(row.line),
-    num8(row.pH),
-    num8(row.potential),
+    row.given.pH ?? num8(row.pH),
+    row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential),
     csvField(scale, sep),
     num8(r.E),
-    num8(r.temperature.celsius),
+    celsiusText(r.temperature.celsius),
     csvField(r.predominant, sep),
     r.verdict,
     csvField(r.runnerUp ?? '', sep),

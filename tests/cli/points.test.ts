@@ -129,3 +129,14 @@ describe('probe --points: warnings, streaming', () => {
     expect(rows[1].scale).toBe('SCE');
   });
 });
+
+describe('probe --points: echoed cells', () => {
+  it('echoes pH and potential as written (in mV when given in mV), formats the rest to 8 digits', async () => {
+    const r = await runCli(['probe', fe, '--points', csv('echo.csv', 'pH,potential_mV\n8.50,-550.0\n 8.5 ,-5.5e2\n')]);
+    const rows = parse(r.stdout);
+    expect(r.stdout.split('\n')[0]).toContain(',potential_mV,');
+    expect([rows[0].pH, rows[0].potential_mV]).toEqual(['8.50', '-550.0']);
+    expect([rows[1].pH, rows[1].potential_mV]).toEqual(['8.5', '-550']);
+    expect(rows[1].E_SHE_V).toBe('-0.55');
+  });
+});
