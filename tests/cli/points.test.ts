@@ -140,3 +140,13 @@ describe('probe --points: echoed cells', () => {
     expect(rows[1].E_SHE_V).toBe('-0.55');
   });
 });
+
+describe('probe --points: nothing dropped silently', () => {
+  it('a # line after the header is a row (refused in its error column), not skipped', async () => {
+    const r = await runCli(['probe', fe, '--points', csv('hash.csv', '# plant log\npH,potential,tag\n7,0,a\n# pump off\n8,-0.5,b\n')]);
+    expect(r.code).toBe(4);
+    const rows = parse(r.stdout);
+    expect(rows.map((x) => x.line)).toEqual(['3', '4', '5']);
+    expect(rows[1].error).toMatch(/line 4.*3 cells/);
+  });
+});
