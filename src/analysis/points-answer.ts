@@ -20,7 +20,7 @@ import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { toShe } from './points.js';
 import { probe, type ProbeResult } from './probe.js';
-import { holdsAll, widenedSpec } from './widen.js';
+import { widenedSpec } from './widen.js';
 
 /** Diagrams kept at once (distinct conditions); each is a few hundred kB at most. */
 export const MAX_CONDITIONS = 64;
@@ -64,7 +64,18 @@ function computeOrError(spec: SystemSpec): { c?: Computed; error?: string } {
 export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference | undefined, file: string): { answer: (q: PointQuery) => PointAnswer; computed: () => number } {
   const cache = new Map<string, Condition>();
   let computations = 0;
+  let lastT = NaN;
+  let lastI: number | undefined;
+  let last: Condition | undefined;
   const condition = (celsius: number, I: number | undefined): Condition => {
+    // Logs hold one condition for long runs of rows: the last one is kept at hand.
+    if (last && celsius === lastT && I === lastI) return last;
+    lastT = celsius;
+    lastI = I;
+    last = lookup(celsius, I);
+    return last;
+  };
+  const lookup = (celsius: number, I: number | undefined): Condition => {
     const key = I === undefined ? `${celsius}` : `${celsius}|${I}`;
     let k = cache.get(key);
     if (k) {
@@ -92,10 +103,11 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
       if (e instanceof EphmapError) return { error: e.message };
       throw e;
     }
-    // Step 3: inside the range on the cached diagram; outside on one widened for this point.
+    // Step 3: inside the range on the cached diagram (widen.ts holdsAll, inlined: no allocation per
+    // row); outside on one widened for this point.
     const point = { pH: q.pH, E: s.E };
     let c = k.c;
-    if (!holdsAll(c.spec, [point])) {
+    if (!(q.pH > c.spec.pH[0] && q.pH < c.spec.pH[1] && s.E > c.spec.E[0] && s.E < c.spec.E[1])) {
       computations++;
       const w = computeOrError(widenedSpec(c.spec, [point]));
       if (!w.c) return { error: `line ${q.line}: ${w.error}` };
