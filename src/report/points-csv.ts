@@ -222,26 +222,54 @@ function celsiusText(T: number): string {
 
 /** One answered row. `warnings` are joined with " | ". */
 export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, warnings: readonly string[], sep: string): string {
-  const cells = row.extra.map((c) => text(c, sep));
-  cells.push(
-    String(row.line),
-    row.given.pH ?? num8(row.pH),
-    row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential),
-    csvField(scale, sep),
-    num8(r.E),
-    celsiusText(r.temperature.celsius),
-    csvField(r.predominant, sep),
-    r.verdict,
-    csvField(r.runnerUp ?? '', sep),
-    num8(r.margin.kJPerMol),
-    num8(r.distance.mV),
-    num8(r.distance.pH),
-    csvField(r.nearestBoundary?.reaction ?? '', sep),
-    csvField(r.advice, sep),
-    text(warnings.join(' | '), sep),
-    '',
+  let out = '';
+  for (const c of row.extra) out += text(c, sep) + sep;
+  return (
+    out +
+    row.line +
+    sep +
+    (row.given.pH ?? num8(row.pH)) +
+    sep +
+    (row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential)) +
+    sep +
+    fixed(scale, sep) +
+    sep +
+    num8(r.E) +
+    sep +
+    celsiusText(r.temperature.celsius) +
+    sep +
+    fixed(r.predominant, sep) +
+    sep +
+    r.verdict +
+    sep +
+    fixed(r.runnerUp ?? '', sep) +
+    sep +
+    num8(r.margin.kJPerMol) +
+    sep +
+    num8(r.distance.mV) +
+    sep +
+    num8(r.distance.pH) +
+    sep +
+    fixed(r.nearestBoundary?.reaction ?? '', sep) +
+    sep +
+    csvField(r.advice, sep) +
+    sep +
+    (warnings.length ? text(warnings.join(' | '), sep) : '') +
+    sep +
+    '\n'
   );
-  return cells.join(sep) + '\n';
+}
+
+/** Cells from a small set (formulas, reactions, scales): quoted once each, then looked up. */
+const FIXED = new Map<string, string>();
+function fixed(s: string, sep: string): string {
+  const key = sep + s;
+  let v = FIXED.get(key);
+  if (v === undefined) {
+    v = csvField(s, sep);
+    if (FIXED.size < 10_000) FIXED.set(key, v);
+  }
+  return v;
 }
 
 /** A row that could not be answered: carried columns, the line, and the error column. */
