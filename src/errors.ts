@@ -105,6 +105,19 @@ export class UndeterminedError extends EphmapError {
   }
 }
 
+/**
+ * A row-by-row run finished and wrote every row, but some rows could not be answered (each row's
+ * own error column says why). Exit status 4.
+ */
+export class PartialError extends EphmapError {
+  readonly code = 'partial';
+  readonly exitStatus: ExitStatus = EXIT.partial;
+  constructor(message: string) {
+    super(message);
+    this.name = 'PartialError';
+  }
+}
+
 /** The exit status for any thrown value: the class's own status, else internal (1). */
 export function exitStatusOf(e: unknown): ExitStatus {
   return e instanceof EphmapError ? e.exitStatus : EXIT.internal;

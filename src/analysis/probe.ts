@@ -12,7 +12,7 @@ import { classify } from '../diagram/classify.js';
 import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { GivenAmount, RegionClass } from '../model.js';
 import type { Computed } from '../pipeline.js';
-import { probeGeometry, psiAt } from '../solve/point.js';
+import { probeGeometry, psiAt, type PsiEvaluator, psiEvaluator } from '../solve/point.js';
 import type { SolverSpecies } from '../solve/types.js';
 
 /** A verdict, or 'unknown' where the species could not be carried to T (undetermined). */
@@ -89,20 +89,55 @@ function pointVerdict(element: string, sp: SolverSpecies, classes: Record<string
   return verdictOf(classify(element, sp), sp.formula, classes);
 }
 
+/** Per system: the ψ evaluator, a scratch array and each species' class and verdict (built once). */
+interface ProbeContext {
+  psi: PsiEvaluator;
+  buf: Float64Array;
+  classes: RegionClass[];
+  verdicts: PointVerdict[];
+}
+const contexts = new WeakMap<Computed, ProbeContext>();
+
+function contextOf(c: Computed): ProbeContext {
+  let ctx = contexts.get(c);
+  if (!ctx) {
+    const input = c.built.input;
+    const classes = input.species.map((sp) => classify(input.element, sp));
+    ctx = {
+      psi: psiEvaluator(input),
+      buf: new Float64Array(input.species.length),
+      classes,
+      verdicts: input.species.map((sp) => pointVerdict(input.element, sp, c.spec.operating.classes)),
+    };
+    contexts.set(c, ctx);
+  }
+  return ctx;
+}
+
+/** Index of the smallest ψ (the first on a tie). */
+function argmin(psi: Float64Array): number {
+  let k = 0;
+  for (let i = 1; i < psi.length; i++) if (psi[i] < psi[k]) k = i;
+  return k;
+}
+
 export function probe(c: Computed, pH: number, E: number, ref?: { label: string; E: number; offset: number }): ProbeResult {
   const input = c.built.input;
-  const classes = c.spec.operating.classes;
-  const { psi, ligandSpecies } = psiAt(input, pH, E);
-  const order = psi.map((v, k) => [v, k] as const).sort((a, b) => a[0] - b[0] || a[1] - b[1]);
-  const best = input.species[order[0][1]];
-  const second = order.length > 1 ? input.species[order[1][1]] : null;
-  const marginKJ = order.length > 1 ? order[1][0] - order[0][0] : 0;
-  const margin: Margin = second ? marginShifts(input, pH, E, order[0][1], order[1][1], marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
+  const ctx = contextOf(c);
+  const psi = ctx.buf;
+  const ligandSpecies = { ...ctx.psi(pH, E, psi) };
+  // Predominant (smallest ψ) and runner-up (next; ties go to the lower index, as a stable sort).
+  const k1 = argmin(psi);
+  let k2 = -1;
+  for (let i = 0; i < psi.length; i++) if (i !== k1 && (k2 < 0 || psi[i] < psi[k2])) k2 = i;
+  const best = input.species[k1];
+  const second = k2 >= 0 ? input.species[k2] : null;
+  const marginKJ = k2 >= 0 ? psi[k2] - psi[k1] : 0;
+  const margin: Margin = second ? marginShifts(input, pH, E, k1, k2, marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
   const winnerAt = (x: number, y: number) => {
-    const p = psiAt(input, x, y).psi;
-    const k = p.indexOf(Math.min(...p));
-    const sp = input.species[k];
-    return { formula: sp.formula, verdict: pointVerdict(input.element, sp, classes) };
+    ctx.psi(x, y, psi);
+    const k = argmin(psi);
+    return { formula: input.species[k].formula, verdict: ctx.verdicts[k] };
   };
   const g = probeGeometry(c.model.boundaries, pH, E, input.kelvin);
   const cross = (x: { shift: number; boundary: { between: [string, string]; reaction: string } } | undefined, dx: number, dy: number): Crossing | null => {
@@ -121,8 +156,8 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
   const dP = [g.left?.shift, g.right?.shift].filter((v): v is number => v !== undefined);
   const nearestE = dE.length ? dE.reduce((a, b) => (Math.abs(b) < Math.abs(a) ? b : a)) : null;
   const nearestP = dP.length ? dP.reduce((a, b) => (Math.abs(b) < Math.abs(a) ? b : a)) : null;
-  const cls = classify(input.element, best);
-  const verdict = pointVerdict(input.element, best, classes);
+  const cls = ctx.classes[k1];
+  const verdict = ctx.verdicts[k1];
   const warnings = [...c.model.warnings];
   if (verdict === 'unknown') {
     warnings.unshift(`no verdict here: ${best.formula} cannot be carried to ${c.model.temperature.celsius} °C (only ΔfG° given); its field is placed with its 25 °C ΔfG°`);
@@ -193,14 +228,17 @@ function nearestOf(n: NonNullable<ReturnType<typeof probeGeometry>['nearest']>, 
 }
 
 function advice(r: ProbeResult): string {
-  const opts: { size: number; text: string }[] = [];
   const c = r.crossings;
-  // Compare a potential change with a pH change on the Nernst scale (59 mV ≈ 1 pH unit at 25 °C).
-  if (c.raiseE) opts.push({ size: Math.abs(c.raiseE.shift) / 0.059, text: `raising the potential by ${(c.raiseE.shift * 1000).toFixed(0)} mV reaches ${c.raiseE.to} (${c.raiseE.verdict})` });
-  if (c.lowerE) opts.push({ size: Math.abs(c.lowerE.shift) / 0.059, text: `lowering the potential by ${(-c.lowerE.shift * 1000).toFixed(0)} mV reaches ${c.lowerE.to} (${c.lowerE.verdict})` });
-  if (c.lowerPH) opts.push({ size: Math.abs(c.lowerPH.shift), text: `lowering the pH by ${(-c.lowerPH.shift).toFixed(2)} reaches ${c.lowerPH.to} (${c.lowerPH.verdict})` });
-  if (c.raisePH) opts.push({ size: Math.abs(c.raisePH.shift), text: `raising the pH by ${c.raisePH.shift.toFixed(2)} reaches ${c.raisePH.to} (${c.raisePH.verdict})` });
-  if (!opts.length) return 'No boundary within the diagram along E or pH from this point.';
-  opts.sort((a, b) => a.size - b.size);
-  return `Nearest change: ${opts[0].text}.`;
+  // Compare a potential change with a pH change on the Nernst scale (59 mV ≈ 1 pH unit at 25 °C);
+  // the smallest change wins (the first listed on a tie).
+  const sizes = [c.raiseE ? Math.abs(c.raiseE.shift) / 0.059 : Infinity, c.lowerE ? Math.abs(c.lowerE.shift) / 0.059 : Infinity, c.lowerPH ? Math.abs(c.lowerPH.shift) : Infinity, c.raisePH ? Math.abs(c.raisePH.shift) : Infinity];
+  let k = -1;
+  for (let i = 0; i < 4; i++) if (sizes[i] !== Infinity && (k < 0 || sizes[i] < sizes[k])) k = i;
+  if (k < 0) return 'No boundary within the diagram along E or pH from this point.';
+  let text: string;
+  if (k === 0) text = `raising the potential by ${(c.raiseE!.shift * 1000).toFixed(0)} mV reaches ${c.raiseE!.to} (${c.raiseE!.verdict})`;
+  else if (k === 1) text = `lowering the potential by ${(-c.lowerE!.shift * 1000).toFixed(0)} mV reaches ${c.lowerE!.to} (${c.lowerE!.verdict})`;
+  else if (k === 2) text = `lowering the pH by ${(-c.lowerPH!.shift).toFixed(2)} reaches ${c.lowerPH!.to} (${c.lowerPH!.verdict})`;
+  else text = `raising the pH by ${c.raisePH!.shift.toFixed(2)} reaches ${c.raisePH!.to} (${c.raisePH!.verdict})`;
+  return `Nearest change: ${text}.`;
 }

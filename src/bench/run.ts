@@ -14,6 +14,9 @@
  *   composition points solved per second — point solutions (grid, refinement, iso-lines) per second
  *   alloy 300x300 ms: T                 — Fe–Cr–Ni with S and C ligands (43 species), the traced alloy
  *                                         diagram (src/bench/alloy.ts); target ≤ 2000
+ *   points 1e6 s: T                     — `probe --points` over 10⁶ rows in a child process; target ≤ 3
+ *   points peak RSS MB: M               — that child's peak RSS; target ≤ 120
+ *   points 2000 temperatures s: T       — 2,000 rows at 2,000 distinct temperatures (bench/points.ts)
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -28,6 +31,7 @@ import { buildAlloySystem } from '../system/alloy-build.js';
 import { readAlloySpec } from '../system/alloy-spec.js';
 import { benchAlloy } from './alloy.js';
 import { benchComposition } from './composition.js';
+import { benchPoints } from './points.js';
 import { readSpec } from '../system/spec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -141,10 +145,15 @@ async function main(): Promise<void> {
     console.log(`composition 300x300 ms: ${cb.ms.toFixed(0)}`);
     console.log(`composition points solved per second: ${cb.pointsPerSecond.toExponential(3)} (${cb.solves} solves; CPU ${cb.cpuMs.toFixed(0)} ms)`);
 
-    // 7. Alloy kind: Fe–Cr–Ni traced diagram, 300×300 with refinement.
+    // 7a. Alloy kind: Fe–Cr–Ni traced diagram, 300×300 with refinement.
     const ab = benchAlloy(300, 2);
     console.log(`alloy 300x300 ms: ${ab.ms.toFixed(0)}`);
     console.log(`alloy species: ${ab.species}, regions: ${ab.regions} (CPU ${ab.cpuMs.toFixed(0)} ms)`);
+    // 7b. Logged series: the real command in a child process.
+    const pts = await benchPoints(cli, dir);
+    console.log(`points 1e6 s: ${pts.million.seconds.toFixed(2)} (CPU ${pts.million.cpuSeconds.toFixed(2)} s)`);
+    console.log(`points peak RSS MB: ${pts.million.peakRssMB.toFixed(1)}`);
+    console.log(`points 2000 temperatures s: ${pts.temps.seconds.toFixed(2)} (CPU ${pts.temps.cpuSeconds.toFixed(2)} s)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -11,7 +11,7 @@ import { compositionSetup, type CompositionSetup } from '../diagram/composition-
 import { compositionPointsCsv } from '../report/composition-points-csv.js';
 import { compositionProbeText } from '../report/composition-probe-text.js';
 import { stableJson } from '../report/json.js';
-import { parsePointsCsv } from '../report/points-csv.js';
+import { parsePointsCsv } from '../report/points-read.js';
 import { UndeterminedError } from '../errors.js';
 import { InputError } from '../system/errors.js';
 import type { CustomReference } from '../thermo/reference.js';

@@ -1,20 +1,19 @@
 /**
  * `ephmap probe FILE --ph X --potential Y [--ref NAME] [--json]` and
- * `ephmap probe FILE --points LOG.csv [-o OUT.csv]`.
- * -o is checked before any compute (src/cli/outputs.ts): .csv with --points, .json for one point
- * (its JSON answer), never the system file or the --points file.
+ * `ephmap probe FILE --points LOG.csv|- [-o OUT.csv|-] [--delimiter SEP] [--unit V|mV] [--strict]` (probe-points.ts).
+ * -o for one point is checked before any compute (src/cli/outputs.ts): .json (its JSON answer),
+ * never the system file; with --points, probe-points.ts checks and writes it.
  */
-import { readFileSync } from 'node:fs';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { loadAlloyWith, probeAlloy } from './alloy.js';
 import { numberArg } from './args.js';
 import { stableJson } from '../report/json.js';
-import { parsePointsCsv, pointsCsv } from '../report/points-csv.js';
 import { probe } from '../analysis/probe.js';
 import { toShe } from '../analysis/points.js';
 import { pointComputer } from '../analysis/widen.js';
 import { probeText } from '../report/probe-text.js';
+import { runPoints } from './probe-points.js';
 import { InputError } from '../system/errors.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
@@ -30,6 +29,9 @@ interface ProbeOpts extends SpecOverrides {
   points?: string;
   output?: string;
   json?: boolean;
+  delimiter?: string;
+  unit?: string;
+  strict?: boolean;
 }
 
 export function registerProbe(program: Command): void {
@@ -40,13 +42,15 @@ export function registerProbe(program: Command): void {
     .option('--ph <pH>', 'pH at the point')
     .option('--potential <volts>', 'potential at the point, V (vs SHE unless --ref)')
     .option('--ref <name>', 'reference electrode the potential is measured against: she, rhe, sce, agcl-sat, agcl-3.5m, agcl-1m, agcl-sea, cse, hgo, mse')
-    .option('--points <csv>', 'logged series: CSV with columns pH, potential[, temperature]')
-    .option('-o, --output <file>', 'with --points: write the results CSV here (.csv; default: standard output); for one point: write its JSON answer here (.json)')
+    .option('--points <csv>', 'logged series: CSV with columns pH, potential (or potential_mV)[, temperature, ionic_strength]; - reads standard input')
+    .option('-o, --output <csv>', 'with --points: write the results CSV here (default, or -: standard output)')
+    .option('--delimiter <sep>', 'with --points: separator of the input and output CSV: auto (default), ",", ";" or tab; with ";" or tab a decimal comma is read')
+    .option('--unit <unit>', 'with --points: unit of a potential column named without one: V (default) or mV')
+    .option('--strict', 'with --points: stop at the first bad row (exit status 2) instead of marking it and going on')
     .option('--json', 'machine-readable output')
     .action(async (file: string, opts: ProbeOpts) => {
-      if (opts.output !== undefined) {
-        const inputs = [{ path: file, option: '<file>' }, ...(opts.points !== undefined ? [{ path: opts.points, option: '--points' }] : [])];
-        checkOutputs([{ path: opts.output, option: '--output', extensions: opts.points !== undefined ? ['.csv'] : ['.json'] }], inputs);
+      if (opts.output !== undefined && opts.points === undefined) {
+        checkOutputs([{ path: opts.output, option: '--output', extensions: ['.json'] }], [{ path: file, option: '<file>' }]);
       }
       const alloy = loadAlloyWith(file, opts);
       if (alloy) {
@@ -59,30 +63,18 @@ export function registerProbe(program: Command): void {
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
       if (opts.points !== undefined && (opts.ph !== undefined || opts.potential !== undefined)) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
       if (opts.points === undefined && (opts.ph === undefined || opts.potential === undefined)) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
-      if (spec.composition) return probeComposition(spec, opts, ref);
-      const at = pointComputer(spec);
+      if (spec.composition) {
+        if (opts.points !== undefined) checkOutputs(opts.output !== undefined ? [{ path: opts.output, option: '--output', extensions: ['.csv'] }] : [], [{ path: file, option: '<file>' }, { path: opts.points, option: '--points' }]);
+        return probeComposition(spec, opts, ref);
+      }
       if (opts.points !== undefined) {
-        let text: string;
-        try {
-          text = readFileSync(opts.points, 'utf8');
-        } catch {
-          throw new InputError(opts.points, '', 'a readable CSV file', 'a file that cannot be read');
-        }
-        const rows = parsePointsCsv(text, opts.points);
-        const results = rows.map((row) => {
-          const T = row.temperature ?? spec.temperature;
-          if (!(T >= 0 && T <= 350)) throw new InputError(opts.points!, `line ${row.line} temperature`, 'a temperature from 0 to 350 °C', String(T));
-          const s = toShe(ref, row.potential, T, row.pH, opts.points!, `line ${row.line}`);
-          const c = at(T, { pH: row.pH, E: s.E });
-          return { row, scale: s.ref?.label ?? 'SHE', result: probe(c, row.pH, s.E, s.ref) };
-        });
-        const csv = pointsCsv(results);
-        if (opts.output) {
-          await writeOne(opts.output, csv);
-          process.stdout.write(`wrote ${opts.output} (${results.length} rows)\n`);
-        } else process.stdout.write(csv);
+        await runPoints(file, spec, ref, { points: opts.points, output: opts.output, delimiter: opts.delimiter, unit: opts.unit, strict: opts.strict });
         return;
       }
+      for (const [given, name] of [[opts.delimiter, '--delimiter'], [opts.unit, '--unit'], [opts.strict, '--strict']] as const) {
+        if (given !== undefined) throw new InputError('command line', name, `${name} only with --points`);
+      }
+      const at = pointComputer(spec);
       if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
       const pH = num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 });
       const E0 = num(opts.potential, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 });

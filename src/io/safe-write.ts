@@ -53,7 +53,8 @@ export interface CommitOptions {
 
 /** O_NOFOLLOW where the platform has it (not on Windows). */
 const NOFOLLOW = constants.O_NOFOLLOW ?? 0;
-const TEMP_FLAGS = constants.O_WRONLY | constants.O_CREAT | constants.O_EXCL | NOFOLLOW;
+/** Flags of every temporary file: exclusive create, never through a link (also streamed outputs). */
+export const TEMP_FLAGS = constants.O_WRONLY | constants.O_CREAT | constants.O_EXCL | NOFOLLOW;
 export const LOCK_NAME = '.ephmap-commit.lock';
 /** A lock older than this (ms) is taken to be left by a killed run. */
 const LOCK_STALE_MS = 30_000;

@@ -5,7 +5,7 @@
  */
 import type { CompositionProbeResult } from '../analysis/composition-probe.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
-import type { PointRow } from './points-csv.js';
+import type { LabelledPointRow as PointRow } from './points-read.js';
 
 const HEAD = ['line', 'label', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'status', 'predominant', 'verdict', 'dissolved_mol_per_kg', 'threshold_mol_per_kg', 'reason'];
 

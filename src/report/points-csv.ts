@@ -1,70 +1,280 @@
 /**
- * Logged operating data for `probe --points`: read a CSV of pH, potential and an optional
- * temperature column; write one result row per input row.
- * Accepted headers (case-insensitive): pH; potential | E | E_V; temperature | T | t_C. Other
- * columns (e.g. a time stamp) are carried through in the output as `label`.
+ * Logged operating data for `probe --points`: the header of the input CSV, one input row read into
+ * numbers (or a per-row error), and one output row written.
+ *
+ * Input columns (header names, case-insensitive): `pH`; the potential as `potential` | `E` | `E_V`
+ * (V) or `potential_mV` | `E_mV` (mV); optional `temperature` | `T` | `t_C` (°C) and
+ * `ionic_strength` (mol/kg). Every other column is carried through to the output unchanged (user
+ * text, so neutralised against spreadsheet formulas). A column named twice (two pH columns, or a
+ * potential in V and in mV) refuses the file.
+ *
+ * Numbers: plain decimal or exponent notation; with a `;` or tab separator a decimal comma is read
+ * too (`7,25`). Hexadecimal (`0x7`), `Infinity`, thousands separators and blanks are refused for
+ * that row. Sane ranges (common practice for aqueous work): pH −2…16, |E| ≤ 5 V, 0…350 °C,
+ * ionic strength 0…10 mol/kg (the system file's own bound).
  */
-import { Fields } from '../system/fields.js';
+import { InputError } from '../errors.js';
+import { csvField } from '../io/csv-records.js';
+import { neutraliseCsvCell } from '../io/csv-cell.js';
 import type { ProbeResult } from '../analysis/probe.js';
+
+export type PotentialUnit = 'V' | 'mV';
+
+export interface PointsHeader {
+  pH: number;
+  potential: number;
+  /** Unit of the potential column (from its name, or --unit). */
+  unit: PotentialUnit;
+  temperature: number;
+  ionicStrength: number;
+  /** Indexes and names of the carried columns, in input order. */
+  extra: { index: number; name: string }[];
+  width: number;
+}
 
 export interface PointRow {
   line: number;
   pH: number;
+  /** Potential as given, V (converted from mV when the column is in mV). */
   potential: number;
   temperature?: number;
-  label?: string;
+  ionicStrength?: number;
+  extra: string[];
+  /** The pH and potential cells as written, echoed when they are plain decimals (else formatted). */
+  given: { pH?: string; potential?: string };
+  /** Unit the potential was given in (the output echoes it in that unit). */
+  unit: PotentialUnit;
 }
 
-export function parsePointsCsv(text: string, file: string): PointRow[] {
-  const f = new Fields(file);
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  const lines = text.split(/\r?\n/).map((l) => l.trim());
-  const first = lines.findIndex((l) => l !== '' && !l.startsWith('#'));
-  if (first < 0) f.fail('', 'a CSV with a header row (pH, potential[, temperature]) and data rows', 'an empty file');
-  const sep = lines[first].includes(';') && !lines[first].includes(',') ? ';' : ',';
-  const head = lines[first].split(sep).map((h) => h.trim().toLowerCase());
-  const find = (names: string[]) => head.findIndex((h) => names.includes(h));
-  const iPH = find(['ph']);
-  const iE = find(['potential', 'e', 'e_v', 'e/v', 'potential_v']);
-  const iT = find(['temperature', 't', 't_c', 'temperature_c']);
-  const iL = head.findIndex((_, k) => k !== iPH && k !== iE && k !== iT);
-  if (iPH < 0 || iE < 0) f.fail('header', 'columns named pH and potential (optionally temperature)', lines[first]);
-  const rows: PointRow[] = [];
-  for (let k = first + 1; k < lines.length; k++) {
-    const l = lines[k];
-    if (l === '' || l.startsWith('#')) continue;
-    const cells = l.split(sep).map((c) => c.trim());
-    const num = (i: number, what: string) => {
-      const x = Number(cells[i]);
-      if (cells[i] === undefined || cells[i] === '' || !Number.isFinite(x)) f.fail(`line ${k + 1} ${what}`, 'a number', cells[i] ?? 'nothing');
-      return x;
-    };
-    const row: PointRow = { line: k + 1, pH: num(iPH, 'pH'), potential: num(iE, 'potential') };
-    if (iT >= 0 && cells[iT] !== '') row.temperature = num(iT, 'temperature');
-    if (iL >= 0 && cells[iL]) row.label = cells[iL];
-    rows.push(row);
-    if (rows.length > 1_000_000) f.fail('', 'at most 1,000,000 rows');
+const ROLES: Record<string, { role: 'pH' | 'potential' | 'temperature' | 'ionicStrength'; unit?: PotentialUnit }> = {
+  ph: { role: 'pH' },
+  potential: { role: 'potential' },
+  e: { role: 'potential' },
+  e_v: { role: 'potential', unit: 'V' },
+  'e/v': { role: 'potential', unit: 'V' },
+  potential_v: { role: 'potential', unit: 'V' },
+  potential_mv: { role: 'potential', unit: 'mV' },
+  e_mv: { role: 'potential', unit: 'mV' },
+  'e/mv': { role: 'potential', unit: 'mV' },
+  temperature: { role: 'temperature' },
+  t: { role: 'temperature' },
+  t_c: { role: 'temperature' },
+  temperature_c: { role: 'temperature' },
+  ionic_strength: { role: 'ionicStrength' },
+};
+
+/**
+ * The header row: which column holds what. `unit` (from --unit) applies to a potential column
+ * whose name carries no unit; a name with a unit that contradicts it is refused.
+ */
+export function readPointsHeader(fields: string[], file: string, unit: PotentialUnit | undefined): PointsHeader {
+  const at: Record<string, number> = { pH: -1, potential: -1, temperature: -1, ionicStrength: -1 };
+  let named: PotentialUnit | undefined;
+  const extra: { index: number; name: string }[] = [];
+  fields.forEach((raw, k) => {
+    const name = raw.trim();
+    const r = Object.hasOwn(ROLES, name.toLowerCase()) ? ROLES[name.toLowerCase()] : undefined;
+    if (!r) {
+      extra.push({ index: k, name });
+      return;
+    }
+    if (at[r.role] >= 0) throw new InputError(file, 'header', `one ${r.role} column`, `two (columns ${at[r.role] + 1} and ${k + 1}: "${fields[at[r.role]].trim()}" and "${name}")`);
+    at[r.role] = k;
+    if (r.role === 'potential') named = r.unit;
+  });
+  if (at.pH < 0 || at.potential < 0) throw new InputError(file, 'header', 'columns named pH and potential (or potential_mV), optionally temperature and ionic_strength', fields.join(','));
+  if (named && unit && named !== unit) throw new InputError(file, 'header', `a potential column in ${unit} (--unit ${unit})`, `"${fields[at.potential].trim()}"`);
+  return { pH: at.pH, potential: at.potential, unit: named ?? unit ?? 'V', temperature: at.temperature, ionicStrength: at.ionicStrength, extra, width: fields.length };
+}
+
+const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+/** A cell echoed as written: a plain decimal without spaces, exponent or sign other than minus. */
+const PLAIN = /^-?\d{1,9}(?:\.\d{1,8})?$/;
+
+/** Why a row was refused: where (line, column), what was expected, what was found. */
+export interface RowError {
+  field: string;
+  expected: string;
+  got?: string;
+}
+
+/** The message for a refused row, as InputError words it. */
+export function rowErrorText(e: RowError): string {
+  return `${e.field}: expected ${e.expected}${e.got !== undefined ? `, got ${e.got}` : ''}`;
+}
+
+/** A number cell, or what was wrong with it. */
+function readNumber(cell: string | undefined, decimalComma: boolean): number | { expected: string; got: string } {
+  if (cell === undefined) return { expected: 'a number', got: 'nothing (the row is short)' };
+  if (PLAIN.test(cell)) return Number(cell);
+  let s = cell.trim();
+  if (s === '') return { expected: 'a number', got: 'a blank cell' };
+  if (decimalComma && /^[^,]*,[^,]*$/.test(s) && !s.includes('.')) s = s.replace(',', '.');
+  if (!NUMBER.test(s)) return { expected: 'a decimal number', got: JSON.stringify(cell.length > 40 ? `${cell.slice(0, 40)}…` : cell) };
+  return Number(s);
+}
+
+export const LIMITS = { pH: [-2, 16], E: 5, temperature: [0, 350], ionicStrength: [0, 10] } as const;
+
+/**
+ * One data row: its numbers, or what was wrong naming the line and column. `decimalComma` reads
+ * `7,25` as 7.25 (separator `;` or tab).
+ */
+export function readPointRow(fields: string[], line: number, h: PointsHeader, decimalComma: boolean): PointRow | RowError {
+  const where = (k: number, what: string) => `line ${line}, column ${k + 1} (${what})`;
+  const num = (k: number, what: string): number | RowError => {
+    const v = readNumber(fields[k], decimalComma);
+    return typeof v === 'number' ? v : { field: where(k, what), ...v };
+  };
+  const range = (k: number, what: string, v: number, lo: number, hi: number, unit: string): RowError | undefined =>
+    v < lo || v > hi ? { field: where(k, what), expected: `${lo} to ${hi}${unit}`, got: String(v) } : undefined;
+  const pH = num(h.pH, 'pH');
+  if (typeof pH !== 'number') return pH;
+  const bad = range(h.pH, 'pH', pH, LIMITS.pH[0], LIMITS.pH[1], '');
+  if (bad) return bad;
+  const pName = h.unit === 'mV' ? 'potential, mV' : 'potential, V';
+  const p = num(h.potential, pName);
+  if (typeof p !== 'number') return p;
+  const E = h.unit === 'mV' ? p / 1000 : p;
+  if (Math.abs(E) > LIMITS.E) return { field: where(h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
+  const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? ''), given: {}, unit: h.unit };
+  if (PLAIN.test(fields[h.pH])) row.given.pH = fields[h.pH];
+  if (PLAIN.test(fields[h.potential])) row.given.potential = fields[h.potential];
+  if (h.temperature >= 0 && (fields[h.temperature] ?? '').trim() !== '') {
+    const T = num(h.temperature, 'temperature');
+    if (typeof T !== 'number') return T;
+    const r = range(h.temperature, 'temperature', T, LIMITS.temperature[0], LIMITS.temperature[1], ' °C');
+    if (r) return r;
+    row.temperature = T;
   }
-  if (!rows.length) f.fail('', 'at least one data row after the header');
-  return rows;
+  if (h.ionicStrength >= 0 && (fields[h.ionicStrength] ?? '').trim() !== '') {
+    const I = num(h.ionicStrength, 'ionic_strength');
+    if (typeof I !== 'number') return I;
+    const r = range(h.ionicStrength, 'ionic_strength', I, LIMITS.ionicStrength[0], LIMITS.ionicStrength[1], ' mol/kg');
+    if (r) return r;
+    row.ionicStrength = I;
+  }
+  return row;
 }
 
-const HEAD = ['line', 'label', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice', 'warnings'];
+const HEAD = ['line', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice', 'warnings', 'error'];
 
-function cell(v: string | number | null | undefined): string {
+/** The output header: the carried columns first (renamed `in_NAME` if they clash), then ours. */
+export function pointsOutputHeader(h: PointsHeader, sep: string): string {
+  const names = h.extra.map((x) => (HEAD.includes(x.name) || x.name === 'potential_mV' ? `in_${x.name}` : x.name));
+  const ours = h.unit === 'mV' ? HEAD.map((n) => (n === 'potential' ? 'potential_mV' : n)) : HEAD;
+  return [...names.map((n) => csvField(neutraliseCsvCell(n), sep)), ...ours].join(sep) + '\n';
+}
+
+/**
+ * A number as written: rounded to 8 significant digits, then its shortest form — the same text as
+ * String(Number(v.toPrecision(8))), built without the general double-to-text conversion:
+ *  1. v·10^k is rounded to an integer n of 8 digits (10^k exact, so the product is off by at most
+ *     one rounding, ~10⁻⁸ of a unit); a product within 10⁻⁶ of a half, where that could decide,
+ *     and values outside 10⁻¹⁵…10²¹ go through toPrecision instead;
+ *  2. the digits of n without trailing zeros, placed by the rules of ECMAScript Number::toString
+ *     (plain notation from 10⁻⁶ to 10²¹, else d.ddde±x). No other decimal of at most 8 digits
+ *     rounds to the same double, so this is the shortest form that round-trips.
+ */
+export function num8(v: number | null | undefined): string {
   if (v === null || v === undefined) return '';
-  const s = typeof v === 'number' ? String(Number(v.toPrecision(8))) : v;
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  if (!(a >= 1e-15 && a < 1e21)) return String(Number(v.toPrecision(8)));
+  // Step 1.
+  let k = 7 - Math.floor(Math.log10(a));
+  let x = scale(a, k);
+  if (x >= 1e8) x = scale(a, --k);
+  else if (x < 1e7) x = scale(a, ++k);
+  if (Math.abs(x - Math.floor(x) - 0.5) < 1e-6) return String(Number(v.toPrecision(8)));
+  let n = Math.round(x);
+  // Step 2: digits, trailing zeros dropped; the value is 0.d₁d₂… × 10^p.
+  while (n % 10 === 0) (n /= 10), k--;
+  const d = String(n);
+  const p = d.length - k;
+  const sign = v < 0 ? '-' : '';
+  if (p >= d.length && p <= 21) return sign + d + '0'.repeat(p - d.length);
+  if (p > 0 && p <= 21) return `${sign}${d.slice(0, p)}.${d.slice(p)}`;
+  if (p > -6 && p <= 0) return `${sign}0.${'0'.repeat(-p)}${d}`;
+  const e = p - 1;
+  return `${sign}${d[0]}${d.length > 1 ? `.${d.slice(1)}` : ''}e${e >= 0 ? '+' : '-'}${Math.abs(e)}`;
 }
 
-export function pointsCsv(rows: { row: PointRow; scale: string; result: ProbeResult }[]): string {
-  const out = [HEAD.join(',')];
-  for (const { row, scale, result: r } of rows) {
-    out.push(
-      [row.line, row.label ?? '', row.pH, row.potential, scale, r.E, r.temperature.celsius, r.predominant, r.verdict, r.runnerUp, r.margin.kJPerMol, r.distance.mV, r.distance.pH, r.nearestBoundary?.reaction ?? '', r.advice, r.warnings.join(' | ')]
-        .map(cell)
-        .join(','),
-    );
+const POW10 = Array.from({ length: 40 }, (_, k) => Number(`1e${k}`));
+
+/** a·10^k with an exact power of ten (|k| ≤ 22 keeps 10^|k| exact; beyond, one more rounding). */
+function scale(a: number, k: number): number {
+  return k >= 0 ? a * POW10[k] : a / POW10[-k];
+}
+
+/** User text (carried cells, messages that echo cells): neutralised, then quoted as needed. */
+function text(s: string, sep: string): string {
+  return csvField(neutraliseCsvCell(s), sep);
+}
+
+let lastCelsius = NaN;
+let lastCelsiusText = '';
+/** The temperature column: one value for long runs of rows, so its text is kept. */
+function celsiusText(T: number): string {
+  if (T !== lastCelsius) (lastCelsius = T), (lastCelsiusText = num8(T));
+  return lastCelsiusText;
+}
+
+/** One answered row. `warnings` are joined with " | ". */
+export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, warnings: readonly string[], sep: string): string {
+  let out = '';
+  for (const c of row.extra) out += text(c, sep) + sep;
+  return (
+    out +
+    row.line +
+    sep +
+    (row.given.pH ?? num8(row.pH)) +
+    sep +
+    (row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential)) +
+    sep +
+    fixed(scale, sep) +
+    sep +
+    num8(r.E) +
+    sep +
+    celsiusText(r.temperature.celsius) +
+    sep +
+    fixed(r.predominant, sep) +
+    sep +
+    r.verdict +
+    sep +
+    fixed(r.runnerUp ?? '', sep) +
+    sep +
+    num8(r.margin.kJPerMol) +
+    sep +
+    num8(r.distance.mV) +
+    sep +
+    num8(r.distance.pH) +
+    sep +
+    fixed(r.nearestBoundary?.reaction ?? '', sep) +
+    sep +
+    csvField(r.advice, sep) +
+    sep +
+    (warnings.length ? text(warnings.join(' | '), sep) : '') +
+    sep +
+    '\n'
+  );
+}
+
+/** Cells from a small set (formulas, reactions, scales): quoted once each, then looked up. */
+const FIXED = new Map<string, string>();
+function fixed(s: string, sep: string): string {
+  const key = sep + s;
+  let v = FIXED.get(key);
+  if (v === undefined) {
+    v = csvField(s, sep);
+    if (FIXED.size < 10_000) FIXED.set(key, v);
   }
-  return `${out.join('\n')}\n`;
+  return v;
+}
+
+/** A row that could not be answered: carried columns, the line, and the error column. */
+export function pointsErrorRow(extra: readonly string[], line: number, message: string, sep: string): string {
+  const cells = extra.map((c) => text(c, sep));
+  cells.push(String(line), ...Array<string>(HEAD.length - 2).fill(''), text(message, sep));
+  return cells.join(sep) + '\n';
 }

@@ -62,6 +62,42 @@ export function psiAt(input: SolverInput, pH: number, E: number): PointPsi {
   return { psi, ligandSpecies };
 }
 
+/**
+ * ψ of every main species at (pH, E) into `out` (same values, bit for bit, as psiAt: the same
+ * plane arithmetic in the same order), for many points on one system. Without ligands the planes
+ * are fixed, so they are built once here and each call costs one multiply-add per species; with
+ * ligands μ_L is piecewise, so each call goes through psiAt. Returns the ligands' species.
+ */
+export type PsiEvaluator = (pH: number, E: number, out: Float64Array) => Record<string, string>;
+
+export function psiEvaluator(input: SolverInput): PsiEvaluator {
+  if (input.ligands.length) {
+    return (pH, E, out) => {
+      const r = psiAt(input, pH, E);
+      out.set(r.psi);
+      return r.ligandSpecies;
+    };
+  }
+  const w = waterContext(input);
+  const n = input.species.length;
+  const g = new Float64Array(n);
+  const p = new Float64Array(n);
+  const e = new Float64Array(n);
+  const div = new Float64Array(n);
+  input.species.forEach((sp, k) => {
+    const pl = formationPlane(sp, w);
+    g[k] = pl.g;
+    p[k] = pl.p;
+    e[k] = pl.e;
+    div[k] = sp.elements[input.element] ?? 1;
+  });
+  const none: Record<string, string> = {};
+  return (pH, E, out) => {
+    for (let k = 0; k < n; k++) out[k] = (g[k] + p[k] * pH + e[k] * E) / div[k] / 1000;
+    return none;
+  };
+}
+
 export interface LineHit {
   /** Signed shift to the boundary, V (for E) or pH units. */
   shift: number;
@@ -79,42 +115,46 @@ export interface ProbeGeometry {
 /** Step 4: crossings of the vertical and horizontal lines through the point with the boundaries. */
 export function probeGeometry(boundaries: BoundaryModel[], pH: number, E: number, kelvin: number): ProbeGeometry {
   const s = nernstSlope(kelvin);
-  const g: ProbeGeometry = {};
-  let best = Infinity;
-  for (const b of boundaries) {
-    for (let k = 0; k + 1 < b.points.length; k++) {
-      const [x1, y1] = b.points[k];
-      const [x2, y2] = b.points[k + 1];
+  // Best hits kept as numbers and indices; objects built once at the end (many points per run).
+  let up = Infinity, down = -Infinity, left = -Infinity, right = Infinity;
+  let bUp = -1, bDown = -1, bLeft = -1, bRight = -1, bNear = -1;
+  let best2 = Infinity, nx = 0, ny = 0, ncx = 0, ncy = 0;
+  const px = pH * s;
+  for (let i = 0; i < boundaries.length; i++) {
+    const pts = boundaries[i].points;
+    for (let k = 0; k + 1 < pts.length; k++) {
+      const a = pts[k];
+      const b = pts[k + 1];
+      const x1 = a[0], y1 = a[1], x2 = b[0], y2 = b[1];
       // Vertical line pH = const.
       if ((x1 - pH) * (x2 - pH) <= 0 && x1 !== x2) {
-        const y = y1 + ((pH - x1) / (x2 - x1)) * (y2 - y1);
-        const d = y - E;
-        if (d > 0 && (!g.up || d < g.up.shift)) g.up = { shift: d, boundary: b };
-        if (d < 0 && (!g.down || d > g.down.shift)) g.down = { shift: d, boundary: b };
+        const d = y1 + ((pH - x1) / (x2 - x1)) * (y2 - y1) - E;
+        if (d > 0 && d < up) (up = d), (bUp = i);
+        if (d < 0 && d > down) (down = d), (bDown = i);
       }
       // Horizontal line E = const.
       if ((y1 - E) * (y2 - E) <= 0 && y1 !== y2) {
-        const x = x1 + ((E - y1) / (y2 - y1)) * (x2 - x1);
-        const d = x - pH;
-        if (d > 0 && (!g.right || d < g.right.shift)) g.right = { shift: d, boundary: b };
-        if (d < 0 && (!g.left || d > g.left.shift)) g.left = { shift: d, boundary: b };
+        const d = x1 + ((E - y1) / (y2 - y1)) * (x2 - x1) - pH;
+        if (d > 0 && d < right) (right = d), (bRight = i);
+        if (d < 0 && d > left) (left = d), (bLeft = i);
       }
-      // Nearest point, pH scaled by s to volts.
+      // Nearest point, pH scaled by s to volts (squared distance compared; its root taken once).
       const ax = x1 * s;
-      const bx = x2 * s;
-      const px = pH * s;
-      const dx = bx - ax;
+      const dx = x2 * s - ax;
       const dy = y2 - y1;
       const l2 = dx * dx + dy * dy;
       const t = l2 > 0 ? Math.max(0, Math.min(1, ((px - ax) * dx + (E - y1) * dy) / l2)) : 0;
       const cx = ax + t * dx;
       const cy = y1 + t * dy;
-      const dist = Math.hypot(px - cx, E - cy);
-      if (dist < best) {
-        best = dist;
-        g.nearest = { boundary: b, distanceV: dist, at: [cx / s, cy] };
-      }
+      const d2 = (px - cx) * (px - cx) + (E - cy) * (E - cy);
+      if (d2 < best2) (best2 = d2), (bNear = i), (nx = px - cx), (ny = E - cy), (ncx = cx), (ncy = cy);
     }
   }
+  const g: ProbeGeometry = {};
+  if (bUp >= 0) g.up = { shift: up, boundary: boundaries[bUp] };
+  if (bDown >= 0) g.down = { shift: down, boundary: boundaries[bDown] };
+  if (bRight >= 0) g.right = { shift: right, boundary: boundaries[bRight] };
+  if (bLeft >= 0) g.left = { shift: left, boundary: boundaries[bLeft] };
+  if (bNear >= 0) g.nearest = { boundary: boundaries[bNear], distanceV: Math.hypot(nx, ny), at: [ncx / s, ncy] };
   return g;
 }

@@ -13,7 +13,7 @@ import { CLASS_TINTS } from '../../src/render/palette.js';
 import { buildScene } from '../../src/render/scene.js';
 import { runsUnicode } from '../../src/render/typeset.js';
 import { probe } from '../../src/analysis/probe.js';
-import { pointsCsv } from '../../src/report/points-csv.js';
+import { pointsOutputRow } from '../../src/report/points-csv.js';
 import { reportData } from '../../src/report/report-data.js';
 import { readSpec } from '../../src/system/spec.js';
 import { allItems, texts } from './helpers.js';
@@ -84,7 +84,7 @@ describe('classes: reclassification', () => {
       compute(readSpec({ ...base, ...(classes ? { classes } : {}), points: [{ label: 'in magnetite', pH, E }] }, 'fe.yaml'));
     expect(reportData(withPoint()).points.map((p) => p.result.verdict)).toEqual(['passivation']);
     expect(reportData(withPoint({ Fe3O4: 'corrosion' })).points.map((p) => p.result.verdict)).toEqual(['corrosion']);
-    const csv = pointsCsv([{ row: { line: 2, pH, potential: E }, scale: 'SHE', result: probe(moved.c, pH, E) }]);
-    expect(csv.split('\n')[1]).toMatch(/,Fe3O4,corrosion,/);
+    const row = pointsOutputRow({ line: 2, pH, potential: E, extra: [], given: {}, unit: 'V' }, 'SHE', probe(moved.c, pH, E), [], ',');
+    expect(row).toMatch(/,Fe3O4,corrosion,/);
   });
 });

@@ -1,0 +1,120 @@
+/**
+ * Answers for logged series, one row at a time, each equal to `probe --ph --potential` at the same
+ * point and condition.
+ *
+ * Steps per row:
+ *  1. the condition (temperature, ionic strength; the system file's own when the row has none)
+ *     picks a diagram from a bounded cache (least recently used dropped beyond MAX_CONDITIONS), so
+ *     the diagram is computed once per distinct condition, not once per row;
+ *  2. the potential goes to the SHE scale at that temperature (and the row's pH, for the RHE);
+ *  3. a point inside the diagram's range is answered on it — predominant species by the exact
+ *     argmin of ψ at the point (no grid), distances from the exact boundaries; a point outside is
+ *     answered on a diagram widened to hold it (widen.ts: the same rule as a single probe), which
+ *     costs one computation for that row.
+ * A condition that cannot be computed (e.g. beyond the data's temperature range) is remembered
+ * and every row at it gets the same error.
+ */
+import { EphmapError } from '../errors.js';
+import { compute, type Computed } from '../pipeline.js';
+import type { SystemSpec } from '../system/spec.js';
+import type { CustomReference } from '../thermo/reference.js';
+import { toShe } from './points.js';
+import { probe, type ProbeResult } from './probe.js';
+import { widenedSpec } from './widen.js';
+
+/** Diagrams kept at once (distinct conditions); each is a few hundred kB at most. */
+export const MAX_CONDITIONS = 64;
+
+export interface PointQuery {
+  line: number;
+  pH: number;
+  /** V on the reference scale of the run. */
+  potential: number;
+  temperature?: number;
+  ionicStrength?: number;
+}
+
+export type PointAnswer = { scale: string; result: ProbeResult; warnings: string[] } | { error: string };
+
+interface Condition {
+  c?: Computed;
+  error?: string;
+  warnings: string[];
+}
+
+/** The system at a row's condition: its temperature and, when given, its ionic strength. */
+function specAt(spec: SystemSpec, celsius: number, I: number | undefined): SystemSpec {
+  if (I === undefined) return { ...spec, temperature: celsius };
+  const s = spec.solution;
+  // An ionic strength given per row means a non-ideal solution, as `ionicStrength` in a file does.
+  const model = s.model === 'ideal' && s.ionicStrengthFrom.startsWith('not given') ? 'davies' : s.model;
+  return { ...spec, temperature: celsius, solution: { ...s, model, ionicStrength: I, ionicStrengthFrom: 'ionic_strength column' } };
+}
+
+function computeOrError(spec: SystemSpec): { c?: Computed; error?: string } {
+  try {
+    return { c: compute(spec) };
+  } catch (e) {
+    if (e instanceof EphmapError) return { error: e.message };
+    throw e;
+  }
+}
+
+/** A row answerer over one system and reference scale (see the module comment). */
+export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference | undefined, file: string): { answer: (q: PointQuery) => PointAnswer; computed: () => number } {
+  const cache = new Map<string, Condition>();
+  let computations = 0;
+  let lastT = NaN;
+  let lastI: number | undefined;
+  let last: Condition | undefined;
+  const condition = (celsius: number, I: number | undefined): Condition => {
+    // Logs hold one condition for long runs of rows: the last one is kept at hand.
+    if (last && celsius === lastT && I === lastI) return last;
+    lastT = celsius;
+    lastI = I;
+    last = lookup(celsius, I);
+    return last;
+  };
+  const lookup = (celsius: number, I: number | undefined): Condition => {
+    const key = I === undefined ? `${celsius}` : `${celsius}|${I}`;
+    let k = cache.get(key);
+    if (k) {
+      // Step 1: most recently used last.
+      cache.delete(key);
+      cache.set(key, k);
+      return k;
+    }
+    computations++;
+    const r = computeOrError(specAt(spec, celsius, I));
+    k = r.c ? { c: r.c, warnings: r.c.model.warnings } : { error: r.error, warnings: [] };
+    if (cache.size >= MAX_CONDITIONS) cache.delete(cache.keys().next().value!);
+    cache.set(key, k);
+    return k;
+  };
+  const answer = (q: PointQuery): PointAnswer => {
+    const T = q.temperature ?? spec.temperature;
+    const k = condition(T, q.ionicStrength);
+    if (!k.c) return { error: `line ${q.line}: ${k.error}` };
+    // Step 2: the SHE scale at T.
+    let s;
+    try {
+      s = toShe(ref, q.potential, T, q.pH, file, `line ${q.line}`);
+    } catch (e) {
+      if (e instanceof EphmapError) return { error: e.message };
+      throw e;
+    }
+    // Step 3: inside the range on the cached diagram (widen.ts holdsAll, inlined: no allocation per
+    // row); outside on one widened for this point.
+    const point = { pH: q.pH, E: s.E };
+    let c = k.c;
+    if (!(q.pH > c.spec.pH[0] && q.pH < c.spec.pH[1] && s.E > c.spec.E[0] && s.E < c.spec.E[1])) {
+      computations++;
+      const w = computeOrError(widenedSpec(c.spec, [point]));
+      if (!w.c) return { error: `line ${q.line}: ${w.error}` };
+      c = w.c;
+    }
+    const warnings = s.warnings.length ? [...c.model.warnings, ...s.warnings] : c.model.warnings;
+    return { scale: s.ref?.label ?? 'SHE', result: probe(c, q.pH, s.E, s.ref), warnings };
+  };
+  return { answer, computed: () => computations };
+}

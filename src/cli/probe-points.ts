@@ -1,0 +1,159 @@
+/**
+ * `ephmap probe FILE --points LOG.csv|- [-o OUT.csv|-] [--delimiter auto|,|;|tab] [--unit V|mV]
+ * [--strict]`: a logged series answered row by row while it streams.
+ *
+ * Steps: 1. open the input (a file, or standard input for `-`) and the output (standard output by
+ * default or for `-`; a file through a temporary renamed at the end); 2. read the header (the
+ * first line that is not blank or a `#` comment — comments only above it; the separator from
+ * --delimiter or, for `auto`, `,` else `;` else tab, as the header line has it); 3. for every
+ * record: read the row, answer it
+ * (analysis/points-answer.ts) and write its line, in input order, flushing after each input chunk;
+ * 4. at the end: exit status 4 when some rows could not be answered (each says why in its `error`
+ * column); with --strict the first bad row stops the run with exit status 2 and, for a file
+ * output, nothing is written.
+ */
+import { createReadStream, statSync } from 'node:fs';
+import { EphmapError, InputError, PartialError } from '../errors.js';
+import { CsvRecordReader, type CsvRecord, MAX_RECORD } from '../io/csv-records.js';
+import { fileSink, type OutputSink, stdoutSink } from '../io/stream-output.js';
+import { refuseInputsAsOutputs, requireExtension } from '../io/path-safety.js';
+import { pointsAnswerer } from '../analysis/points-answer.js';
+import { type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsOutputRow, readPointRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
+import type { SystemSpec } from '../system/spec.js';
+import type { CustomReference } from '../thermo/reference.js';
+import { progressBar } from './progress.js';
+
+export interface PointsOptions {
+  points: string;
+  output?: string;
+  delimiter?: string;
+  unit?: string;
+  strict?: boolean;
+}
+
+const SEPARATORS: Record<string, string> = { ',': ',', ';': ';', tab: '\t', '\t': '\t' };
+
+function separatorFor(option: string | undefined, headerLine: string): string {
+  if (option === undefined || option === 'auto') {
+    if (headerLine.includes(',')) return ',';
+    if (headerLine.includes(';')) return ';';
+    return headerLine.includes('\t') ? '\t' : ',';
+  }
+  const s = Object.hasOwn(SEPARATORS, option) ? SEPARATORS[option] : undefined;
+  if (!s) throw new InputError('command line', '--delimiter', 'auto, "," , ";" or tab', option);
+  return s;
+}
+
+function unitOf(option: string | undefined): PotentialUnit | undefined {
+  if (option === undefined) return undefined;
+  if (option === 'V' || option === 'mV') return option;
+  throw new InputError('command line', '--unit', 'V or mV', option);
+}
+
+/** Step 3: each record to its output text (the header's, a row's answer, or a row's error). */
+function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: ReturnType<typeof pointsAnswerer>) {
+  const st = { sep: ',', header: undefined as PointsHeader | undefined, rows: 0, failed: 0, lineFor };
+  function failedRow(extra: string[], line: number, e: RowError, plain?: string): string {
+    if (strict) throw plain !== undefined ? new InputError(name, `line ${line}`, 'a row the system can answer', plain) : new InputError(name, e.field, e.expected, e.got);
+    st.failed++;
+    return pointsErrorRow(extra, line, plain ?? rowErrorText(e), st.sep);
+  }
+  function lineFor(r: CsvRecord): string {
+    if (r.fields.length === 1 && r.fields[0].trim() === '') return '';
+    const h = st.header;
+    if (!h) {
+      if (r.fields[0].trimStart().startsWith('#')) return '';
+      if (r.error) throw new InputError(name, `line ${r.line} (header)`, r.error);
+      st.header = readPointsHeader(r.fields, name, unit);
+      return pointsOutputHeader(st.header, st.sep);
+    }
+    // After the header every record is a row (a `#` line there is answered or refused, never dropped).
+    st.rows++;
+    const extra = h.extra.map((x) => r.fields[x.index] ?? '');
+    if (r.error) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: r.error });
+    if (r.fields.length !== h.width) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
+    const row = readPointRow(r.fields, r.line, h, st.sep !== ',');
+    if (!('extra' in row)) return failedRow(extra, r.line, row);
+    const a = answerer.answer(row);
+    if ('error' in a) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: '' }, a.error);
+    return pointsOutputRow(row, a.scale, a.result, a.warnings, st.sep);
+  }
+  return st;
+}
+
+/** Runs the whole series (see the module comment). */
+export async function runPoints(file: string, spec: SystemSpec, ref: string | CustomReference | undefined, o: PointsOptions): Promise<void> {
+  const unit = unitOf(o.unit);
+  if (o.delimiter !== undefined) separatorFor(o.delimiter, '');
+  const name = o.points === '-' ? 'standard input' : o.points;
+  const toFile = o.output !== undefined && o.output !== '-';
+  if (toFile) {
+    requireExtension(o.output!, ['.csv'], '--output');
+    refuseInputsAsOutputs([{ path: o.output!, option: '--output' }], [{ path: file, option: '<file>' }, ...(o.points === '-' ? [] : [{ path: o.points, option: '--points' }])]);
+  }
+  // Step 1: input and output.
+  let size = 0;
+  if (o.points !== '-') {
+    try {
+      const st = statSync(o.points);
+      if (!st.isFile() && !st.isFIFO()) throw new Error('not a file');
+      size = st.isFile() ? st.size : 0;
+    } catch {
+      throw new InputError(o.points, '', 'a readable CSV file', 'a path that is not a readable file');
+    }
+  }
+  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: 1 << 16 });
+  (input as NodeJS.ReadableStream & { setEncoding(e: string): void }).setEncoding('utf8');
+  const sink: OutputSink = toFile ? await fileSink(o.output!) : stdoutSink();
+  const answerer = pointsAnswerer(spec, ref, name);
+  const bar = progressBar(process.stderr, size);
+  let reader: CsvRecordReader | undefined;
+  let head = '';
+  let bytes = 0;
+  const records: CsvRecord[] = [];
+  const lines = recordLines(name, unit, o.strict === true, answerer);
+  try {
+    for await (const chunk of input as AsyncIterable<string>) {
+      bytes += Buffer.byteLength(chunk);
+      // Step 2: the separator, once the header line is complete.
+      if (!reader) {
+        head += chunk;
+        const first = head.split(/\r\n|\n|\r/).find((l, k, all) => k < all.length - 1 && l.trim() !== '' && !l.trimStart().startsWith('#'));
+        if (first === undefined) {
+          if (head.length > MAX_RECORD) throw new InputError(name, 'header', `a header line of at most ${MAX_RECORD} characters`);
+          continue;
+        }
+        lines.sep = separatorFor(o.delimiter, first);
+        reader = new CsvRecordReader(lines.sep, name);
+        reader.push(head, records);
+        head = '';
+      } else reader.push(chunk, records);
+      let text = '';
+      for (const r of records) text += lines.lineFor(r);
+      records.length = 0;
+      if (text) await sink.write(text);
+      bar.update(bytes, lines.rows);
+    }
+    if (!reader) {
+      lines.sep = separatorFor(o.delimiter, head);
+      reader = new CsvRecordReader(lines.sep, name);
+      reader.push(head, records);
+    }
+    reader.end(records);
+    let text = '';
+    for (const r of records) text += lines.lineFor(r);
+    if (!lines.header) throw new InputError(name, '', 'a CSV with a header row (pH, potential[, temperature]) and data rows', 'no header');
+    if (lines.rows === 0) throw new InputError(name, '', 'at least one data row after the header');
+    if (text) await sink.write(text);
+    bar.done();
+    await sink.commit();
+  } catch (e) {
+    bar.done();
+    await sink.abort();
+    if (!(e instanceof EphmapError) && typeof (e as NodeJS.ErrnoException).code === 'string' && (e as NodeJS.ErrnoException).code!.startsWith('E')) throw new InputError(o.points, '', 'a readable CSV file', 'a file that cannot be read');
+    throw e;
+  }
+  if (toFile) process.stdout.write(`wrote ${o.output} (${lines.rows} rows${lines.failed ? `, ${lines.failed} not answered` : ''})\n`);
+  // Step 4.
+  if (lines.failed) throw new PartialError(`${lines.failed} of ${lines.rows} rows of ${name} could not be answered (see their error column)`);
+}

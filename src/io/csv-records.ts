@@ -1,0 +1,179 @@
+/**
+ * CSV records read and written by the rules of RFC 4180 (IETF, "Common Format and MIME Type for
+ * Comma-Separated Values Files", 2005), with the separator chosen by the caller (`,`, `;` or tab):
+ *   - a field may be enclosed in double quotes; inside, the separator, CR and LF are plain text
+ *     and a doubled quote `""` stands for one quote;
+ *   - records end at LF or CRLF (a lone CR also ends a record);
+ *   - a quote inside an unquoted field, or text after a closing quote, is malformed: the record is
+ *     returned with `error` set (the caller decides whether that row or the run fails).
+ *
+ * The reader is incremental (`push` chunks as they arrive, `end` at the end of input) so a file of
+ * any length is read in constant memory: at most one partial record is held between chunks.
+ * Lines without a quote take a fast path (a plain split).
+ *
+ * Example: reading `a,"b,""c"""\n` gives one record with fields ["a", 'b,"c"'] on line 1.
+ */
+
+import { InputError } from '../errors.js';
+
+/** Longest record held while waiting for its end (characters). */
+export const MAX_RECORD = 1 << 20;
+
+export interface CsvRecord {
+  fields: string[];
+  /** Line number (1-based) where the record starts. */
+  line: number;
+  /** Set when the record breaks the quoting rules. */
+  error?: string;
+}
+
+/** Incremental RFC 4180 reader (see the module comment). */
+export class CsvRecordReader {
+  private rest = '';
+  private line = 1;
+  private started = false;
+
+  constructor(
+    private readonly sep: string,
+    private readonly file: string,
+  ) {}
+
+  /** Records completed by this chunk, in order. */
+  push(chunk: string, out: CsvRecord[] = []): CsvRecord[] {
+    let text = this.rest + chunk;
+    if (!this.started && text.length) {
+      this.started = true;
+      if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+    }
+    let pos = 0;
+    // Next quote and next CR at or after pos, found once and reused (no rescans per line).
+    let q = -2;
+    let cr = -2;
+    for (;;) {
+      const nl = text.indexOf('\n', pos);
+      if (q !== -1 && q < pos) q = text.indexOf('"', pos);
+      if (cr !== -1 && cr < pos) cr = text.indexOf('\r', pos);
+      const brk = cr >= 0 && (nl < 0 || cr < nl - 1) ? cr : nl;
+      if (brk < 0) break;
+      if (q < 0 || q > brk) {
+        // Fast path: a record without quotes, ended by LF, CRLF or a lone CR.
+        if (brk === cr && brk !== nl - 1) {
+          if (brk + 1 >= text.length) break; // CR at the end of the chunk: maybe CRLF
+          this.plainLine(text.slice(pos, brk), out);
+          pos = text.charCodeAt(brk + 1) === 10 ? brk + 2 : brk + 1;
+        } else {
+          this.plainLine(text.slice(pos, nl > pos && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl), out);
+          pos = nl + 1;
+        }
+        continue;
+      }
+      const r = this.quoted(text, pos, false);
+      if (!r) break;
+      out.push(r.record);
+      pos = r.next;
+    }
+    this.rest = text.slice(pos);
+    if (this.rest.length > MAX_RECORD) {
+      throw new InputError(this.file, `line ${this.line}`, `a CSV record of at most ${MAX_RECORD} characters (an unclosed double quote?)`);
+    }
+    return out;
+  }
+
+  /** The last record (input not ending in a newline); an unterminated quote is an error record. */
+  end(out: CsvRecord[] = []): CsvRecord[] {
+    const text = this.rest;
+    this.rest = '';
+    if (text === '') return out;
+    // Whatever is left is at most one record (push consumed every complete one).
+    let pos = 0;
+    while (pos < text.length) {
+      const r = this.quoted(text, pos, true)!;
+      out.push(r.record);
+      pos = r.next;
+    }
+    return out;
+  }
+
+  private plainLine(s: string, out: CsvRecord[]): void {
+    out.push({ fields: s.split(this.sep), line: this.line++ });
+  }
+
+  /**
+   * One record starting at `pos`, parsed character by character. Returns undefined when the record
+   * is not complete in `text` (more input needed), unless `final`.
+   */
+  private quoted(text: string, pos: number, final: boolean): { record: CsvRecord; next: number } | undefined {
+    const fields: string[] = [];
+    let field = '';
+    let error: string | undefined;
+    let i = pos;
+    let lines = 0;
+    const sep = this.sep;
+    for (;;) {
+      // Start of a field.
+      if (text[i] === '"') {
+        i++;
+        for (;;) {
+          if (i >= text.length) {
+            if (!final) return undefined;
+            error ??= 'a closing double quote (the quoted field runs to the end of the input)';
+            fields.push(field);
+            return this.done(fields, error, lines, text.length);
+          }
+          const ch = text[i];
+          if (ch === '"') {
+            if (text[i + 1] === '"') (field += '"'), (i += 2);
+            else if (i + 1 >= text.length && !final) return undefined;
+            else {
+              i++;
+              break;
+            }
+          } else {
+            if (ch === '\n') lines++;
+            field += ch;
+            i++;
+          }
+        }
+        // After a closing quote: separator, end of record, or (malformed) more text.
+        while (i < text.length && text[i] !== sep && text[i] !== '\n' && text[i] !== '\r') {
+          error ??= 'a separator or the end of the line after a closing double quote';
+          field += text[i++];
+        }
+      } else {
+        while (i < text.length && text[i] !== sep && text[i] !== '\n' && text[i] !== '\r') {
+          if (text[i] === '"') error ??= 'no double quote inside an unquoted field (enclose the field in quotes and double the quote)';
+          field += text[i++];
+        }
+      }
+      fields.push(field);
+      field = '';
+      if (i >= text.length) {
+        if (!final) return undefined;
+        return this.done(fields, error, lines, i);
+      }
+      if (text[i] === sep) {
+        i++;
+        continue;
+      }
+      // End of record: CRLF, LF or a lone CR.
+      if (text[i] === '\r' && i + 1 >= text.length && !final) return undefined;
+      const next = text[i] === '\r' && text[i + 1] === '\n' ? i + 2 : i + 1;
+      return this.done(fields, error, lines, next);
+    }
+  }
+
+  private done(fields: string[], error: string | undefined, lines: number, next: number): { record: CsvRecord; next: number } {
+    const record: CsvRecord = { fields, line: this.line };
+    if (error) record.error = error;
+    this.line += lines + 1;
+    return { record, next };
+  }
+}
+
+const NEEDS_QUOTES: Record<string, RegExp> = { ',': /[",\n\r]/, ';': /[";\n\r]/, '\t': /["\t\n\r]/ };
+
+/** One field written by RFC 4180: quoted when it holds the separator, a quote, CR or LF. */
+export function csvField(s: string, sep: string): string {
+  const re = NEEDS_QUOTES[sep] ?? new RegExp(`["\n\r${sep.replace(/[\\\]^-]/g, '\\$&')}]`);
+  return re.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}

@@ -1,0 +1,82 @@
+/**
+ * Streamed output (a result written while its input is still being read): to standard output, or
+ * to a file by the rules of safe-write.ts — a fresh temporary file of ours in the target's own
+ * directory, created exclusively without following links, written as rows come, then synced and
+ * renamed over the target only when the whole run succeeded (`commit`). On failure (`abort`, an
+ * exception, SIGINT/SIGTERM) the temporary file is removed and any existing target is unchanged.
+ * Writes wait for the stream to drain, so memory stays bounded however long the output.
+ */
+import { lstatSync, mkdirSync } from 'node:fs';
+import { open, rename, rm, type FileHandle } from 'node:fs/promises';
+import { dirname, join, resolve } from 'node:path';
+import { OutputError } from '../errors.js';
+import { toOutputError } from './output-errors.js';
+import { TEMP_FLAGS } from './safe-write.js';
+import { registerTemp, sweepStaleTemps, tempName, unregisterTemp } from './temp-files.js';
+
+export interface OutputSink {
+  write(text: string): Promise<void>;
+  /** Everything written: make it visible (a file: sync and rename over the target). */
+  commit(): Promise<void>;
+  /** Failure: drop what was written (a file: remove the temporary; the target is unchanged). */
+  abort(): Promise<void>;
+}
+
+/** Standard output, waiting for 'drain' when the reader is slower than we are. */
+export function stdoutSink(out: NodeJS.WritableStream = process.stdout): OutputSink {
+  return {
+    write: (text) => (out.write(text) ? Promise.resolve() : new Promise<void>((r) => out.once('drain', () => r()))),
+    commit: async () => undefined,
+    abort: async () => undefined,
+  };
+}
+
+/** A file written through a temporary of ours and renamed at `commit` (see the module comment). */
+export async function fileSink(path: string): Promise<OutputSink> {
+  const dir = dirname(resolve(path));
+  try {
+    mkdirSync(dir, { recursive: true });
+    if (lstatSync(path, { throwIfNoEntry: false })?.isDirectory()) throw new OutputError(path, 'it is a directory, not a file');
+  } catch (e) {
+    throw toOutputError(path, e);
+  }
+  sweepStaleTemps(dir);
+  const tmp = join(dir, tempName());
+  let fh: FileHandle;
+  try {
+    fh = await open(tmp, TEMP_FLAGS, 0o666);
+  } catch (e) {
+    throw toOutputError(path, e);
+  }
+  registerTemp(tmp);
+  let closed = false;
+  const drop = async (): Promise<void> => {
+    if (!closed) await fh.close().catch(() => undefined);
+    closed = true;
+    await rm(tmp, { force: true }).catch(() => undefined);
+    unregisterTemp(tmp);
+  };
+  return {
+    async write(text) {
+      try {
+        await fh.write(text);
+      } catch (e) {
+        await drop();
+        throw toOutputError(path, e);
+      }
+    },
+    async commit() {
+      try {
+        await fh.sync();
+        await fh.close();
+        closed = true;
+        await rename(tmp, path);
+        unregisterTemp(tmp);
+      } catch (e) {
+        await drop();
+        throw toOutputError(path, e);
+      }
+    },
+    abort: drop,
+  };
+}

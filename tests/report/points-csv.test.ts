@@ -1,0 +1,34 @@
+/** Writing and reading logged-series rows (report/points-csv.ts). */
+import { describe, expect, it } from 'vitest';
+import { num8, readPointRow, readPointsHeader } from '../../src/report/points-csv.js';
+
+describe('num8', () => {
+  it('prints the same text as String(Number(v.toPrecision(8))) (the definition it speeds up)', () => {
+    let seed = 12345;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const values = [0, -0, 1, -1, 0.1, 1e-7, 123456785, 0.123456785, 99999999.5, 9.99999995, 1e21, 1e-16, 5e-324, 1.7976931348623157e308, 12000000000, 275.366745, -1.55155385];
+    for (let k = 0; k < 20000; k++) values.push((rnd() - 0.5) * 10 ** Math.floor(rnd() * 30 - 12));
+    for (let k = 0; k < 2000; k++) values.push(Math.round(rnd() * 1e9) / 10 ** Math.floor(rnd() * 12)); // exact halves in decimal
+    for (const v of values) expect(num8(v)).toBe(String(Number(v.toPrecision(8))));
+  });
+});
+
+describe('readPointRow', () => {
+  const h = readPointsHeader(['pH', 'E', 'T'], 'log.csv', undefined);
+  it('refuses hexadecimal, infinity, thousands separators and blanks (issue 16 item 7: 0x7 was read as pH 7)', () => {
+    for (const cell of ['0x7', 'Infinity', '1,000', '', ' ', '7 8', '1e400x']) {
+      const r = readPointRow([cell, '0', '25'], 5, h, false);
+      expect('field' in r && r.field).toBe('line 5, column 1 (pH)');
+    }
+  });
+  it('reads a decimal comma only when the separator is not a comma', () => {
+    expect(readPointRow(['7,5', '0', ''], 2, h, true)).toMatchObject({ pH: 7.5 });
+    expect('field' in readPointRow(['7,5', '0', ''], 2, h, false)).toBe(true);
+  });
+  it('refuses pH outside −2…16, |E| > 5 V and temperatures outside 0…350 °C (issue 16 item 7)', () => {
+    expect(readPointRow(['100', '0', ''], 2, h, false)).toMatchObject({ expected: '-2 to 16' });
+    expect(readPointRow(['7', '1000', ''], 2, h, false)).toMatchObject({ expected: '|E| ≤ 5 V' });
+    expect(readPointRow(['7', '0', '400'], 2, h, false)).toMatchObject({ expected: '0 to 350 °C' });
+    expect(readPointRow(['16', '-5', '0'], 2, h, false)).toMatchObject({ pH: 16, potential: -5, temperature: 0 });
+  });
+});
