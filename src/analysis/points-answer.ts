@@ -113,8 +113,10 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
       if (!w.c) return { error: `line ${q.line}: ${w.error}` };
       c = w.c;
     }
-    const warnings = s.warnings.length ? [...c.model.warnings, ...s.warnings] : c.model.warnings;
-    return { scale: s.ref?.label ?? 'SHE', result: probe(c, q.pH, s.E, s.ref), warnings };
+    const result = probe(c, q.pH, s.E, s.ref);
+    // The probe's own warnings: the model's, plus any about this point (e.g. no verdict in an undetermined field).
+    const warnings = s.warnings.length ? [...result.warnings, ...s.warnings] : result.warnings;
+    return { scale: s.ref?.label ?? 'SHE', result, warnings };
   };
   return { answer, computed: () => computations };
 }

@@ -64,9 +64,10 @@ describe('probe -o without --points', () => {
 describe('figure sizes', () => {
   it('3 in is 76.2 mm exactly in every message', async () => {
     expect(parseLength('3in', '--width')).toBeCloseTo(76.2, 12);
-    const r = await runCli(['draw', cu, '-o', join(dir, 'n.svg'), '--width', '3in', '--height', '40']);
+    // A request that cannot fit even after the layout's fallbacks (issue 17): 3 in at 20 pt.
+    const r = await runCli(['draw', cu, '-o', join(dir, 'n.svg'), '--width', '3in', '--font-size', '20']);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/figure 76\.2×40 mm is too small/);
+    expect(r.stderr).toMatch(/figure 76\.2 mm wide/);
   });
 
   it('--width 800px gives a PNG 800 pixels across; --dpi sets the resolution otherwise', async () => {
