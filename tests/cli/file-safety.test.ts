@@ -5,7 +5,7 @@
  * afterwards (README "Bad input": 2 = input refused, 3 = output not writable, nothing written).
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { chmodSync, linkSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, symlinkSync, utimesSync, watch, writeFileSync } from 'node:fs';
+import { chmodSync, cpSync, linkSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, symlinkSync, utimesSync, watch, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildSync } from 'esbuild';
@@ -31,7 +31,11 @@ beforeAll(() => {
     banner: { js: "import { createRequire as __ephmapRequire } from 'node:module';\nconst require = __ephmapRequire(import.meta.url);" },
     logLevel: 'silent',
   });
-  symlinkSync(join(root, 'species'), join(dir, 'species'));
+  // A copy, not a link: the checkout may sit in a folder other users cannot enter (CI's clean clone),
+  // and the unprivileged-user case below must still read the library.
+  cpSync(join(root, 'species'), join(dir, 'species'), { recursive: true });
+  for (const f of readdirSync(join(dir, 'species'))) chmodSync(join(dir, 'species', f), 0o644);
+  chmodSync(join(dir, 'species'), 0o755);
   chmodSync(join(dir, 'dist'), 0o755);
   chmodSync(join(dir, 'dist', 'cli'), 0o755);
 }, 60_000);
