@@ -17,6 +17,7 @@
  * S° comes from the data, else third-law from ΔfH°, else (library species only) the additive
  * estimate of data/entropy-estimate.ts, which flags the species estimated.
  */
+import { parseFormula } from '../chem/formula.js';
 import { elementEntropy } from '../data/element-entropies.js';
 import { libraryEntropyEstimator } from '../data/entropy-estimate.js';
 import type { LibrarySpecies } from '../data/library.js';
@@ -55,14 +56,22 @@ export function libraryEntropy(s: LibrarySpecies): number | undefined {
   return entropyFromFormation(s.dfG, s.dfH, s.elements, s.charge, elementEntropy);
 }
 
+/**
+ * The species' composition in chemical elements. The build step may have grouped a ligand (e.g. CN
+ * counted as one unit under the key "CN"); entropies are per element, so the formula is read again.
+ */
+function chemicalElements(s: ResolvedSpecies): Record<string, number> {
+  return parseFormula(s.formula).elements;
+}
+
 /** S° of a resolved species and whether it was estimated; undefined where no route exists. */
 function entropyOf(s: ResolvedSpecies, ctx: CarryContext, atRef: boolean): { S: number; estimated: boolean } | undefined {
   if (s.S !== undefined) return { S: s.S, estimated: false };
-  if (s.dfH !== undefined) return { S: entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy), estimated: false };
+  if (s.dfH !== undefined) return { S: entropyFromFormation(s.dfG, s.dfH, chemicalElements(s), s.f.charge, elementEntropy), estimated: false };
   if (!s.library) return undefined;
   // At the reference state the value is not used: only that it would be estimated.
   if (atRef) return { S: Number.NaN, estimated: true };
-  const est = libraryEntropyEstimator(ctx.lib, libraryEntropy).estimate({ elements: s.f.elements, charge: s.f.charge, phase: s.phase });
+  const est = libraryEntropyEstimator(ctx.lib, libraryEntropy).estimate({ elements: chemicalElements(s), charge: s.f.charge, phase: s.phase });
   return est ? { S: est.S, estimated: true } : undefined;
 }
 
@@ -162,7 +171,7 @@ export function carryProperties(s: ResolvedSpecies, ctx: CarryContext): CarriedP
   const Cp = -st.kelvin * ((hi - 2 * mid + lo) / (h * h)) * 1000;
   const out: CarriedProperties = { ...c, S, Cp };
   if (s.dfH !== undefined) {
-    const Sref = s.S ?? entropyFromFormation(s.dfG, s.dfH, s.f.elements, s.f.charge, elementEntropy);
+    const Sref = s.S ?? entropyFromFormation(s.dfG, s.dfH, chemicalElements(s), s.f.charge, elementEntropy);
     out.H = s.dfH + (c.G - s.dfG) + (st.kelvin * S - 298.15 * Sref) / 1000;
   }
   return out;
