@@ -15,7 +15,7 @@ import { displayReference } from '../analysis/points.js';
 import { linesComposition } from './lines-composition.js';
 import { isElement } from '../chem/elements.js';
 import { loadLibrary } from '../data/library.js';
-import { catalogEntries, catalogText } from '../report/catalog.js';
+import { catalogEntries, catalogJson, catalogText } from '../report/catalog.js';
 import { figureInput, withSecondAxis } from '../figure/compose.js';
 import { type FigureOverrides, figureSettings } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
@@ -109,7 +109,7 @@ export function registerCatalog(program: Command): void {
     .action((element: string | undefined, opts: { json?: boolean }) => {
       if (element !== undefined && !isElement(element)) throw new InputError('command line', 'element', 'an element symbol such as Cu (case matters)', JSON.stringify(element));
       const entries = catalogEntries(loadLibrary(), element);
-      if (opts.json) process.stdout.write(stableJson(entries));
+      if (opts.json) process.stdout.write(stableJson(catalogJson(entries, element)));
       else process.stdout.write(entries.length ? catalogText(entries) : `no species of ${element} in the library\n`);
     });
 }

@@ -93,3 +93,16 @@ export function catalogText(entries: CatalogEntry[]): string {
     : '';
   return `${body}\n\n* recalled from memory, not read from the source.\n${est}Sources:\n${refs}\n`;
 }
+
+/**
+ * The catalogue as JSON: `{species, warnings}` — every JSON output of ephmap carries a `warnings`
+ * array; here it names the species whose temperature data are estimated and the recalled values.
+ */
+export function catalogJson(entries: CatalogEntry[], element?: string): { species: CatalogEntry[]; warnings: string[] } {
+  const warnings: string[] = [];
+  if (!entries.length) warnings.push(`no species of ${element ?? 'any element'} in the library`);
+  const est = entries.filter((e) => e.estimated?.length).map((e) => e.formula);
+  if (est.length) warnings.push(`temperature data estimated away from 25 °C (see species/README.md): ${est.join(', ')}`);
+  if (entries.some((e) => e.recalled)) warnings.push('values marked recalled were written from memory, not read from the source just now: check them against the printed tables before design use');
+  return { species: entries, warnings };
+}

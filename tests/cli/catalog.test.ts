@@ -10,7 +10,9 @@ describe('catalog', () => {
   it('lists copper species with data and sources, as JSON objects with the contract keys', async () => {
     const r = await runCli(['catalog', 'Cu', '--json']);
     expect(r.code).toBe(0);
-    const list = JSON.parse(r.stdout);
+    const out = JSON.parse(r.stdout);
+    expect(Array.isArray(out.warnings)).toBe(true);
+    const list = out.species;
     expect(list.length).toBeGreaterThan(10);
     for (const e of list) {
       for (const k of ['formula', 'phase', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sourceText']) expect(e).toHaveProperty(k);
@@ -39,7 +41,7 @@ describe('library use in system files', () => {
   });
 
   it('picking another compilation for Fe+2 moves the Fe+2/Fe line (alternatives keep their source)', async () => {
-    const list = JSON.parse((await runCli(['catalog', 'Fe', '--json'])).stdout);
+    const list = JSON.parse((await runCli(['catalog', 'Fe', '--json'])).stdout).species;
     const fe2 = list.find((e: { formula: string }) => e.formula === 'Fe+2');
     expect(fe2.alternatives.length).toBeGreaterThan(0);
     const alt = fe2.alternatives[0];
