@@ -12,7 +12,7 @@ import { classify } from '../diagram/classify.js';
 import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { GivenAmount, RegionClass } from '../model.js';
 import type { Computed } from '../pipeline.js';
-import { probeGeometry, psiAt, type PsiEvaluator, psiEvaluator } from '../solve/point.js';
+import { probeGeometry, type PsiEvaluator, psiEvaluator } from '../solve/point.js';
 import type { SolverSpecies } from '../solve/types.js';
 
 /** A verdict, or 'unknown' where the species could not be carried to T (undetermined). */
@@ -133,7 +133,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
   const best = input.species[k1];
   const second = k2 >= 0 ? input.species[k2] : null;
   const marginKJ = k2 >= 0 ? psi[k2] - psi[k1] : 0;
-  const margin: Margin = second ? marginShifts(input, pH, E, k1, k2, marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
+  const margin: Margin = second ? marginShifts(ctx, pH, E, k1, k2, marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
   const winnerAt = (x: number, y: number) => {
     ctx.psi(x, y, psi);
     const k = argmin(psi);
@@ -191,13 +191,14 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
  * changes by its slope times the shift; slopes from a 1 mV and a 0.001 pH step. A slope below
  * 0.01 kJ/mol per V (about 1e-4 electrons per atom) or per pH counts as none.
  */
-function marginShifts(input: Computed['built']['input'], pH: number, E: number, i: number, j: number, m: number): Margin {
+function marginShifts(ctx: ProbeContext, pH: number, E: number, i: number, j: number, m: number): Margin {
   const hE = 1e-3;
   const hP = 1e-3;
-  const a = psiAt(input, pH, E + hE).psi;
-  const b = psiAt(input, pH + hP, E).psi;
-  const slopeE = (a[j] - a[i] - m) / hE;
-  const slopeP = (b[j] - b[i] - m) / hP;
+  const buf = ctx.buf;
+  ctx.psi(pH, E + hE, buf);
+  const slopeE = (buf[j] - buf[i] - m) / hE;
+  ctx.psi(pH + hP, E, buf);
+  const slopeP = (buf[j] - buf[i] - m) / hP;
   const potentialV = Math.abs(slopeE) > 0.01 ? -m / slopeE : null;
   const dpH = Math.abs(slopeP) > 0.01 ? -m / slopeP : null;
   const out: Margin = { kJPerMol: m, potentialV, pH: dpH };
