@@ -92,7 +92,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     waterLines: { ...waterLines(input), pressures: input.pressures },
     warnings,
     sources: setup.built.sources,
-    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...failedPolys, ...gaps] },
+    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...failedPolys, ...gaps], ...(gaps.length ? { unresolved: gaps.length } : {}) },
     isoSolubility,
   };
   return { setup, grid: g as GridSample<unknown>, model };
