@@ -98,8 +98,13 @@ export interface CompositionModel {
   ionicStrength: number | 'auto';
   /** Grid the regions were traced on, and points that could not be solved (undetermined). */
   grid: { nx: number; ny: number; failed: number };
-  /** Where the point solver failed: polygons (grid resolution, not refined) to show as undetermined. */
+  /**
+   * Polygons to show as undetermined: where the point solver failed (grid resolution, not refined),
+   * then, last, the `unresolved` patches the traced regions left uncovered near their junctions.
+   */
   undetermined: Polygon[];
+  /** How many of the last `undetermined` polygons are unresolved gaps rather than failed points (absent: none). */
+  unresolved?: number;
 }
 
 export interface DiagramModel {

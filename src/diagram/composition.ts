@@ -14,6 +14,7 @@ import type { PointSolution } from '../solve/speciation/point.js';
 import type { SpeciationProblem } from '../solve/speciation/problem.js';
 import { type GridSample, sampleGrid } from '../solve/trace/grid.js';
 import { traceIsoLines } from '../solve/trace/iso.js';
+import { uncoveredPolygons } from '../solve/trace/gaps.js';
 import { joinTriplePoints } from '../solve/trace/junctions.js';
 import { traceRegions, type TracedBoundary, undeterminedPolygons } from '../solve/trace/regions.js';
 import type { SolverSpecies } from '../solve/types.js';
@@ -69,6 +70,11 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
   const isoSolubility: IsoSolubilityLine[] = levels.map((level) => ({ level, lines: traceIsoLines(field, g, Math.log10(level)) }));
   const warnings = [...setup.warnings];
   if (g.failed) warnings.push(`composition mode: ${g.failed} of ${n * n} grid points could not be solved; they are undetermined (no region drawn there)`);
+  // Step 4: undetermined areas, never blank ones: the unsolved nodes, then whatever the traced
+  // regions leave uncovered (slivers near triple points the junctions could not close).
+  const failedPolys = undeterminedPolygons(g);
+  const gaps = uncoveredPolygons(g, [...regions.flatMap((r) => r.polygons), ...failedPolys]);
+  if (gaps.length) warnings.push(`composition mode: ${gaps.length} small area(s) near region junctions are not resolved at grid ${n}; they are drawn as undetermined (a finer grid shrinks them)`);
   const comp = spec.composition!;
   const model: DiagramModel = {
     kind: 'composition',
@@ -86,7 +92,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     waterLines: { ...waterLines(input), pressures: input.pressures },
     warnings,
     sources: setup.built.sources,
-    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: undeterminedPolygons(g) },
+    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...failedPolys, ...gaps], ...(gaps.length ? { unresolved: gaps.length } : {}) },
     isoSolubility,
   };
   return { setup, grid: g as GridSample<unknown>, model };

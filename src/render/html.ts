@@ -17,6 +17,7 @@ import type { ShareGrid } from './share-grid.js';
 import type { DiagramModel, LineCoefficients } from '../model.js';
 import type { FigureOptions } from './options.js';
 import type { Scene } from './scene-types.js';
+import { undeterminedCause } from './scene-iso.js';
 import { esc, sceneToSvg } from './svg.js';
 import { formulaRuns, runsUnicode } from './typeset.js';
 
@@ -88,7 +89,7 @@ export function pageData(scene: Scene, model: DiagramModel, options: Pick<Figure
     second,
     regions: [
       // Composition mode: where the point solver failed, first (it is drawn over the fills).
-      ...(model.composition?.undetermined.length ? [{ label: 'Undetermined', formula: '', name: '', reading: 'the speciation could not be solved here', polygons: model.composition.undetermined.map((poly) => poly.map((ring) => ring.map(pt))) }] : []),
+      ...(model.composition?.undetermined.length ? [{ label: 'Undetermined', formula: '', name: '', reading: undeterminedReading(model), polygons: model.composition.undetermined.map((poly) => poly.map((ring) => ring.map(pt))) }] : []),
       ...model.regions.map((r) => ({
         label: unicodeLabel(r.species),
         formula: r.species,
@@ -114,6 +115,14 @@ function unicodeLabel(text: string): string {
 }
 
 /** The read-out of an alloy region's verdict, naming the dissolving elements. */
+/** The HTML reading of the undetermined areas, by their cause (scene-iso.ts undeterminedCause). */
+function undeterminedReading(model: DiagramModel): string {
+  const cause = undeterminedCause(model);
+  if (cause === 'not solved') return 'the speciation could not be solved here';
+  if (cause === 'not resolved at this grid') return 'a gap between traced regions, not resolved at this grid (a finer grid shrinks it)';
+  return 'the speciation could not be solved here, or a gap between traced regions not resolved at this grid';
+}
+
 function alloyReading(v: NonNullable<DiagramModel['regions'][number]['alloyVerdict']>, dissolving: readonly string[]): string {
   if (v === 'partly-corroding') return `partly corroding: ${dissolving.join(', ')} ${dissolving.length > 1 ? 'dissolve' : 'dissolves'}, the rest stays solid`;
   return v === 'immune' ? 'immune (metals only)' : v === 'passive' ? 'passive (solids only, nothing dissolves)' : 'corroding (everything dissolves)';

@@ -4,6 +4,7 @@
  * main element, thin dashed lines in their own ink, each labelled with its level in mol/kg along
  * the line where the label fits), with their legend entries. Pure: no I/O.
  */
+import type { DiagramModel } from '../model.js';
 import { polylineLength } from './geometry.js';
 import { firstFree } from './labels.js';
 import { MIN_FONT_PT } from './options.js';
@@ -75,7 +76,15 @@ export function bathLegendEntries(b: SceneBase): LegendEntry[] {
     out.push({ kind: 'line', stroke: b.ink.iso, width: isoWidth(b), dash: isoDash(b.k), runs: plainRuns(`dissolved ${b.model.element} total, mol/kg`) });
   }
   if ((b.model.composition?.undetermined.length ?? 0) > 0) {
-    out.push({ kind: 'swatch', fill: b.ink.undetermined, runs: plainRuns('undetermined (not solved)') });
+    out.push({ kind: 'swatch', fill: b.ink.undetermined, runs: plainRuns(`undetermined (${undeterminedCause(b.model)})`) });
   }
   return out;
+}
+
+/** Why the undetermined areas are undetermined: failed points, gaps left near junctions, or both. */
+export function undeterminedCause(model: DiagramModel): string {
+  const c = model.composition;
+  const gaps = c?.unresolved ?? 0;
+  const failed = (c?.undetermined.length ?? 0) > gaps;
+  return failed && gaps ? 'not solved or not resolved' : gaps ? 'not resolved at this grid' : 'not solved';
 }

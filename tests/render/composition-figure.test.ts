@@ -40,6 +40,17 @@ describe('composition layers', () => {
     expect(d.regions[0]!.polygons[0]![0]![0]).toEqual([6, 0]);
     expect(d.regions[1]!.reading).toContain('largest share of Fe');
   });
+  it('names the cause of the undetermined areas: failed points, gaps left near junctions (issue 13), or both', () => {
+    const legendOf = (model: DiagramModel) => flat(buildScene({ model, options: opts({ width: 170 }) }).items)
+      .filter((i) => i.type === 'text' && i.role === 'legend-label').map((i) => (i.type === 'text' ? i.runs.map((r) => r.text).join('') : ''));
+    const base = bathModel();
+    const gapOnly: DiagramModel = { ...base, composition: { ...base.composition!, grid: { nx: 40, ny: 40, failed: 0 }, unresolved: 1 } };
+    expect(legendOf(gapOnly)).toContain('undetermined (not resolved at this grid)');
+    expect(pageData(buildScene({ model: gapOnly, options: opts({ width: 170 }) }), gapOnly).regions[0]!.reading).toContain('not resolved at this grid');
+    const square = base.composition!.undetermined[0]!;
+    const both: DiagramModel = { ...base, composition: { ...base.composition!, undetermined: [square, square], unresolved: 1 } };
+    expect(legendOf(both)).toContain('undetermined (not solved or not resolved)');
+  });
   it('level labels', () => {
     const txt = (v: number) => levelRuns(v).map((r) => (r.shift === 'sup' ? `^${r.text}` : r.text)).join('');
     expect(txt(1e-6)).toBe('10^\u22126');
