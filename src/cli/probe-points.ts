@@ -9,8 +9,11 @@
  * record: read the row, answer it
  * (analysis/points-answer.ts) and write its line, in input order, flushing after each input chunk;
  * 4. at the end: exit status 4 when some rows could not be answered (each says why in its `error`
- * column); with --strict the first bad row stops the run with exit status 2 and, for a file
- * output, nothing is written.
+ * column, or — composition mode — says status failed); with --strict the first bad row stops the
+ * run with exit status 2 and, for a file output, nothing is written.
+ *
+ * What answers a row is a RowAnswerer: the fixed-activity one here (analysis/points-answer.ts), or
+ * the composition-mode one (cli/probe-composition.ts).
  */
 import { createReadStream, statSync } from 'node:fs';
 import { EphmapError, InputError, PartialError } from '../errors.js';
@@ -18,7 +21,7 @@ import { CsvRecordReader, type CsvRecord, MAX_RECORD } from '../io/csv-records.j
 import { fileSink, type OutputSink, stdoutSink } from '../io/stream-output.js';
 import { refuseInputsAsOutputs, requireExtension } from '../io/path-safety.js';
 import { pointsAnswerer } from '../analysis/points-answer.js';
-import { type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsOutputRow, readPointRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
+import { type PointRow, type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsOutputRow, readPointRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { progressBar } from './progress.js';
@@ -50,13 +53,40 @@ function unitOf(option: string | undefined): PotentialUnit | undefined {
   throw new InputError('command line', '--unit', 'V or mV', option);
 }
 
+/**
+ * What answers the rows of a series: the output header for the input's (it may refuse the header
+ * with an InputError), one row's output line — `failed` when the line is written but holds no
+ * answer (counted for exit status 4, never stopped by --strict: the row itself is well formed) —
+ * or why the row cannot be answered, and the line written for such a row.
+ */
+export interface RowAnswerer {
+  header(h: PointsHeader, sep: string): string;
+  row(row: PointRow, sep: string): { text: string; failed?: boolean } | { error: string };
+  errorRow(extra: readonly string[], line: number, message: string, sep: string): string;
+  /** Where the output says why a row has no answer (the PartialError names it). */
+  failedIn?: string;
+}
+
+/** The fixed-activity answerer: `probe --ph --potential` on the diagram at each row's condition. */
+export function fixedActivityRows(spec: SystemSpec, ref: string | CustomReference | undefined, name: string): RowAnswerer {
+  const answerer = pointsAnswerer(spec, ref, name);
+  return {
+    header: pointsOutputHeader,
+    row(row, sep) {
+      const a = answerer.answer(row);
+      return 'error' in a ? a : { text: pointsOutputRow(row, a.scale, a.result, a.warnings, sep) };
+    },
+    errorRow: pointsErrorRow,
+  };
+}
+
 /** Step 3: each record to its output text (the header's, a row's answer, or a row's error). */
-function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: ReturnType<typeof pointsAnswerer>) {
+function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: RowAnswerer) {
   const st = { sep: ',', header: undefined as PointsHeader | undefined, rows: 0, failed: 0, lineFor };
   function failedRow(extra: string[], line: number, e: RowError, plain?: string): string {
     if (strict) throw plain !== undefined ? new InputError(name, `line ${line}`, 'a row the system can answer', plain) : new InputError(name, e.field, e.expected, e.got);
     st.failed++;
-    return pointsErrorRow(extra, line, plain ?? rowErrorText(e), st.sep);
+    return answerer.errorRow(extra, line, plain ?? rowErrorText(e), st.sep);
   }
   function lineFor(r: CsvRecord): string {
     if (r.fields.length === 1 && r.fields[0].trim() === '') return '';
@@ -65,7 +95,7 @@ function recordLines(name: string, unit: PotentialUnit | undefined, strict: bool
       if (r.fields[0].trimStart().startsWith('#')) return '';
       if (r.error) throw new InputError(name, `line ${r.line} (header)`, r.error);
       st.header = readPointsHeader(r.fields, name, unit);
-      return pointsOutputHeader(st.header, st.sep);
+      return answerer.header(st.header, st.sep);
     }
     // After the header every record is a row (a `#` line there is answered or refused, never dropped).
     st.rows++;
@@ -74,15 +104,19 @@ function recordLines(name: string, unit: PotentialUnit | undefined, strict: bool
     if (r.fields.length !== h.width) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
     const row = readPointRow(r.fields, r.line, h, st.sep !== ',');
     if (!('extra' in row)) return failedRow(extra, r.line, row);
-    const a = answerer.answer(row);
+    const a = answerer.row(row, st.sep);
     if ('error' in a) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: '' }, a.error);
-    return pointsOutputRow(row, a.scale, a.result, a.warnings, st.sep);
+    if (a.failed) st.failed++;
+    return a.text;
   }
   return st;
 }
 
-/** Runs the whole series (see the module comment). */
-export async function runPoints(file: string, spec: SystemSpec, ref: string | CustomReference | undefined, o: PointsOptions): Promise<void> {
+/**
+ * Runs the whole series (see the module comment); `rows` makes the answerer from the input's name
+ * (default: fixed activity).
+ */
+export async function runPoints(file: string, spec: SystemSpec, ref: string | CustomReference | undefined, o: PointsOptions, rows?: (name: string) => RowAnswerer): Promise<void> {
   const unit = unitOf(o.unit);
   if (o.delimiter !== undefined) separatorFor(o.delimiter, '');
   const name = o.points === '-' ? 'standard input' : o.points;
@@ -105,7 +139,7 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
   const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: 1 << 16 });
   (input as NodeJS.ReadableStream & { setEncoding(e: string): void }).setEncoding('utf8');
   const sink: OutputSink = toFile ? await fileSink(o.output!) : stdoutSink();
-  const answerer = pointsAnswerer(spec, ref, name);
+  const answerer = rows ? rows(name) : fixedActivityRows(spec, ref, name);
   const bar = progressBar(process.stderr, size);
   let reader: CsvRecordReader | undefined;
   let head = '';
@@ -155,5 +189,5 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
   }
   if (toFile) process.stdout.write(`wrote ${o.output} (${lines.rows} rows${lines.failed ? `, ${lines.failed} not answered` : ''})\n`);
   // Step 4.
-  if (lines.failed) throw new PartialError(`${lines.failed} of ${lines.rows} rows of ${name} could not be answered (see their error column)`);
+  if (lines.failed) throw new PartialError(`${lines.failed} of ${lines.rows} rows of ${name} could not be answered (see their ${answerer.failedIn ?? 'error column'})`);
 }

@@ -18,7 +18,7 @@ import { InputError } from '../system/errors.js';
 import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { checkOutputs, writeOne } from './outputs.js';
-import { probeComposition } from './probe-composition.js';
+import { compositionRows, probeComposition } from './probe-composition.js';
 
 const num = numberArg;
 
@@ -63,17 +63,15 @@ export function registerProbe(program: Command): void {
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
       if (opts.points !== undefined && (opts.ph !== undefined || opts.potential !== undefined)) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
       if (opts.points === undefined && (opts.ph === undefined || opts.potential === undefined)) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
-      if (spec.composition) {
-        if (opts.points !== undefined) checkOutputs(opts.output !== undefined ? [{ path: opts.output, option: '--output', extensions: ['.csv'] }] : [], [{ path: file, option: '<file>' }, { path: opts.points, option: '--points' }]);
-        return probeComposition(spec, opts, ref);
-      }
       if (opts.points !== undefined) {
-        await runPoints(file, spec, ref, { points: opts.points, output: opts.output, delimiter: opts.delimiter, unit: opts.unit, strict: opts.strict });
+        // A composition file answers each row from the bath as made up; the streaming is the same.
+        await runPoints(file, spec, ref, { points: opts.points, output: opts.output, delimiter: opts.delimiter, unit: opts.unit, strict: opts.strict }, spec.composition ? compositionRows(spec, ref) : undefined);
         return;
       }
       for (const [given, name] of [[opts.delimiter, '--delimiter'], [opts.unit, '--unit'], [opts.strict, '--strict']] as const) {
         if (given !== undefined) throw new InputError('command line', name, `${name} only with --points`);
       }
+      if (spec.composition) return probeComposition(spec, opts, ref);
       const at = pointComputer(spec);
       if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
       const pH = num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 });

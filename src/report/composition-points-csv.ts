@@ -1,24 +1,54 @@
 /**
- * `probe --points` rows in composition mode: per logged point the predominant form, its verdict
- * and the total dissolved element; `status` failed rows carry verdict `unknown`, no form and the
- * reason. The logged label is neutralised for spreadsheets (io/csv-cell.ts). Computes nothing.
+ * `probe --points` rows in composition mode (the bath as made up): per logged point the
+ * predominant form, its verdict and the total dissolved element. Layout as the fixed-activity rows
+ * (report/points-csv.ts): the carried input columns first (renamed `in_NAME` if they clash), then
+ * ours, the `error` column last; the separator is the input's. A `status` failed row carries
+ * verdict `unknown`, no form, no dissolved total and the solver's reason. User text (carried
+ * cells, messages) is neutralised for spreadsheets (io/csv-cell.ts). Computes nothing.
  */
 import type { CompositionProbeResult } from '../analysis/composition-probe.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
-import type { LabelledPointRow as PointRow } from './points-read.js';
+import { csvField } from '../io/csv-records.js';
+import { num8, type PointRow, type PointsHeader } from './points-csv.js';
 
-const HEAD = ['line', 'label', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'status', 'predominant', 'verdict', 'dissolved_mol_per_kg', 'threshold_mol_per_kg', 'reason'];
+const HEAD = ['line', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'status', 'predominant', 'verdict', 'dissolved_mol_per_kg', 'threshold_mol_per_kg', 'reason', 'warnings', 'error'];
 
-function cell(v: string | number | null | undefined): string {
-  if (v === null || v === undefined) return '';
-  const s = typeof v === 'number' ? String(Number(v.toPrecision(8))) : v;
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+function text(s: string, sep: string): string {
+  return csvField(neutraliseCsvCell(s), sep);
 }
 
-export function compositionPointsCsv(rows: { row: PointRow; scale: string; result: CompositionProbeResult }[]): string {
-  const out = [HEAD.join(',')];
-  for (const { row, scale, result: r } of rows) {
-    out.push([row.line, neutraliseCsvCell(row.label ?? ''), row.pH, row.potential, scale, r.E, r.temperature.celsius, r.status, r.predominant, r.verdict, r.dissolved, r.threshold, r.reason ?? ''].map(cell).join(','));
-  }
-  return `${out.join('\n')}\n`;
+/** The output header: the carried columns, then ours (`potential_mV` for a potential in mV). */
+export function compositionPointsHeader(h: PointsHeader, sep: string): string {
+  const names = h.extra.map((x) => (HEAD.includes(x.name) || x.name === 'potential_mV' ? `in_${x.name}` : x.name));
+  const ours = h.unit === 'mV' ? HEAD.map((n) => (n === 'potential' ? 'potential_mV' : n)) : HEAD;
+  return [...names.map((n) => text(n, sep)), ...ours].join(sep) + '\n';
+}
+
+/** One answered (or failed-to-solve) row; `warnings` are joined with " | ". */
+export function compositionPointsRow(row: PointRow, scale: string, r: CompositionProbeResult, warnings: readonly string[], sep: string): string {
+  const cells = row.extra.map((c) => text(c, sep));
+  cells.push(
+    String(row.line),
+    row.given.pH ?? num8(row.pH),
+    row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential),
+    csvField(scale, sep),
+    num8(r.E),
+    num8(r.temperature.celsius),
+    r.status,
+    csvField(r.predominant ?? '', sep),
+    r.verdict,
+    num8(r.dissolved),
+    num8(r.threshold),
+    text(r.reason ?? '', sep),
+    warnings.length ? text(warnings.join(' | '), sep) : '',
+    '',
+  );
+  return cells.join(sep) + '\n';
+}
+
+/** A row that could not be answered: carried columns, the line, and the error column. */
+export function compositionPointsErrorRow(extra: readonly string[], line: number, message: string, sep: string): string {
+  const cells = extra.map((c) => text(c, sep));
+  cells.push(String(line), ...Array<string>(HEAD.length - 2).fill(''), text(message, sep));
+  return cells.join(sep) + '\n';
 }

@@ -11,8 +11,9 @@ import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { compositionProbe } from '../../src/analysis/composition-probe.js';
 import { compositionSetup, speciationAt } from '../../src/diagram/composition-setup.js';
-import { probeComposition } from '../../src/cli/probe-composition.js';
-import { EXIT, exitStatusOf, UndeterminedError } from '../../src/errors.js';
+import { compositionRows, probeComposition } from '../../src/cli/probe-composition.js';
+import { runPoints } from '../../src/cli/probe-points.js';
+import { EXIT, exitStatusOf, PartialError, UndeterminedError } from '../../src/errors.js';
 import { findSpecies, loadLibrary } from '../../src/data/library.js';
 import { readSpec } from '../../src/system/spec.js';
 import { LN10, R } from '../../src/thermo/constants.js';
@@ -134,9 +135,11 @@ describe('probe --points in composition mode', () => {
     const r = await runCli(['probe', ag, '--points', log, '-o', out]);
     expect(r.code, r.stderr).toBe(0);
     const lines = readFileSync(out, 'utf8').trim().split('\n');
-    expect(lines[0]).toBe('line,label,pH,potential,scale,E_SHE_V,temperature_C,status,predominant,verdict,dissolved_mol_per_kg,threshold_mol_per_kg,reason');
-    expect(lines[1]).toMatch(/^2,'=cmd,12,0,SHE,0,25,ok,Ag\(CN\)2-,corrosion,0\.2,0\.000001,$/);
-    expect(lines[2]).toMatch(/^3,t2,12,-0\.5,SHE,-0\.5,25,ok,Ag,immunity,0\.035\d*,0\.000001,$/);
+    // The carried column first (neutralised), then ours, the error column last.
+    expect(lines[0]).toBe('time,line,pH,potential,scale,E_SHE_V,temperature_C,status,predominant,verdict,dissolved_mol_per_kg,threshold_mol_per_kg,reason,warnings,error');
+    // All 0.2 mol/kg Ag dissolved as Ag(CN)2- at pH 12, 0 V (the mass balance); the default threshold 1e-6.
+    expect(lines[1]).toMatch(/^'=cmd,2,12,0,SHE,0,25,ok,Ag\(CN\)2-,corrosion,0\.2,0\.000001,,[^,]*,$/);
+    expect(lines[2]).toMatch(/^t2,3,12,-0\.5,SHE,-0\.5,25,ok,Ag,immunity,0\.035\d*,0\.000001,,[^,]*,$/);
     expect(lines).toHaveLength(4);
   });
 });
@@ -178,14 +181,15 @@ describe('a failed solve on the command line: printed as failed, exit status 4',
     expect(j.reason).toMatch(/no convergence/);
     expect(exitStatusOf(err)).toBe(EXIT.partial);
   });
-  test('--points: every row written, failed rows say so; exit 4 naming the lines', async () => {
+  test('--points: every row written, failed rows say status failed; PartialError (exit 4)', async () => {
     const log = writeTmp(dir, 'log2.csv', 'pH,potential\n12,0\n10,0.3\n');
     const out = join(dir, 'out2.csv');
-    const { err } = await capture(() => probeComposition(spec, { points: log, output: out }, undefined, starved));
+    const { err } = await capture(() => runPoints(ag, spec, undefined, { points: log, output: out }, compositionRows(spec, undefined, starved)));
     const lines = readFileSync(out, 'utf8').trim().split('\n');
     expect(lines).toHaveLength(3);
-    for (const l of lines.slice(1)) expect(l).toMatch(/,failed,,unknown,,0\.000001,"?no convergence/);
-    expect(err).toBeInstanceOf(UndeterminedError);
-    expect((err as Error).message).toMatch(/2 of 2 points \(lines 2, 3\)/);
+    for (const l of lines.slice(1)) expect(l).toMatch(/,failed,,unknown,,0\.000001,"?no convergence[^,]*"?,[^,]*,$/);
+    expect(err).toBeInstanceOf(PartialError);
+    expect(exitStatusOf(err)).toBe(EXIT.partial);
+    expect((err as Error).message).toMatch(/2 of 2 rows .* status failed/);
   });
 });
