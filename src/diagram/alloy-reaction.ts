@@ -19,7 +19,7 @@
 import type { LineCoefficients } from '../model.js';
 import { speciesPotentialsAt } from '../solve/alloy/psi.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
-import { reactionText } from '../solve/reaction.js';
+import { type ReactionLine, reactionText } from '../solve/reaction.js';
 import type { SolverSpecies } from '../solve/types.js';
 import { lineEquationText } from './line-text.js';
 
@@ -28,15 +28,9 @@ export interface AssemblageAmounts {
   amounts: number[];
 }
 
-export interface AlloyReaction {
+export interface AlloyReaction extends ReactionLine {
   /** Signed coefficients of every term (negative: left side), after scaling. */
   terms: { formula: string; phase: string; nu: number; elements: Record<string, number>; charge: number }[];
-  water: number;
-  protons: number;
-  electrons: number;
-  text: string;
-  line: LineCoefficients;
-  equation: string;
 }
 
 const EPS = 1e-12;
