@@ -7,6 +7,7 @@
 import { shortSource } from './format.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
 import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
+import { collectPdf } from '../render/pdf-buffer.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
@@ -113,12 +114,7 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
     compress: true,
     info: { Title: d.title, Creator: 'ephmap', Producer: 'ephmap', CreationDate: new Date(Date.UTC(2000, 0, 1)) },
   });
-  const chunks: Buffer[] = [];
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('data', (c: Buffer) => chunks.push(c));
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
+  const done = collectPdf(doc);
   registerPdfFonts(doc);
   const w = new Writer(doc);
   doc.font(PDF_FACE.bold).fontSize(17).text(d.title, w.left, MARGIN, { width: w.width });
