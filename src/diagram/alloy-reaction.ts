@@ -13,7 +13,7 @@
  *     affine where the ligands' predominant species do not change, so its plane is read from three
  *     evaluations 1e-3 apart at the boundary point: E = −(g + p·pH)/e, or pH = −g/p when e = 0;
  *     E° (or log K) from g less RT ln10 Σ ν log10 a (every activity 1).
- * Reference: DESIGN §8; the same balancing as the single-element boundaries (src/solve/reaction.ts).
+ * Reference: DEVELOPERS.md ("The alloy kind"); the same balancing as the single-element boundaries (src/solve/reaction.ts).
  * Worked example (tested): Fe (alone) between Fe and Fe+2 → "Fe+2 + 2e- = Fe(s)", E = const.
  */
 import type { LineCoefficients } from '../model.js';

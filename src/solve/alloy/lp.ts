@@ -3,7 +3,7 @@
  *
  *   minimise  c·n   subject to   A n = b,  n ≥ 0          (A: m × N, m small, b > 0)
  *
- * Used for the assemblage of an alloy (DESIGN §8): rows are the main elements, columns the species,
+ * Used for the assemblage of an alloy (DEVELOPERS.md, "Alloys"): rows are the main elements, columns the species,
  * c the species' grand potentials. m is 1–6, N up to a few hundred, so the basis matrix is
  * factorised afresh (LU with partial pivoting, flat typed arrays) at every step — no drift.
  *
