@@ -78,6 +78,36 @@ export function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
   };
 }
 
+/**
+ * The system's species without those named under `exclude` (a formula with or without a phase tag,
+ * or a name). A name found nowhere is refused; one only absent from this system is a warning.
+ */
+function applyExclusions(spec: SystemSpec, list0: ResolvedSpecies[], lib: readonly LibrarySpecies[], warnings: string[]): ResolvedSpecies[] {
+  let list = list0;
+  const hadMain = list.some((s) => (s.f.elements[spec.element] ?? 0) > 0);
+  for (const ex of spec.exclude) {
+    const { formula, phase } = splitPhase(ex);
+    const before = list.length;
+    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
+    if (list.length === before) {
+      // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
+      // a name that matches nothing anywhere is most likely a typing error.
+      let known: LibrarySpecies | undefined;
+      try {
+        known = findSpecies(lib, ex);
+      } catch {
+        known = undefined;
+      }
+      if (!known) throw new InputError(spec.file, 'exclude', 'formulas or names of species in the system or the library', JSON.stringify(ex));
+      warnings.push(`exclude: ${ex} is not in this system; nothing left out`);
+    }
+  }
+  if (hadMain && !list.some((s) => (s.f.elements[spec.element] ?? 0) > 0)) {
+    throw new InputError(spec.file, 'exclude', `a list that leaves at least one species containing ${spec.element}`, `every species of ${spec.element} left out`);
+  }
+  return list;
+}
+
 export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { main: ResolvedSpecies[]; water: BuiltSystem['water'] } {
   const lib = loadLibrary();
   const ligandEls = Object.values(spec.ligandGroups).flatMap((g) => Object.keys(g));
@@ -129,28 +159,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
       water[key] = fromLibrary(hit, `library: ${key}`);
     }
   }
-  // Exclusions match a formula with or without a phase tag, or a name.
-  const hadMain = list.some((s) => (s.f.elements[spec.element] ?? 0) > 0);
-  for (const ex of spec.exclude) {
-    const { formula, phase } = splitPhase(ex);
-    const before = list.length;
-    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
-    if (list.length === before) {
-      // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
-      // a name that matches nothing anywhere is most likely a typing error.
-      let known: LibrarySpecies | undefined;
-      try {
-        known = findSpecies(lib, ex);
-      } catch {
-        known = undefined;
-      }
-      if (!known) throw new InputError(spec.file, 'exclude', 'formulas or names of species in the system or the library', JSON.stringify(ex));
-      warnings.push(`exclude: ${ex} is not in this system; nothing left out`);
-    }
-  }
-  if (hadMain && !list.some((s) => (s.f.elements[spec.element] ?? 0) > 0)) {
-    throw new InputError(spec.file, 'exclude', `a list that leaves at least one species containing ${spec.element}`, `every species of ${spec.element} left out`);
-  }
+  list = applyExclusions(spec, list, lib, warnings);
   // Alternatives from other compilations.
   for (const [formula, id] of Object.entries(spec.pick)) {
     const k = list.findIndex((s) => s.formula === splitPhase(formula).formula);
