@@ -13,13 +13,13 @@
  *     affine where the ligands' predominant species do not change, so its plane is read from three
  *     evaluations 1e-3 apart at the boundary point: E = −(g + p·pH)/e, or pH = −g/p when e = 0;
  *     E° (or log K) from g less RT ln10 Σ ν log10 a (every activity 1).
- * Reference: DESIGN §8; the same balancing as the single-element boundaries (src/solve/reaction.ts).
+ * Reference: DEVELOPERS.md ("The alloy kind"); the same balancing as the single-element boundaries (src/solve/reaction.ts).
  * Worked example (tested): Fe (alone) between Fe and Fe+2 → "Fe+2 + 2e- = Fe(s)", E = const.
  */
 import type { LineCoefficients } from '../model.js';
 import { speciesPotentialsAt } from '../solve/alloy/psi.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
-import { reactionText } from '../solve/reaction.js';
+import { type ReactionLine, reactionText } from '../solve/reaction.js';
 import type { SolverSpecies } from '../solve/types.js';
 import { lineEquationText } from './line-text.js';
 
@@ -28,15 +28,9 @@ export interface AssemblageAmounts {
   amounts: number[];
 }
 
-export interface AlloyReaction {
+export interface AlloyReaction extends ReactionLine {
   /** Signed coefficients of every term (negative: left side), after scaling. */
   terms: { formula: string; phase: string; nu: number; elements: Record<string, number>; charge: number }[];
-  water: number;
-  protons: number;
-  electrons: number;
-  text: string;
-  line: LineCoefficients;
-  equation: string;
 }
 
 const EPS = 1e-12;

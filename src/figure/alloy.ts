@@ -6,9 +6,9 @@
 import type { DiagramModel } from '../model.js';
 import type { FigureInput } from '../render/scene.js';
 import type { AlloySpec } from '../system/alloy-spec.js';
-import { referenceOffset } from '../thermo/reference.js';
 import { fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
 import type { FigureSettings } from './options.js';
+import { placeOperatingMarks } from './operating-marks.js';
 
 /** Dash patterns of the sweep layers, in turn (pt, scaled by the renderer's line width). */
 const SWEEP_DASHES = ['4 2', '1.5 1.5', '6 2 1.5 2', '8 3', '2 3'];
@@ -36,18 +36,7 @@ export function alloyCaption(model: DiagramModel): string[] {
 export function alloyFigureInput(model: DiagramModel, spec: AlloySpec, fig: FigureSettings, sweep: { label: string; model: DiagramModel }[] = []): FigureInput {
   const input: FigureInput = { model, options: fig.options };
   if (fig.options.show.caption) input.caption = alloyCaption(model);
-  const op = spec.base.operating;
-  const ref = op.reference;
-  const T = spec.base.temperature;
-  const she = (E: number, pH: number) => (ref === undefined ? E : E + referenceOffset(ref, T, pH).offset);
-  if (op.points.length) input.points = op.points.map((p) => ({ label: p.label, pH: p.pH, E: she(p.E, p.pH) }));
-  if (op.boxes.length) {
-    input.boxes = op.boxes.map((b) => {
-      const mid = (b.pH[0] + b.pH[1]) / 2;
-      return { label: b.label, pH: b.pH, E: [she(b.E[0], mid), she(b.E[1], mid)] as [number, number] };
-    });
-  }
-  if (op.paths.length) input.paths = op.paths.map((p) => ({ label: p.label, points: p.points.map(([x, y]) => [x, she(y, x)] as [number, number]) }));
+  placeOperatingMarks(input, spec.base.operating, spec.base.temperature);
   if (sweep.length) {
     input.baseLabel = `${compositionText(model.alloy!.composition)} (filled)`;
     input.overlays = sweep.map((s, i) => ({ label: s.label, model: s.model, dash: SWEEP_DASHES[i % SWEEP_DASHES.length] }));

@@ -11,7 +11,7 @@ import { familyBoundaries } from '../pipeline.js';
 import type { FigureInput } from '../render/scene.js';
 import type { FigureSettings } from './options.js';
 import type { DisplayedReference } from '../analysis/points.js';
-import { referenceOffset } from '../thermo/reference.js';
+import { placeOperatingMarks } from './operating-marks.js';
 import { elementAmountText, fmtCelsius, ligandAmountTexts, shortSource } from '../report/format.js';
 
 /** What a figure is composed from: a computed diagram of either kind (the fixed kind may carry its solver state). */
@@ -77,18 +77,7 @@ export function figureInput(c: Drawn, fig: FigureSettings): FigureInput {
   const input: FigureInput = { model: c.model, options: fig.options };
   if (fig.options.show.caption) input.caption = captionLines(c);
   if (fig.options.show.neutral && c.model.water) input.neutralPH = Number(c.model.water.neutralPH);
-  const ref = c.spec.operating.reference;
-  const T = c.spec.temperature;
-  const she = (E: number, pH: number) => (ref === undefined ? E : E + referenceOffset(ref, T, pH).offset);
-  const op = c.spec.operating;
-  if (op.points.length) input.points = op.points.map((p) => ({ label: p.label, pH: p.pH, E: she(p.E, p.pH) }));
-  if (op.boxes.length) {
-    input.boxes = op.boxes.map((b) => {
-      const mid = (b.pH[0] + b.pH[1]) / 2;
-      return { label: b.label, pH: b.pH, E: [she(b.E[0], mid), she(b.E[1], mid)] as [number, number] };
-    });
-  }
-  if (op.paths.length) input.paths = op.paths.map((p) => ({ label: p.label, points: p.points.map(([x, y]) => [x, she(y, x)] as [number, number]) }));
+  placeOperatingMarks(input, c.spec.operating, c.spec.temperature);
   if (c.model.reference && !fig.options.secondAxis) {
     fig.options.secondAxis = { label: `E / V vs ${c.model.reference.label}`, offset: c.model.reference.offset };
     input.options = fig.options;

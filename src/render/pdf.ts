@@ -5,6 +5,7 @@
  */
 import { runRise, runSize, runsWidth } from './metrics.js';
 import { faceOf, PDF_FACE, registerPdfFonts } from './fonts.js';
+import { collectPdf } from './pdf-buffer.js';
 import type { Scene, SceneItem, ScenePath, SceneText } from './scene-types.js';
 
 
@@ -119,12 +120,7 @@ export async function sceneToPdf(scene: Scene, opts: { creationDate?: Date } = {
       CreationDate: opts.creationDate ?? new Date(Date.UTC(2000, 0, 1)),
     },
   });
-  const chunks: Buffer[] = [];
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('data', (c: Buffer) => chunks.push(c));
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
+  const done = collectPdf(doc);
   registerPdfFonts(doc);
   doc.rect(0, 0, scene.widthPt, scene.heightPt).fill(scene.background);
   drawItems(doc, scene.items);

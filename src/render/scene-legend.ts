@@ -136,6 +136,20 @@ function swatchItems(r: { x: number; y: number; w: number; h: number }, tints: s
   return [...stripes, rectPath('legend-swatch-frame', r, { stroke: '#4d4d4d', strokeWidth: 0.35 })];
 }
 
+/** A line entry's sample from x to x + sw at height cy (legends of the diagram and of the shares plot). */
+export function legendLineSample(e: LegendEntry, x: number, sw: number, cy: number): SceneItem {
+  const st = dashStroke(e.dash ?? null, e.width!);
+  // A dotted sample starts and ends inside the swatch width (round caps reach half a width out).
+  const inset = st.lineCap === 'round' ? e.width! / 2 : 0;
+  return line('legend-line', [[[x + inset, cy], [x + sw - inset, cy]]], e.stroke!, e.width!, st.dash, { lineCap: st.lineCap });
+}
+
+/** An entry's label, starting at tx, its text centred on cy. */
+export function legendLabel(e: LegendEntry, tx: number, cy: number, size: number, fill: string): SceneItem {
+  const base = baselineForCentre(e.runs, size, cy);
+  return text('legend-label', e.runs, tx, base, size, 'start', fill, { box: textBox(e.runs, size, tx, base, 'start') });
+}
+
 /**
  * Legend rows below the x-axis title: sample (swatch or line) then label, left to right. `fills`
  * (the regions' fills, as drawn) lets each swatch show every tint its group uses.
@@ -154,14 +168,9 @@ export function legendItems(ctx: SceneContext, fills: readonly (string | null)[]
         const s = legSize * 0.95;
         out.push(...swatchItems({ x, y: cy - s / 2, w: sw, h: s }, swatchTints(ctx, e, fills)));
       } else {
-        const st = dashStroke(e.dash ?? null, e.width!);
-        // A dotted sample starts and ends inside the swatch width (round caps reach half a width out).
-        const inset = st.lineCap === 'round' ? e.width! / 2 : 0;
-        out.push(line('legend-line', [[[x + inset, cy], [x + sw - inset, cy]]], e.stroke!, e.width!, st.dash, { lineCap: st.lineCap }));
+        out.push(legendLineSample(e, x, sw, cy));
       }
-      const tx = x + sw + 0.4 * legSize;
-      const base = baselineForCentre(e.runs, legSize, cy);
-      out.push(text('legend-label', e.runs, tx, base, legSize, 'start', ink.text, { box: textBox(e.runs, legSize, tx, base, 'start') }));
+      out.push(legendLabel(e, x + sw + 0.4 * legSize, cy, legSize, ink.text));
       x += entryW(e, legSize) + bands.legGap * legSize;
     }
   });

@@ -7,12 +7,11 @@
 import type { SharesData } from '../analysis/shares.js';
 import { FigureFitError } from '../errors.js';
 import { niceTicks, type Tick } from './axes.js';
-import { baselineForCentre, textBox } from './labels.js';
 import { CAP_HEIGHT, FONT_SAFETY, runsWidth, stringWidth } from './metrics.js';
 import { MIN_FONT_PT, mmToPt, validateOptions, type FigureOptions } from './options.js';
 import { inks, toGray } from './palette.js';
 import { dashStroke, line, parseDash, PROSE_SAFETY, rectPath, text, wrapText, type LegendEntry } from './scene-context.js';
-import { CAUTION, legendRows } from './scene-legend.js';
+import { CAUTION, legendLabel, legendLineSample, legendRows } from './scene-legend.js';
 import type { Point, Rect, Scene, SceneItem, TextRun } from './scene-types.js';
 import { formulaRuns, plainRuns, quantityRuns, runsUnicode } from './typeset.js';
 
@@ -197,14 +196,9 @@ function noteItems(L: SharesLayout): SceneItem[] {
     for (const e of row) {
       const sw = e.kind === 'swatch' ? legSize * 1.1 : legSize * 2.6;
       if (e.kind === 'swatch') items.push(rectPath('legend-swatch', { x, y: cy - legSize * 0.475, w: sw, h: legSize * 0.95 }, { fill: e.fill ?? null, stroke: '#4d4d4d', strokeWidth: 0.35 }));
-      else {
-        const st = dashStroke(e.dash ?? null, e.width!);
-        const inset = st.lineCap === 'round' ? e.width! / 2 : 0;
-        items.push(line('legend-line', [[[x + inset, cy], [x + sw - inset, cy]]], e.stroke!, e.width!, st.dash, { lineCap: st.lineCap }));
-      }
+      else items.push(legendLineSample(e, x, sw, cy));
       const tx = x + sw + 0.4 * legSize;
-      const base = baselineForCentre(e.runs, legSize, cy);
-      items.push(text('legend-label', e.runs, tx, base, legSize, 'start', ink.text, { box: textBox(e.runs, legSize, tx, base, 'start') }));
+      items.push(legendLabel(e, tx, cy, legSize, ink.text));
       x = tx + runsWidth(e.runs, legSize) * PROSE_SAFETY + 1.4 * legSize;
     }
   });

@@ -78,6 +78,42 @@ export function reportHtml(d: ReportData, svg: string, caption: string[]): strin
   ])));
   o.push(table(['water line', 'reaction', 'line'], d.waterLines.map((w) => [esc(w.couple), code(w.reaction), esc(w.equation)])));
 
+  pointsSection(d, o);
+
+  if (d.envelopes.length) {
+    o.push('<h2>Envelopes and paths</h2>');
+    o.push('<p>Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here — see the figure.</p>');
+    o.push(`<ul>${d.envelopes.map((e) => `<li>${esc(envelopeText(e))}</li>`).join('')}</ul>`);
+  }
+
+  windowSection(d, o);
+
+  o.push('<h2>Data sources</h2>');
+  o.push(`<ul>\n${d.sources.map((s) => `<li>${esc(s)}</li>`).join('\n')}\n</ul>`);
+  o.push(table(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
+    code(s.formula),
+    esc(s.phase),
+    esc(s.name),
+    esc(s.role),
+    esc(s.origin),
+    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
+    esc(shortSource(s.source)),
+  ])));
+  o.push('<p>\u201cRecalled from memory\u201d: the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.</p>');
+
+  o.push('<h2>Warnings</h2>');
+  o.push(d.warnings.length ? `<ul>\n${d.warnings.map((w) => `<li>${esc(w)}</li>`).join('\n')}\n</ul>` : '<p>None.</p>');
+
+  o.push('<h2>Cautions</h2>');
+  for (const c of d.cautions) o.push(`<p class="caution">${esc(c)}</p>`);
+  o.push(`<p><b>${esc(d.closing)}</b></p>`);
+  o.push('</body>');
+  o.push('</html>');
+  return `${o.join('\n')}\n`;
+}
+
+/** The "Operating points" section: speciation tables, or the verdict table with one item per point. */
+function pointsSection(d: ReportData, o: string[]): void {
   o.push('<h2>Operating points</h2>');
   if (d.speciation) {
     o.push(`<p>${esc(d.speciation.intro)}</p>`);
@@ -110,13 +146,10 @@ export function reportHtml(d: ReportData, svg: string, caption: string[]): strin
     }
     o.push('</ul>');
   }
+}
 
-  if (d.envelopes.length) {
-    o.push('<h2>Envelopes and paths</h2>');
-    o.push('<p>Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here — see the figure.</p>');
-    o.push(`<ul>${d.envelopes.map((e) => `<li>${esc(envelopeText(e))}</li>`).join('')}</ul>`);
-  }
-
+/** The "Plating window" section, where the system asks for it. */
+function windowSection(d: ReportData, o: string[]): void {
   if (d.window) {
     const w = d.window;
     o.push('<h2>Plating window</h2>');
@@ -130,27 +163,4 @@ export function reportHtml(d: ReportData, svg: string, caption: string[]): strin
     o.push(`<p>${w.firstSolid ? `First solid above the window: ${code(w.firstSolid.species)} from pH ${esc(w.firstSolid.pH.toFixed(2))}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).')}</p>`);
     o.push(`<ul>${w.notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>`);
   }
-
-  o.push('<h2>Data sources</h2>');
-  o.push(`<ul>\n${d.sources.map((s) => `<li>${esc(s)}</li>`).join('\n')}\n</ul>`);
-  o.push(table(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
-    code(s.formula),
-    esc(s.phase),
-    esc(s.name),
-    esc(s.role),
-    esc(s.origin),
-    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
-    esc(shortSource(s.source)),
-  ])));
-  o.push('<p>\u201cRecalled from memory\u201d: the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.</p>');
-
-  o.push('<h2>Warnings</h2>');
-  o.push(d.warnings.length ? `<ul>\n${d.warnings.map((w) => `<li>${esc(w)}</li>`).join('\n')}\n</ul>` : '<p>None.</p>');
-
-  o.push('<h2>Cautions</h2>');
-  for (const c of d.cautions) o.push(`<p class="caution">${esc(c)}</p>`);
-  o.push(`<p><b>${esc(d.closing)}</b></p>`);
-  o.push('</body>');
-  o.push('</html>');
-  return `${o.join('\n')}\n`;
 }

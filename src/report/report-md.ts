@@ -41,6 +41,47 @@ export function reportMarkdown(d: ReportData, figureFile: string, caption: strin
   ])));
   para(mdTable(['water line', 'reaction', 'line'], d.waterLines.map((w) => [w.couple, mdCode(w.reaction), mdEsc(w.equation)])));
 
+  pointsSection(d, out);
+
+  if (d.envelopes.length) {
+    para('## Envelopes and paths');
+    para('Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here — see the figure.');
+    for (const e of d.envelopes) out.push(`- ${mdEsc(envelopeText(e))}`);
+    out.push('');
+  }
+
+  windowSection(d, out);
+
+  para('## Data sources');
+  for (const s of d.sources) out.push(`- ${mdEsc(s)}`);
+  out.push('');
+  para(mdTable(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
+    mdCode(s.formula),
+    s.phase,
+    mdEsc(s.name),
+    s.role,
+    s.origin,
+    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
+    mdEsc(shortSource(s.source)),
+  ])));
+  para('\u201cRecalled from memory\u201d: the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.');
+
+  para('## Warnings');
+  if (!d.warnings.length) para('None.');
+  else {
+    for (const w of d.warnings) out.push(`- ${mdEsc(w)}`);
+    out.push('');
+  }
+
+  para('## Cautions');
+  for (const c of d.cautions) para(mdEsc(c));
+  para(`**${mdEsc(d.closing)}**`);
+  return `${out.join('\n').replace(/\n+$/, '')}\n`;
+}
+
+/** The "Operating points" section: speciation tables, or the verdict table with one line per point. */
+function pointsSection(d: ReportData, out: string[]): void {
+  const para = (s: string) => out.push(s, '');
   para('## Operating points');
   if (d.speciation) {
     para(mdEsc(d.speciation.intro));
@@ -70,14 +111,11 @@ export function reportMarkdown(d: ReportData, figureFile: string, caption: strin
     }
     out.push('');
   }
+}
 
-  if (d.envelopes.length) {
-    para('## Envelopes and paths');
-    para('Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here — see the figure.');
-    for (const e of d.envelopes) out.push(`- ${mdEsc(envelopeText(e))}`);
-    out.push('');
-  }
-
+/** The "Plating window" section, where the system asks for it. */
+function windowSection(d: ReportData, out: string[]): void {
+  const para = (s: string) => out.push(s, '');
   if (d.window) {
     const w = d.window;
     para('## Plating window');
@@ -92,30 +130,4 @@ export function reportMarkdown(d: ReportData, figureFile: string, caption: strin
     for (const n of w.notes) out.push(`- ${mdEsc(n)}`);
     out.push('');
   }
-
-  para('## Data sources');
-  for (const s of d.sources) out.push(`- ${mdEsc(s)}`);
-  out.push('');
-  para(mdTable(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
-    mdCode(s.formula),
-    s.phase,
-    mdEsc(s.name),
-    s.role,
-    s.origin,
-    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
-    mdEsc(shortSource(s.source)),
-  ])));
-  para('\u201cRecalled from memory\u201d: the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.');
-
-  para('## Warnings');
-  if (!d.warnings.length) para('None.');
-  else {
-    for (const w of d.warnings) out.push(`- ${mdEsc(w)}`);
-    out.push('');
-  }
-
-  para('## Cautions');
-  for (const c of d.cautions) para(mdEsc(c));
-  para(`**${mdEsc(d.closing)}**`);
-  return `${out.join('\n').replace(/\n+$/, '')}\n`;
 }

@@ -7,6 +7,7 @@
 import { shortSource } from './format.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
 import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
+import { collectPdf } from '../render/pdf-buffer.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
@@ -113,12 +114,7 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
     compress: true,
     info: { Title: d.title, Creator: 'ephmap', Producer: 'ephmap', CreationDate: new Date(Date.UTC(2000, 0, 1)) },
   });
-  const chunks: Buffer[] = [];
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('data', (c: Buffer) => chunks.push(c));
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
+  const done = collectPdf(doc);
   registerPdfFonts(doc);
   const w = new Writer(doc);
   doc.font(PDF_FACE.bold).fontSize(17).text(d.title, w.left, MARGIN, { width: w.width });
@@ -161,6 +157,42 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
   ]), [0.14, 0.34, 0.14, 0.27, 0.11]);
   w.table(['water line', 'reaction', 'line'], d.waterLines.map((x) => [x.couple, x.reaction, x.equation]), [0.16, 0.44, 0.4]);
 
+  pointsSection(d, w);
+
+  if (d.envelopes.length) {
+    w.heading('Envelopes and paths');
+    w.para('Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here - see the figure.');
+    w.bullets(d.envelopes.map(envelopeText));
+  }
+
+  windowSection(d, w);
+
+  w.heading('Data sources');
+  w.bullets(d.sources);
+  w.table(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
+    s.formula,
+    s.phase,
+    s.name,
+    s.role,
+    s.origin,
+    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
+    shortSource(s.source),
+  ]), [0.11, 0.07, 0.25, 0.09, 0.12, 0.14, 0.22]);
+  w.para('"Recalled from memory": the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.', { size: SMALL });
+
+  w.heading('Warnings');
+  if (!d.warnings.length) w.para('None.');
+  else w.bullets(d.warnings);
+
+  w.heading('Cautions');
+  for (const c of d.cautions) w.para(c);
+  w.para(d.closing, { bold: true });
+  doc.end();
+  return done;
+}
+
+/** The "Operating points" section: speciation tables, or the verdict table with one bullet per point. */
+function pointsSection(d: ReportData, w: Writer): void {
   w.heading('Operating points');
   if (d.speciation) {
     w.para(d.speciation.intro);
@@ -188,13 +220,10 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
       return `${p.label}: ${p.result.advice}${cr.length ? ` Crossings: ${cr.join('; ')}.` : ''}${p.result.nearestBoundary ? ` Nearest boundary: ${p.result.nearestBoundary.reaction} (${p.result.nearestBoundary.equation}).` : ''}`;
     }));
   }
+}
 
-  if (d.envelopes.length) {
-    w.heading('Envelopes and paths');
-    w.para('Each envelope is answered at its four corners and its centre, each path at its points (exactly, as for operating points); a field crossed between samples is not reported here - see the figure.');
-    w.bullets(d.envelopes.map(envelopeText));
-  }
-
+/** The "Plating window" section, where the system asks for it. */
+function windowSection(d: ReportData, w: Writer): void {
   if (d.window) {
     const win = d.window;
     w.heading('Plating window');
@@ -208,27 +237,4 @@ export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figur
     w.para(win.firstSolid ? `First solid above the window: ${win.firstSolid.species} from pH ${win.firstSolid.pH.toFixed(2)}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).'));
     w.bullets(win.notes);
   }
-
-  w.heading('Data sources');
-  w.bullets(d.sources);
-  w.table(['species', 'phase', 'name', 'role', 'from', 'recalled from memory', 'source (full citations above)'], d.species.map((s) => [
-    s.formula,
-    s.phase,
-    s.name,
-    s.role,
-    s.origin,
-    s.recalled === null ? 'not stated' : s.recalled ? 'yes' : 'no',
-    shortSource(s.source),
-  ]), [0.11, 0.07, 0.25, 0.09, 0.12, 0.14, 0.22]);
-  w.para('"Recalled from memory": the library marks these values as recalled rather than read from the cited table just now; check them against the source before relying on them.', { size: SMALL });
-
-  w.heading('Warnings');
-  if (!d.warnings.length) w.para('None.');
-  else w.bullets(d.warnings);
-
-  w.heading('Cautions');
-  for (const c of d.cautions) w.para(c);
-  w.para(d.closing, { bold: true });
-  doc.end();
-  return done;
 }

@@ -26,15 +26,19 @@ export interface Participant {
   phi0: Plane;
 }
 
-export interface BalancedReaction {
-  /** Species coefficients, products positive, in the reduction direction. */
-  terms: { formula: string; phase: string; nu: number }[];
+/** What every balanced reaction carries beside its species terms: H2O, H+, e− and the line. */
+export interface ReactionLine {
   water: number;
   protons: number;
   electrons: number;
   text: string;
   line: LineCoefficients;
   equation: string;
+}
+
+export interface BalancedReaction extends ReactionLine {
+  /** Species coefficients, products positive, in the reduction direction. */
+  terms: { formula: string; phase: string; nu: number }[];
 }
 
 /**

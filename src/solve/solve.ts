@@ -15,7 +15,7 @@ import type { BoundaryModel, Polygon, TriplePoint, WaterLine } from '../model.js
 import { F, LN10, R } from '../thermo/constants.js';
 import { type ConvexPoly, type Pt, rectangle, signedArea } from './clip.js';
 import { lowerEnvelope } from './envelope.js';
-import { mergePieces, type MergeInput } from './merge.js';
+import { mergePieces, type MergeInput, type MergeResult } from './merge.js';
 import type { Plane } from './plane.js';
 import { ligandPsiPlane, mainPsiPlane } from './ligand-psi.js';
 import { formationPlane, type WaterContext } from './potentials.js';
@@ -97,11 +97,7 @@ export function solve(input: SolverInput): Solution {
   });
   // Step 4: regions and boundaries.
   const merged = mergePieces(pieces);
-  const regions = [...merged.regions.entries()].map(([index, polygons]) => ({
-    index,
-    polygons,
-    area: polygons.reduce((s, p) => s + p.reduce((t, r) => t + signedArea(r), 0), 0),
-  }));
+  const regions = regionsWithArea(merged.regions);
   // Step 5: reactions per boundary run.
   const part = (k: number): Participant => ({ sp: input.species[k], phi: phi[k], phi0: phi0[k] });
   const ligPart = (m: number, k: number): Participant => ({
@@ -141,7 +137,20 @@ export function solve(input: SolverInput): Solution {
     }
   }
   boundaries.sort(compareBoundaries);
-  // Triple points: welded vertices touched by boundaries of three or more species.
+  const triplePoints = triplePointsOf(merged, input);
+  // Ligand underlay regions.
+  const ligandRegions = input.ligands.map((L, m) => {
+    const lm = mergePieces(cells.map((cell, c) => ({ owner: cell.species[m], cell: c, pts: cell.poly.pts })));
+    return {
+      element: L.element,
+      regions: regionsWithArea(lm.regions),
+    };
+  });
+  return { regions, boundaries, triplePoints, waterLines: waterLines(input), ligandRegions, cells, phi, ligandPhi };
+}
+
+/** Triple points: welded vertices touched by boundaries of three or more species, by pH then E. */
+function triplePointsOf(merged: MergeResult, input: SolverInput): TriplePoint[] {
   const touch = new Map<number, Set<number>>();
   for (const be of merged.boundaries) {
     for (const v of [be.u, be.v]) {
@@ -158,19 +167,16 @@ export function solve(input: SolverInput): Solution {
     }
   }
   triplePoints.sort((p, q) => p.pH - q.pH || p.E - q.E);
-  // Ligand underlay regions.
-  const ligandRegions = input.ligands.map((L, m) => {
-    const lm = mergePieces(cells.map((cell, c) => ({ owner: cell.species[m], cell: c, pts: cell.poly.pts })));
-    return {
-      element: L.element,
-      regions: [...lm.regions.entries()].map(([index, polygons]) => ({
-        index,
-        polygons,
-        area: polygons.reduce((s, p) => s + p.reduce((t, r) => t + signedArea(r), 0), 0),
-      })),
-    };
-  });
-  return { regions, boundaries, triplePoints, waterLines: waterLines(input), ligandRegions, cells, phi, ligandPhi };
+  return triplePoints;
+}
+
+/** Each merged region (owner index → polygons) with its total area, in the map's order. */
+function regionsWithArea(regions: MergeResult['regions']): { index: number; polygons: Polygon[]; area: number }[] {
+  return [...regions.entries()].map(([index, polygons]) => ({
+    index,
+    polygons,
+    area: polygons.reduce((s, p) => s + p.reduce((t, r) => t + signedArea(r), 0), 0),
+  }));
 }
 
 /** Ligands (indices) whose atom count per M atom differs between species a and b. */

@@ -16,6 +16,9 @@ import { type Carried, type CarryContext, carrySpecies } from './carry.js';
 import { InputError } from './errors.js';
 import type { SystemSpec } from './spec.js';
 import { type Amount, molality, type SolutionAtT, solutionAt } from './solution.js';
+import { groupElements, placeSpecies, speciesActivity } from './species-placement.js';
+
+export { groupElements } from './species-placement.js';
 
 /** A species resolved to data, before activities. */
 export interface ResolvedSpecies extends ThermoData {
@@ -75,6 +78,36 @@ export function fromLibrary(s: LibrarySpecies, field: string): ResolvedSpecies {
   };
 }
 
+/**
+ * The system's species without those named under `exclude` (a formula with or without a phase tag,
+ * or a name). A name found nowhere is refused; one only absent from this system is a warning.
+ */
+function applyExclusions(spec: SystemSpec, list0: ResolvedSpecies[], lib: readonly LibrarySpecies[], warnings: string[]): ResolvedSpecies[] {
+  let list = list0;
+  const hadMain = list.some((s) => (s.f.elements[spec.element] ?? 0) > 0);
+  for (const ex of spec.exclude) {
+    const { formula, phase } = splitPhase(ex);
+    const before = list.length;
+    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
+    if (list.length === before) {
+      // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
+      // a name that matches nothing anywhere is most likely a typing error.
+      let known: LibrarySpecies | undefined;
+      try {
+        known = findSpecies(lib, ex);
+      } catch {
+        known = undefined;
+      }
+      if (!known) throw new InputError(spec.file, 'exclude', 'formulas or names of species in the system or the library', JSON.stringify(ex));
+      warnings.push(`exclude: ${ex} is not in this system; nothing left out`);
+    }
+  }
+  if (hadMain && !list.some((s) => (s.f.elements[spec.element] ?? 0) > 0)) {
+    throw new InputError(spec.file, 'exclude', `a list that leaves at least one species containing ${spec.element}`, `every species of ${spec.element} left out`);
+  }
+  return list;
+}
+
 export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { main: ResolvedSpecies[]; water: BuiltSystem['water'] } {
   const lib = loadLibrary();
   const ligandEls = Object.values(spec.ligandGroups).flatMap((g) => Object.keys(g));
@@ -126,28 +159,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
       water[key] = fromLibrary(hit, `library: ${key}`);
     }
   }
-  // Exclusions match a formula with or without a phase tag, or a name.
-  const hadMain = list.some((s) => (s.f.elements[spec.element] ?? 0) > 0);
-  for (const ex of spec.exclude) {
-    const { formula, phase } = splitPhase(ex);
-    const before = list.length;
-    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
-    if (list.length === before) {
-      // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
-      // a name that matches nothing anywhere is most likely a typing error.
-      let known: LibrarySpecies | undefined;
-      try {
-        known = findSpecies(lib, ex);
-      } catch {
-        known = undefined;
-      }
-      if (!known) throw new InputError(spec.file, 'exclude', 'formulas or names of species in the system or the library', JSON.stringify(ex));
-      warnings.push(`exclude: ${ex} is not in this system; nothing left out`);
-    }
-  }
-  if (hadMain && !list.some((s) => (s.f.elements[spec.element] ?? 0) > 0)) {
-    throw new InputError(spec.file, 'exclude', `a list that leaves at least one species containing ${spec.element}`, `every species of ${spec.element} left out`);
-  }
+  list = applyExclusions(spec, list, lib, warnings);
   // Alternatives from other compilations.
   for (const [formula, id] of Object.entries(spec.pick)) {
     const k = list.findIndex((s) => s.formula === splitPhase(formula).formula);
@@ -202,25 +214,6 @@ function keepMixedLigand(spec: SystemSpec, grouped: Record<string, number>): boo
 }
 
 /**
- * Element counts with each group ligand (e.g. CN → {C: 1, N: 1}) replaced by its own count, or null
- * when a species holds a group's elements in other proportions (not whole units of the group).
- */
-export function groupElements(elements: Record<string, number>, groups: Record<string, Record<string, number>>): Record<string, number> | null {
-  const out: Record<string, number> = { ...elements };
-  for (const [key, comp] of Object.entries(groups)) {
-    const els = Object.keys(comp);
-    if (els.length === 1 && els[0] === key) continue;
-    const present = els.filter((e) => (out[e] ?? 0) > 0);
-    if (present.length === 0) continue;
-    const k = (out[els[0]] ?? 0) / comp[els[0]];
-    if (!(k > 0) || !els.every((e) => Math.abs((out[e] ?? 0) - k * comp[e]) < 1e-9)) return null;
-    for (const e of els) delete out[e];
-    out[key] = k;
-  }
-  return out;
-}
-
-/**
  * Carry a species to T (carry.ts). A species that cannot be carried (an inline species with only
  * ΔfG°) stays in the system as 'undetermined': its 25 °C ΔfG° is used for the GEOMETRY only (where
  * its field would lie if G did not change with T), its region is marked undetermined and gets no
@@ -266,45 +259,10 @@ export function buildSystem(spec: SystemSpec): BuiltSystem {
   const ligandSpecies = new Map<string, SolverSpecies[]>(ligandEls.map((L) => [L, []]));
   const sources = new Set<string>();
   for (const s0 of resolved) {
-    const grouped = groupElements(s0.f.elements, spec.ligandGroups);
-    if (!grouped) {
-      const g = Object.keys(spec.ligandGroups).find((k) => Object.keys(spec.ligandGroups[k]).some((e) => s0.f.elements[e]));
-      throw new InputError(spec.file, `${s0.field} (${s0.formula})`, `whole units of the ligand group ${g}`);
-    }
-    const s: ResolvedSpecies = { ...s0, f: { ...s0.f, elements: grouped } };
-    const els = Object.keys(s.f.elements);
-    const bad = els.find((e) => !allowed.has(e));
-    if (bad && groupEls.has(bad)) {
-      throw new InputError(spec.file, `${s.field} (${s.formula})`, `whole units of a ligand group (${Object.keys(spec.ligandGroups).filter((k) => spec.ligandGroups[k][bad]).join(', ')})`);
-    }
-    if (bad) {
-      throw new InputError(spec.file, `${s.field} (${s.formula})`, `only ${[...allowed].join(', ')} (add ${bad} under ligands to use it)`, `element ${bad}`);
-    }
-    const hasMain = (s.f.elements[spec.element] ?? 0) > 0;
-    const lig = [...ligandEls].reverse().find((L) => (s.f.elements[L] ?? 0) > 0);
-    if (!hasMain && !lig) {
-      throw new InputError(spec.file, `${s.field} (${s.formula})`, `a species containing ${spec.element}${ligandEls.length ? ` or a ligand (${ligandEls.join(', ')})` : ''}`);
-    }
+    const { s, hasMain, lig } = placeSpecies(spec, s0, allowed, groupEls, ligandEls);
     const carried = gAt(s, spec, ctx, warnings);
     const G = carried.G;
-    let act: number | undefined;
-    let logA = 0;
-    let lg: number | undefined;
-    let mol: number | undefined;
-    if (s.phase === 'aq') {
-      const given: Amount & { isDefault?: boolean } =
-        s.activity !== undefined
-          ? { kind: 'activity', value: s.activity }
-          : s.concentration ?? (hasMain ? spec.amount : spec.ligandAmounts[lig!]);
-      const d = dissolved(given, s.f.charge, s.concentration ? s.formula : hasMain ? spec.element : lig!);
-      act = d.act;
-      lg = d.logGamma;
-      mol = d.molality;
-      logA = Math.log10(act);
-    } else if (s.phase === 'g') {
-      act = s.pressure ?? 1;
-      logA = Math.log10(act);
-    }
+    const { act, logA, lg, mol } = speciesActivity(spec, s, hasMain, lig, dissolved);
     const sv: SolverSpecies = {
       formula: s.formula,
       phase: s.phase,

@@ -150,37 +150,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   }
   const solution = readSolutionSettings(f, comp ? comp.rest : o);
 
-  // User maps are built without a prototype (and their keys checked by f.entries).
-  const ligands: Record<string, number> = Object.create(null);
-  const ligandAmounts: Record<string, Amount> = Object.create(null);
-  const ligandGroups: Record<string, Record<string, number>> = Object.create(null);
-  if (o.ligands !== undefined) {
-    for (const [k, v] of f.entries(o.ligands, 'ligands', 'a map of element symbol → total activity, e.g. {S: 1e-3}')) {
-      const what = 'an element symbol (e.g. S, C, Cl, N) or a neutral group formula such as CN as key';
-      let comp: Record<string, number>;
-      if (isElement(k)) comp = { [k]: 1 };
-      else {
-        try {
-          const g = parseFormula(k);
-          if (g.charge !== 0 || Object.keys(g.elements).length < 2) f.fail(`ligands.${k}`, what, k);
-          comp = g.elements;
-        } catch (e) {
-          if (e instanceof FormulaError) f.fail(`ligands.${k}`, what, k);
-          throw e;
-        }
-      }
-      for (const el of Object.keys(comp)) {
-        if (el === element || el === 'H' || el === 'O') f.fail(`ligands.${k}`, 'a ligand without the main element, H or O', k);
-        for (const [other, oc] of Object.entries(ligandGroups)) {
-          if (oc[el]) f.fail(`ligands.${k}`, `ligands that share no element (${el} is already in ${other})`, k);
-        }
-      }
-      ligandGroups[k] = comp;
-      const a = readAmount(f, v, `ligands.${k}`);
-      ligandAmounts[k] = a;
-      ligands[k] = a.value;
-    }
-  }
+  const { ligands, ligandAmounts, ligandGroups } = readLigands(f, o.ligands, element);
 
   if (comp) {
     // Composition mode: the ligands are the composition's; their totals stand in as amounts.
@@ -201,19 +171,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   const E = f.range(o.E, 'E', [-2, 2], { min: -5, max: 5, unit: 'V vs SHE' });
   const exclude = o.exclude === undefined ? [] : f.stringList(o.exclude, 'exclude');
 
-  let species: InlineSpecies[] | undefined;
-  if (o.species !== undefined) {
-    const list = f.list(o.species, 'species', 2000);
-    if (list.length === 0) f.fail('species', 'a non-empty list of species (or leave the key out to use the built-in library)', list);
-    species = list.map((s, k) => readSpecies(f, s, `species[${k}]`, warnings));
-    const seen = new Map<string, string>();
-    for (const s of species) {
-      if (s.fromLibrary) continue;
-      const key = `${s.formula}|${s.phase}`;
-      if (seen.has(key)) f.fail(s.field, `each species once; ${s.formula} (${s.phase}) is already given at ${seen.get(key)}`, s.formula);
-      seen.set(key, s.field);
-    }
-  }
+  const species = o.species === undefined ? undefined : readSpeciesList(f, o.species, warnings);
 
   let gases = { H2: 1, O2: 1 };
   if (o.gases !== undefined) {
@@ -250,6 +208,57 @@ export function readSpec(data: unknown, file: string): SystemSpec {
     if (o[k] !== undefined) extra[k] = o[k];
   }
   return { file, element, temperature, pressure, activity, amount, ligands, ligandAmounts, ligandGroups, ligandSpecies, solution, operating: readOperating(f, extra), pH, E, exclude, species, gases, metastable, assumeConstantG, pick, extrapolation, title, grid, extra, warnings, ...(comp ? { composition: comp.composition } : {}) };
+}
+
+/** The `ligands` map: element or neutral group → amount, with each group's composition (no shared element). */
+function readLigands(f: Fields, raw: unknown, element: string): { ligands: Record<string, number>; ligandAmounts: Record<string, Amount>; ligandGroups: Record<string, Record<string, number>> } {
+  // User maps are built without a prototype (and their keys checked by f.entries).
+  const ligands: Record<string, number> = Object.create(null);
+  const ligandAmounts: Record<string, Amount> = Object.create(null);
+  const ligandGroups: Record<string, Record<string, number>> = Object.create(null);
+  if (raw !== undefined) {
+    for (const [k, v] of f.entries(raw, 'ligands', 'a map of element symbol → total activity, e.g. {S: 1e-3}')) {
+      const what = 'an element symbol (e.g. S, C, Cl, N) or a neutral group formula such as CN as key';
+      let comp: Record<string, number>;
+      if (isElement(k)) comp = { [k]: 1 };
+      else {
+        try {
+          const g = parseFormula(k);
+          if (g.charge !== 0 || Object.keys(g.elements).length < 2) f.fail(`ligands.${k}`, what, k);
+          comp = g.elements;
+        } catch (e) {
+          if (e instanceof FormulaError) f.fail(`ligands.${k}`, what, k);
+          throw e;
+        }
+      }
+      for (const el of Object.keys(comp)) {
+        if (el === element || el === 'H' || el === 'O') f.fail(`ligands.${k}`, 'a ligand without the main element, H or O', k);
+        for (const [other, oc] of Object.entries(ligandGroups)) {
+          if (oc[el]) f.fail(`ligands.${k}`, `ligands that share no element (${el} is already in ${other})`, k);
+        }
+      }
+      ligandGroups[k] = comp;
+      const a = readAmount(f, v, `ligands.${k}`);
+      ligandAmounts[k] = a;
+      ligands[k] = a.value;
+    }
+  }
+  return { ligands, ligandAmounts, ligandGroups };
+}
+
+/** The inline `species` list: each entry read, and every formula+phase given once. */
+function readSpeciesList(f: Fields, raw: unknown, warnings: string[]): InlineSpecies[] {
+  const list = f.list(raw, 'species', 2000);
+  if (list.length === 0) f.fail('species', 'a non-empty list of species (or leave the key out to use the built-in library)', list);
+  const species = list.map((s, k) => readSpecies(f, s, `species[${k}]`, warnings));
+  const seen = new Map<string, string>();
+  for (const s of species) {
+    if (s.fromLibrary) continue;
+    const key = `${s.formula}|${s.phase}`;
+    if (seen.has(key)) f.fail(s.field, `each species once; ${s.formula} (${s.phase}) is already given at ${seen.get(key)}`, s.formula);
+    seen.set(key, s.field);
+  }
+  return species;
 }
 
 function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[]): InlineSpecies {

@@ -2,7 +2,7 @@
 import { describe, expect, test } from 'vitest';
 import { contourRings } from '../../src/solve/trace/contour.js';
 import { refineCrossing } from '../../src/solve/trace/refine.js';
-import { solveDense } from '../../src/solve/speciation/linalg.js';
+import { solveDense } from '../../src/solve/linalg.js';
 import { speciationIonicStrength } from '../../src/solve/speciation/gamma.js';
 import type { SpeciationProblem } from '../../src/solve/speciation/problem.js';
 

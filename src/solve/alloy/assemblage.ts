@@ -1,6 +1,6 @@
 /**
  * The assemblage of an alloy at one (pH, E): the phases and dissolved species (at their threshold
- * activities) that minimise the grand potential of the bulk composition (DESIGN §8, issue 18).
+ * activities) that minimise the grand potential of the bulk composition (DEVELOPERS.md, "Alloys"; issue 18).
  *
  * Steps:
  *  1. ψ'_k of every species at the point (psi.ts);

@@ -3,7 +3,7 @@
  *
  *   minimise  c·n   subject to   A n = b,  n ≥ 0          (A: m × N, m small, b > 0)
  *
- * Used for the assemblage of an alloy (DESIGN §8): rows are the main elements, columns the species,
+ * Used for the assemblage of an alloy (DEVELOPERS.md, "Alloys"): rows are the main elements, columns the species,
  * c the species' grand potentials. m is 1–6, N up to a few hundred, so the basis matrix is
  * factorised afresh (LU with partial pivoting, flat typed arrays) at every step — no drift.
  *
@@ -25,6 +25,10 @@
  * New finite pivoting rules for the simplex method, Math. Oper. Res. 2, 103–107.
  * Worked example (tested): A = [[1,0,1],[0,1,2]], b = [1,2], c = [0,0,−1] → n = [0,0,1], c·n = −1.
  */
+import { luFactor, luSolve, luSolveT, type PivotTest } from '../linalg.js';
+
+/** A basis pivot at or below 1e-12·max(1, its column's largest entry) makes the basis singular. */
+const LP_PIVOT: PivotTest = { tol: 1e-12 };
 
 export interface LpProblem {
   /** Constraint rows, m × N (row-major: A[i][j]). */
@@ -64,66 +68,6 @@ export class LpError extends Error {
   }
 }
 
-/** In-place LU factorisation with partial pivoting of the m × m row-major matrix `a`; false if singular. */
-function luFactor(a: Float64Array, m: number, perm: Int32Array): boolean {
-  for (let i = 0; i < m; i++) perm[i] = i;
-  for (let k = 0; k < m; k++) {
-    let p = k;
-    let scale = 1;
-    for (let i = k; i < m; i++) {
-      const v = Math.abs(a[i * m + k]);
-      if (v > Math.abs(a[p * m + k])) p = i;
-      if (v > scale) scale = v;
-    }
-    if (Math.abs(a[p * m + k]) <= 1e-12 * scale) return false;
-    if (p !== k) {
-      for (let j = 0; j < m; j++) {
-        const t = a[p * m + j];
-        a[p * m + j] = a[k * m + j];
-        a[k * m + j] = t;
-      }
-      const t = perm[p];
-      perm[p] = perm[k];
-      perm[k] = t;
-    }
-    const piv = a[k * m + k];
-    for (let i = k + 1; i < m; i++) {
-      const f = (a[i * m + k] /= piv);
-      if (f !== 0) for (let j = k + 1; j < m; j++) a[i * m + j] -= f * a[k * m + j];
-    }
-  }
-  return true;
-}
-
-/** Solves (P·B) = L·U: B x = r, into `out`. */
-function luSolve(a: Float64Array, m: number, perm: Int32Array, r: ArrayLike<number>, out: Float64Array): void {
-  for (let i = 0; i < m; i++) {
-    let s = r[perm[i]];
-    for (let j = 0; j < i; j++) s -= a[i * m + j] * out[j];
-    out[i] = s;
-  }
-  for (let i = m - 1; i >= 0; i--) {
-    let s = out[i];
-    for (let j = i + 1; j < m; j++) s -= a[i * m + j] * out[j];
-    out[i] = s / a[i * m + i];
-  }
-}
-
-/** Solves Bᵀ y = r with the factors of B (P·B = L·U ⇒ Bᵀ = Uᵀ·Lᵀ·P), into `out`. */
-function luSolveT(a: Float64Array, m: number, perm: Int32Array, r: ArrayLike<number>, out: Float64Array, tmp: Float64Array): void {
-  for (let i = 0; i < m; i++) {
-    let s = r[i];
-    for (let j = 0; j < i; j++) s -= a[j * m + i] * tmp[j];
-    tmp[i] = s / a[i * m + i];
-  }
-  for (let i = m - 1; i >= 0; i--) {
-    let s = tmp[i];
-    for (let j = i + 1; j < m; j++) s -= a[j * m + i] * tmp[j];
-    tmp[i] = s;
-  }
-  for (let i = 0; i < m; i++) out[perm[i]] = tmp[i];
-}
-
 /** Minimises c·n subject to A n = b, n ≥ 0 (see module comment). Throws LpError on bad input. */
 export function solveLp(lp: LpProblem): LpSolution {
   const m = lp.b.length;
@@ -149,7 +93,7 @@ export function solveLp(lp: LpProblem): LpSolution {
   for (;;) {
     // Step 2: factorise B, basic values x = B⁻¹b, duals Bᵀy = c_B, reduced costs.
     for (let i = 0; i < m; i++) for (let k = 0; k < m; k++) lu[i * m + k] = A[i][basis[k]];
-    if (!luFactor(lu, m, perm)) throw new LpError('singular basis');
+    if (!luFactor(lu, m, perm, LP_PIVOT)) throw new LpError('singular basis');
     luSolve(lu, m, perm, lp.b, x);
     if (pivots === 0) for (let i = 0; i < m; i++) if (x[i] < -1e-12) throw new LpError('the starting basis is infeasible');
     for (let k = 0; k < m; k++) cB[k] = c[basis[k]];

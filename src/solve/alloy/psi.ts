@@ -1,6 +1,6 @@
 /**
  * The grand potential ψ'_k of each species of an alloy system at one (pH, E), per mole of species,
- * with the main elements' atoms as the only constraints (DESIGN §2, §8):
+ * with the main elements' atoms as the only constraints (DEVELOPERS.md, "Alloys"):
  *
  *   ψ'_k = Φ_k(pH, E) − Σ_L k_{k,L}·μ_L(pH, E)                                   [kJ/mol]
  *

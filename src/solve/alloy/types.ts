@@ -1,5 +1,5 @@
 /**
- * Input of the alloy point solver (DESIGN §8, issue 18): like the single-element SolverInput, but
+ * Input of the alloy point solver (DEVELOPERS.md, "Alloys"; issue 18): like the single-element SolverInput, but
  * with several main elements and the bulk composition (mole fractions) of the alloy. Built by
  * src/system/alloy-build.ts; consumed by src/solve/alloy only.
  */

@@ -8,10 +8,10 @@
  * Jacobian: ∂r_c/∂u_d = ln10·Σ_aq A_ic A_id m_i/T_c, ∂r_c/∂λ_s = A_sc/T_c, ∂r_s/∂u_d = A_sd.
  * These are the optimality conditions of the convex dual of Gibbs-energy minimisation (λ are the
  * multipliers of the saturation constraints), so a damped Newton step is a descent direction.
- * Steps: 1. residual and Jacobian; 2. solve (linalg.ts); 3. cap the step at `maxStep` log units;
+ * Steps: 1. residual and Jacobian; 2. solve (../linalg.ts); 3. cap the step at `maxStep` log units;
  * 4. backtracking line search on the merit ½Σr²; stop at max|r| ≤ tol.
  */
-import { solveDense } from './linalg.js';
+import { type DenseScratch, solveDense } from '../linalg.js';
 import type { SpeciationProblem } from './problem.js';
 
 export interface NewtonOptions {
@@ -30,11 +30,13 @@ export interface NewtonWork {
   d: Float64Array;
   u0: Float64Array;
   l0: Float64Array;
+  /** Scratch of the dense solve. */
+  solve: DenseScratch;
 }
 
 export function newtonWork(P: SpeciationProblem): NewtonWork {
   const n = P.components.length * 2 + 1;
-  return { m: new Float64Array(P.species.length), r: new Float64Array(n), J: new Float64Array(n * n), d: new Float64Array(n), u0: new Float64Array(n), l0: new Float64Array(n) };
+  return { m: new Float64Array(P.species.length), r: new Float64Array(n), J: new Float64Array(n * n), d: new Float64Array(n), u0: new Float64Array(n), l0: new Float64Array(n), solve: { perm: new Int32Array(n), x: new Float64Array(n) } };
 }
 
 /** Dissolved molalities for u (into w.m); returns false on overflow. */
@@ -108,7 +110,7 @@ export function newtonSolve(
     for (let k = 0; k < active.length; k++) for (let d = 0; d < nc; d++) w.J[(nc + k) * n + d] = P.A[active[k] * nc + d];
     // Step 2: Newton direction.
     for (let k = 0; k < n; k++) w.d[k] = -w.r[k];
-    if (!solveDense(w.J, w.d, n)) return { ok: false, reason: 'singular Jacobian (the assemblage breaks the phase rule or a component has no species)', iterations: it };
+    if (!solveDense(w.J, w.d, n, undefined, w.solve)) return { ok: false, reason: 'singular Jacobian (the assemblage breaks the phase rule or a component has no species)', iterations: it };
     // Step 3: cap the step in u.
     let big = 0;
     for (let c = 0; c < nc; c++) big = Math.max(big, Math.abs(w.d[c]));

@@ -27,6 +27,26 @@ export function gridY(g: { ny: number; y: [number, number] }, j: number): number
   return g.y[0] + ((g.y[1] - g.y[0]) * j) / (g.ny - 1);
 }
 
+/** A grid edge a–b crossed by a contour: both node positions and the warm start (the labelled end's state). */
+export interface GridEdge<S> {
+  xa: number;
+  ya: number;
+  xb: number;
+  yb: number;
+  warm: S;
+}
+
+/** The edge between node indices a and b (i + j·nx) of `g`. */
+export function gridEdge<S>(g: GridSample<S>, a: number, b: number): GridEdge<S> {
+  return {
+    xa: gridX(g, a % g.nx),
+    ya: gridY(g, Math.floor(a / g.nx)),
+    xb: gridX(g, b % g.nx),
+    yb: gridY(g, Math.floor(b / g.nx)),
+    warm: g.label[a] >= 0 ? g.states[a] : g.states[b],
+  };
+}
+
 export function sampleGrid<S>(field: TraceField<S>, x: [number, number], y: [number, number], nx: number, ny: number): GridSample<S> {
   const L = field.labels;
   const label = new Int32Array(nx * ny);

@@ -6,7 +6,7 @@
  */
 import { contourRings } from './contour.js';
 import type { TraceField } from './field.js';
-import type { GridSample } from './grid.js';
+import { gridEdge, type GridSample } from './grid.js';
 import { refineCrossing } from './refine.js';
 
 export function traceIsoLines<S>(field: TraceField<S>, g: GridSample<S>, level: number, tolT = 1e-8): [number, number][][] {
@@ -20,11 +20,7 @@ export function traceIsoLines<S>(field: TraceField<S>, g: GridSample<S>, level: 
         if (v.frame || v.a === undefined) return null;
         const a = v.a;
         const b = v.b!;
-        const xa = g.x[0] + ((g.x[1] - g.x[0]) * (a % g.nx)) / (g.nx - 1);
-        const ya = g.y[0] + ((g.y[1] - g.y[0]) * Math.floor(a / g.nx)) / (g.ny - 1);
-        const xb = g.x[0] + ((g.x[1] - g.x[0]) * (b % g.nx)) / (g.nx - 1);
-        const yb = g.y[0] + ((g.y[1] - g.y[0]) * Math.floor(b / g.nx)) / (g.ny - 1);
-        const warm = g.label[a] >= 0 ? g.states[a] : g.states[b];
+        const { xa, ya, xb, yb, warm } = gridEdge(g, a, b);
         const phi = (t: number) => {
           const v1 = field.value!(field.solve(xa + (xb - xa) * t, ya + (yb - ya) * t, warm));
           return (Number.isFinite(v1) ? v1 : floor) - level;

@@ -11,7 +11,7 @@
  */
 import { argmax, marginOf, type TraceField } from './field.js';
 import { contourRings, type ContourVertex } from './contour.js';
-import type { GridSample } from './grid.js';
+import { gridEdge, type GridSample } from './grid.js';
 import { refineCrossing } from './refine.js';
 
 export interface TracedRegion {
@@ -120,11 +120,7 @@ function refineVertex<S>(field: TraceField<S>, g: GridSample<S>, f: number, v: C
   if (v.frame || v.a === undefined) return { x: v.x, y: v.y, nb: -2 };
   const a = v.a;
   const b = v.b!;
-  const xa = g.x[0] + ((g.x[1] - g.x[0]) * (a % g.nx)) / (g.nx - 1);
-  const ya = g.y[0] + ((g.y[1] - g.y[0]) * Math.floor(a / g.nx)) / (g.ny - 1);
-  const xb = g.x[0] + ((g.x[1] - g.x[0]) * (b % g.nx)) / (g.nx - 1);
-  const yb = g.y[0] + ((g.y[1] - g.y[0]) * Math.floor(b / g.nx)) / (g.ny - 1);
-  const warm = g.label[a] >= 0 ? g.states[a] : g.states[b];
+  const { xa, ya, xb, yb, warm } = gridEdge(g, a, b);
   const at = (t: number): [number, number] => [xa + (xb - xa) * t, ya + (yb - ya) * t];
   const c = refineCrossing((t) => marginAt(...at(t), warm), m[a], m[b], opt.tolT);
   const [x, y] = at(c.t);
