@@ -53,9 +53,12 @@ function unitOf(option: string | undefined): PotentialUnit | undefined {
 /** Step 3: each record to its output text (the header's, a row's answer, or a row's error). */
 function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: ReturnType<typeof pointsAnswerer>) {
   const st = { sep: ',', header: undefined as PointsHeader | undefined, rows: 0, failed: 0, lineFor };
-  function failedRow(extra: string[], line: number, e: RowError, plain?: string): string {
+  function failedRow(r: CsvRecord, e: RowError, plain?: string): string {
+    const line = r.line;
     if (strict) throw plain !== undefined ? new InputError(name, `line ${line}`, 'a row the system can answer', plain) : new InputError(name, e.field, e.expected, e.got);
     st.failed++;
+    // The carried cells, taken only for a failed row (an answered row carries them in `row.extra`).
+    const extra = st.header!.extra.map((x) => r.fields[x.index] ?? '');
     return pointsErrorRow(extra, line, plain ?? rowErrorText(e), st.sep);
   }
   function lineFor(r: CsvRecord): string {
@@ -69,13 +72,12 @@ function recordLines(name: string, unit: PotentialUnit | undefined, strict: bool
     }
     // After the header every record is a row (a `#` line there is answered or refused, never dropped).
     st.rows++;
-    const extra = h.extra.map((x) => r.fields[x.index] ?? '');
-    if (r.error) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: r.error });
-    if (r.fields.length !== h.width) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
+    if (r.error) return failedRow(r, { field: `line ${r.line}`, expected: r.error });
+    if (r.fields.length !== h.width) return failedRow(r, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
     const row = readPointRow(r.fields, r.line, h, st.sep !== ',');
-    if (!('extra' in row)) return failedRow(extra, r.line, row);
+    if (!('extra' in row)) return failedRow(r, row);
     const a = answerer.answer(row);
-    if ('error' in a) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: '' }, a.error);
+    if ('error' in a) return failedRow(r, { field: `line ${r.line}`, expected: '' }, a.error);
     return pointsOutputRow(row, a.scale, a.result, a.warnings, st.sep);
   }
   return st;
