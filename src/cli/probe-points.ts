@@ -31,6 +31,14 @@ export interface PointsOptions {
   strict?: boolean;
 }
 
+/**
+ * Input chunk (bytes) and output batch (characters): small, so that a chunk's records and the rows
+ * written from them are dropped by the young-generation collector instead of being promoted
+ * (10⁶ rows: peak RSS ~145 MB with 64 kB chunks, ~95 MB with 8 kB; the same CPU time).
+ */
+const IN_CHUNK = 1 << 13;
+const OUT_BATCH = 1 << 16;
+
 const SEPARATORS: Record<string, string> = { ',': ',', ';': ';', tab: '\t', '\t': '\t' };
 
 function separatorFor(option: string | undefined, headerLine: string): string {
@@ -104,7 +112,7 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
       throw new InputError(o.points, '', 'a readable CSV file', 'a path that is not a readable file');
     }
   }
-  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: 1 << 16 });
+  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: IN_CHUNK });
   (input as NodeJS.ReadableStream & { setEncoding(e: string): void }).setEncoding('utf8');
   const sink: OutputSink = toFile ? await fileSink(o.output!) : stdoutSink();
   const answerer = pointsAnswerer(spec, ref, name);
@@ -130,8 +138,16 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
         reader.push(head, records);
         head = '';
       } else reader.push(chunk, records);
+      // Written in batches of at most ~OUT_BATCH characters, whatever the input chunk's size
+      // (standard input comes in pipe-sized chunks): row strings die young, memory stays flat.
       let text = '';
-      for (const r of records) text += lines.lineFor(r);
+      for (const r of records) {
+        text += lines.lineFor(r);
+        if (text.length >= OUT_BATCH) {
+          await sink.write(text);
+          text = '';
+        }
+      }
       records.length = 0;
       if (text) await sink.write(text);
       bar.update(bytes, lines.rows);
