@@ -89,12 +89,17 @@ function pointVerdict(element: string, sp: SolverSpecies, classes: Record<string
   return verdictOf(classify(element, sp), sp.formula, classes);
 }
 
-/** Per system: the ψ evaluator, a scratch array and each species' class and verdict (built once). */
+/**
+ * Per system: the ψ evaluator, a scratch array, each species' class and verdict, and what the
+ * answer holds that does not depend on the point (threshold amount, metric text), built once.
+ */
 interface ProbeContext {
   psi: PsiEvaluator;
   buf: Float64Array;
   classes: RegionClass[];
   verdicts: PointVerdict[];
+  amount?: GivenAmount;
+  metric: string;
 }
 const contexts = new WeakMap<Computed, ProbeContext>();
 
@@ -108,6 +113,8 @@ function contextOf(c: Computed): ProbeContext {
       buf: new Float64Array(input.species.length),
       classes,
       verdicts: input.species.map((sp) => pointVerdict(input.element, sp, c.spec.operating.classes)),
+      amount: c.model.amounts ? thresholdAmount(c) : undefined,
+      metric: metricText(input.kelvin),
     };
     contexts.set(c, ctx);
   }
@@ -152,10 +159,8 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     lowerPH: cross(g.left, 1, 0),
     raisePH: cross(g.right, 1, 0),
   };
-  const dE = [g.up?.shift, g.down?.shift].filter((v): v is number => v !== undefined);
-  const dP = [g.left?.shift, g.right?.shift].filter((v): v is number => v !== undefined);
-  const nearestE = dE.length ? dE.reduce((a, b) => (Math.abs(b) < Math.abs(a) ? b : a)) : null;
-  const nearestP = dP.length ? dP.reduce((a, b) => (Math.abs(b) < Math.abs(a) ? b : a)) : null;
+  const nearestE = nearerShift(g.up?.shift, g.down?.shift);
+  const nearestP = nearerShift(g.left?.shift, g.right?.shift);
   const cls = ctx.classes[k1];
   const verdict = ctx.verdicts[k1];
   const warnings = [...c.model.warnings];
@@ -171,13 +176,13 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     class: cls,
     verdict,
     threshold: c.model.activity,
-    ...(c.model.amounts ? { amount: thresholdAmount(c) } : {}),
+    ...(ctx.amount ? { amount: ctx.amount } : {}),
     runnerUp: second ? second.formula : null,
     margin,
     ligandSpecies,
     crossings,
     distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP },
-    nearestBoundary: nb ? nearestOf(g.nearest!, input.kelvin) : null,
+    nearestBoundary: nb ? nearestOf(g.nearest!, ctx.metric) : null,
     advice: '',
     warnings,
   };
@@ -215,16 +220,27 @@ function thresholdAmount(c: Computed): GivenAmount {
   return a.kind === 'activity' && a.isDefault && molal ? { kind: 'molality', value: a.value, molality: a.value, isDefault: true } : a;
 }
 
-/** The nearest boundary in the plane, with its metric stated. */
-function nearestOf(n: NonNullable<ReturnType<typeof probeGeometry>['nearest']>, kelvin: number): NonNullable<ProbeResult['nearestBoundary']> {
-  const b = n.boundary;
+/** The smaller in size of two signed shifts (the first on a tie), or null when neither exists. */
+function nearerShift(a: number | undefined, b: number | undefined): number | null {
+  if (a === undefined) return b ?? null;
+  return b !== undefined && Math.abs(b) < Math.abs(a) ? b : a;
+}
+
+/** The metric of the nearest-boundary distance at T (kelvin), in words. */
+function metricText(kelvin: number): string {
   const s = nernstSlope(kelvin) * 1000;
+  return `shortest distance in the (pH, E) plane, 1 pH counted as ${s.toFixed(2)} mV (RT ln10/F at T)`;
+}
+
+/** The nearest boundary in the plane, with its metric stated. */
+function nearestOf(n: NonNullable<ReturnType<typeof probeGeometry>['nearest']>, metric: string): NonNullable<ProbeResult['nearestBoundary']> {
+  const b = n.boundary;
   return {
     between: b.between,
     reaction: b.reaction,
     equation: b.equation,
     at: { pH: n.at[0], E: n.at[1] },
-    distance: { value: n.distanceV * 1000, unit: 'mV', metric: `shortest distance in the (pH, E) plane, 1 pH counted as ${s.toFixed(2)} mV (RT ln10/F at T)` },
+    distance: { value: n.distanceV * 1000, unit: 'mV', metric },
   };
 }
 

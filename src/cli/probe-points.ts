@@ -34,6 +34,14 @@ export interface PointsOptions {
   strict?: boolean;
 }
 
+/**
+ * Input chunk (bytes) and output batch (characters): small, so that a chunk's records and the rows
+ * written from them are dropped by the young-generation collector instead of being promoted
+ * (10⁶ rows: peak RSS ~145 MB with 64 kB chunks, ~105 MB with 8 kB; the same CPU time).
+ */
+const IN_CHUNK = 1 << 13;
+const OUT_BATCH = 1 << 16;
+
 const SEPARATORS: Record<string, string> = { ',': ',', ';': ';', tab: '\t', '\t': '\t' };
 
 function separatorFor(option: string | undefined, headerLine: string): string {
@@ -83,9 +91,12 @@ export function fixedActivityRows(spec: SystemSpec, ref: string | CustomReferenc
 /** Step 3: each record to its output text (the header's, a row's answer, or a row's error). */
 function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: RowAnswerer) {
   const st = { sep: ',', header: undefined as PointsHeader | undefined, rows: 0, failed: 0, lineFor };
-  function failedRow(extra: string[], line: number, e: RowError, plain?: string): string {
+  function failedRow(r: CsvRecord, e: RowError, plain?: string): string {
+    const line = r.line;
     if (strict) throw plain !== undefined ? new InputError(name, `line ${line}`, 'a row the system can answer', plain) : new InputError(name, e.field, e.expected, e.got);
     st.failed++;
+    // The carried cells, taken only for a failed row (an answered row carries them in `row.extra`).
+    const extra = st.header!.extra.map((x) => r.fields[x.index] ?? '');
     return answerer.errorRow(extra, line, plain ?? rowErrorText(e), st.sep);
   }
   function lineFor(r: CsvRecord): string {
@@ -99,13 +110,12 @@ function recordLines(name: string, unit: PotentialUnit | undefined, strict: bool
     }
     // After the header every record is a row (a `#` line there is answered or refused, never dropped).
     st.rows++;
-    const extra = h.extra.map((x) => r.fields[x.index] ?? '');
-    if (r.error) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: r.error });
-    if (r.fields.length !== h.width) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
+    if (r.error) return failedRow(r, { field: `line ${r.line}`, expected: r.error });
+    if (r.fields.length !== h.width) return failedRow(r, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
     const row = readPointRow(r.fields, r.line, h, st.sep !== ',');
-    if (!('extra' in row)) return failedRow(extra, r.line, row);
+    if (!('extra' in row)) return failedRow(r, row);
     const a = answerer.row(row, st.sep);
-    if ('error' in a) return failedRow(extra, r.line, { field: `line ${r.line}`, expected: '' }, a.error);
+    if ('error' in a) return failedRow(r, { field: `line ${r.line}`, expected: '' }, a.error);
     if (a.failed) st.failed++;
     return a.text;
   }
@@ -136,7 +146,7 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
       throw new InputError(o.points, '', 'a readable CSV file', 'a path that is not a readable file');
     }
   }
-  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: 1 << 16 });
+  const input: NodeJS.ReadableStream = o.points === '-' ? process.stdin : createReadStream(o.points, { highWaterMark: IN_CHUNK });
   (input as NodeJS.ReadableStream & { setEncoding(e: string): void }).setEncoding('utf8');
   const sink: OutputSink = toFile ? await fileSink(o.output!) : stdoutSink();
   const answerer = rows ? rows(name) : fixedActivityRows(spec, ref, name);
@@ -162,8 +172,16 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
         reader.push(head, records);
         head = '';
       } else reader.push(chunk, records);
+      // Written in batches of at most ~OUT_BATCH characters, whatever the input chunk's size
+      // (standard input comes in pipe-sized chunks): row strings die young, memory stays flat.
       let text = '';
-      for (const r of records) text += lines.lineFor(r);
+      for (const r of records) {
+        text += lines.lineFor(r);
+        if (text.length >= OUT_BATCH) {
+          await sink.write(text);
+          text = '';
+        }
+      }
       records.length = 0;
       if (text) await sink.write(text);
       bar.update(bytes, lines.rows);

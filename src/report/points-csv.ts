@@ -260,14 +260,18 @@ export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, wa
   );
 }
 
-/** Cells from a small set (formulas, reactions, scales): quoted once each, then looked up. */
-const FIXED = new Map<string, string>();
+/**
+ * Cells from a small set (formulas, reactions, scales): quoted once each, then looked up — one map
+ * per separator, keyed by the cell itself (no key string built per row).
+ */
+const FIXED = new Map<string, Map<string, string>>();
 function fixed(s: string, sep: string): string {
-  const key = sep + s;
-  let v = FIXED.get(key);
+  let bySep = FIXED.get(sep);
+  if (bySep === undefined) FIXED.set(sep, (bySep = new Map()));
+  let v = bySep.get(s);
   if (v === undefined) {
     v = csvField(s, sep);
-    if (FIXED.size < 10_000) FIXED.set(key, v);
+    if (bySep.size < 10_000) bySep.set(s, v);
   }
   return v;
 }
