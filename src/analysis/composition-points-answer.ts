@@ -11,13 +11,12 @@
  *  3. compositionProbe solves the speciation at the point; a failed solve comes back as status
  *     failed, verdict unknown (the caller writes it and counts it as not answered).
  */
-import { EphmapError } from '../errors.js';
 import { compositionSetup, type CompositionSetup } from '../diagram/composition-setup.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { compositionProbe, type CompositionProbeResult } from './composition-probe.js';
-import { MAX_CONDITIONS, type PointQuery } from './points-answer.js';
-import { toShe } from './points.js';
+import type { PointQuery } from './points-answer.js';
+import { conditionCache, orError, rowOnShe } from './row-conditions.js';
 
 export type CompositionPointAnswer = { scale: string; result: CompositionProbeResult; warnings: string[] } | { error: string };
 
@@ -33,37 +32,18 @@ export function compositionPointsAnswerer(
   file: string,
   make: (spec: SystemSpec) => CompositionSetup = (s) => compositionSetup(s),
 ): { answer: (q: PointQuery) => CompositionPointAnswer } {
-  const cache = new Map<number, Setup>();
-  const setupAt = (celsius: number): Setup => {
-    // Step 1: most recently used last.
-    let k = cache.get(celsius);
-    if (k) {
-      cache.delete(celsius);
-      cache.set(celsius, k);
-      return k;
-    }
-    try {
-      k = { s: make({ ...spec, temperature: celsius }) };
-    } catch (e) {
-      if (!(e instanceof EphmapError)) throw e;
-      k = { error: e.message };
-    }
-    if (cache.size >= MAX_CONDITIONS) cache.delete(cache.keys().next().value!);
-    cache.set(celsius, k);
-    return k;
-  };
+  const setupAt = conditionCache((celsius: number): Setup => {
+    const r = orError(() => make({ ...spec, temperature: celsius }));
+    return 'value' in r ? { s: r.value } : { error: r.error };
+  });
   const answer = (q: PointQuery): CompositionPointAnswer => {
     const T = q.temperature ?? spec.temperature;
     const k = setupAt(T);
     if (!k.s) return { error: `line ${q.line}: ${k.error}` };
     // Step 2: the SHE scale at T.
-    let s;
-    try {
-      s = toShe(ref, q.potential, T, q.pH, file, `line ${q.line}`);
-    } catch (e) {
-      if (e instanceof EphmapError) return { error: e.message };
-      throw e;
-    }
+    const she = rowOnShe(ref, q, T, file);
+    if ('error' in she) return she;
+    const s = she.value;
     // Step 3: the speciation at the point.
     const result = compositionProbe({ ...spec, temperature: T }, k.s, q.pH, s.E, s.ref);
     return { scale: s.ref?.label ?? 'SHE', result, warnings: [...k.s.warnings, ...s.warnings] };

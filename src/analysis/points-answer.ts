@@ -14,16 +14,15 @@
  * A condition that cannot be computed (e.g. beyond the data's temperature range) is remembered
  * and every row at it gets the same error.
  */
-import { EphmapError } from '../errors.js';
 import { compute, type Computed } from '../pipeline.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
-import { toShe } from './points.js';
+import { conditionCache, orError, rowOnShe } from './row-conditions.js';
 import { probe, type ProbeResult } from './probe.js';
 import { widenedSpec } from './widen.js';
 
 /** Diagrams kept at once (distinct conditions); each is a few hundred kB at most. */
-export const MAX_CONDITIONS = 64;
+export { MAX_CONDITIONS } from './row-conditions.js';
 
 export interface PointQuery {
   line: number;
@@ -51,18 +50,9 @@ function specAt(spec: SystemSpec, celsius: number, I: number | undefined): Syste
   return { ...spec, temperature: celsius, solution: { ...s, model, ionicStrength: I, ionicStrengthFrom: 'ionic_strength column' } };
 }
 
-function computeOrError(spec: SystemSpec): { c?: Computed; error?: string } {
-  try {
-    return { c: compute(spec) };
-  } catch (e) {
-    if (e instanceof EphmapError) return { error: e.message };
-    throw e;
-  }
-}
 
 /** A row answerer over one system and reference scale (see the module comment). */
 export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference | undefined, file: string): { answer: (q: PointQuery) => PointAnswer; computed: () => number } {
-  const cache = new Map<string, Condition>();
   let computations = 0;
   let lastT = NaN;
   let lastI: number | undefined;
@@ -75,43 +65,30 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
     last = lookup(celsius, I);
     return last;
   };
-  const lookup = (celsius: number, I: number | undefined): Condition => {
-    const key = I === undefined ? `${celsius}` : `${celsius}|${I}`;
-    let k = cache.get(key);
-    if (k) {
-      // Step 1: most recently used last.
-      cache.delete(key);
-      cache.set(key, k);
-      return k;
-    }
+  const cached = conditionCache((key: string): Condition => {
     computations++;
-    const r = computeOrError(specAt(spec, celsius, I));
-    k = r.c ? { c: r.c, warnings: r.c.model.warnings } : { error: r.error, warnings: [] };
-    if (cache.size >= MAX_CONDITIONS) cache.delete(cache.keys().next().value!);
-    cache.set(key, k);
-    return k;
-  };
+    const [T, I] = key.split('|');
+    const r = orError(() => compute(specAt(spec, Number(T), I === undefined ? undefined : Number(I))));
+    return 'value' in r ? { c: r.value, warnings: r.value.model.warnings } : { error: r.error, warnings: [] };
+  });
+  const lookup = (celsius: number, I: number | undefined): Condition => cached(I === undefined ? `${celsius}` : `${celsius}|${I}`);
   const answer = (q: PointQuery): PointAnswer => {
     const T = q.temperature ?? spec.temperature;
     const k = condition(T, q.ionicStrength);
     if (!k.c) return { error: `line ${q.line}: ${k.error}` };
     // Step 2: the SHE scale at T.
-    let s;
-    try {
-      s = toShe(ref, q.potential, T, q.pH, file, `line ${q.line}`);
-    } catch (e) {
-      if (e instanceof EphmapError) return { error: e.message };
-      throw e;
-    }
+    const she = rowOnShe(ref, q, T, file);
+    if ('error' in she) return she;
+    const s = she.value;
     // Step 3: inside the range on the cached diagram (widen.ts holdsAll, inlined: no allocation per
     // row); outside on one widened for this point.
     const point = { pH: q.pH, E: s.E };
     let c = k.c;
     if (!(q.pH > c.spec.pH[0] && q.pH < c.spec.pH[1] && s.E > c.spec.E[0] && s.E < c.spec.E[1])) {
       computations++;
-      const w = computeOrError(widenedSpec(c.spec, [point]));
-      if (!w.c) return { error: `line ${q.line}: ${w.error}` };
-      c = w.c;
+      const w = orError(() => compute(widenedSpec(c.spec, [point])));
+      if ('error' in w) return { error: `line ${q.line}: ${w.error}` };
+      c = w.value;
     }
     const result = probe(c, q.pH, s.E, s.ref);
     // The probe's own warnings: the model's, plus any about this point (e.g. no verdict in an undetermined field).
