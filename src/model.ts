@@ -30,7 +30,7 @@ export interface RegionModel {
   /** Area in pH·V. */
   area: number;
   /** Alloy kind: the phases and dissolved species, mol per mol of alloy atoms. */
-  assemblage?: { species: string; phase: Phase; amount: number }[];
+  assemblage?: { species: string; phase: Phase; amount: number; dissolved: boolean }[];
   /** Alloy kind: immune, passive, corroding, or partly corroding (some elements dissolve). */
   alloyVerdict?: 'immune' | 'passive' | 'corroding' | 'partly-corroding';
   /** Alloy kind: the main elements with a share in a dissolved species. */

@@ -20,6 +20,7 @@
 import type { BoundaryModel, DiagramModel, RegionClass, RegionModel, SpeciesSummary } from '../model.js';
 import { supportAt } from '../solve/alloy/assemblage.js';
 import { speciesPotentialsAt } from '../solve/alloy/psi.js';
+import { isDissolved, memberText } from '../solve/alloy/member.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
 import { type AlloyVerdict, assemblageVerdict } from '../solve/alloy/verdict.js';
 import { waterLines } from '../solve/solve.js';
@@ -136,9 +137,10 @@ function missedLabels(input: AlloyInput, labels: readonly AlloyLabel[], boundari
   return out;
 }
 
-/** "Cr2O3 + Fe3O4 + Ni": the assemblage's formulas in the order of the species list. */
+/** "Cr2O3 + Fe3O4 + Ni": the assemblage's members in the order of the species list (a neutral
+ *  dissolved one tagged, "Cu + Zn(OH)2(aq)": solve/alloy/member.ts). */
 export function labelText(input: AlloyInput, l: { indices: number[] }): string {
-  return l.indices.map((k) => input.species[k].formula).join(' + ');
+  return l.indices.map((k) => memberText(input.species[k])).join(' + ');
 }
 
 /** Step 4: the region of one assemblage, its verdict from its phases and their shares. */
@@ -161,7 +163,7 @@ function regionModel(input: AlloyInput, l: AlloyLabel, polygons: [number, number
     verdict: TRADE[verdict],
     polygons,
     area,
-    assemblage: l.indices.map((k, i) => ({ species: input.species[k].formula, phase: input.species[k].phase, amount: round(l.amounts[i]) })),
+    assemblage: l.indices.map((k, i) => ({ species: input.species[k].formula, phase: input.species[k].phase, amount: round(l.amounts[i]), dissolved: isDissolved(input.species[k]) })),
     alloyVerdict: verdict,
     dissolving,
   };

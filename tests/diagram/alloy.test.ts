@@ -13,7 +13,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computeAlloy } from '../../src/diagram/alloy.js';
-import { parseFormula } from '../../src/chem/parse.js';
+import { parseFormula, splitPhase } from '../../src/chem/parse.js';
 import type { DiagramModel, Ring } from '../../src/model.js';
 import { compute } from '../../src/pipeline.js';
 import { assemblageAt } from '../../src/solve/alloy/assemblage.js';
@@ -108,7 +108,10 @@ describe.each([
     expect(v.has('immune')).toBe(true);
     expect(v.has('partly-corroding')).toBe(true);
     for (const r of m.regions) {
-      expect(r.species).toBe(r.assemblage!.map((p) => p.species).join(' + '));
+      // The label names the members in order; a phase tag only on a neutral dissolved one.
+      const terms = r.species.split(' + ').map(splitPhase);
+      expect(terms.map((t) => t.formula)).toEqual(r.assemblage!.map((p) => p.species));
+      terms.forEach((t, k) => expect(t.phase === 'aq').toBe(r.assemblage![k].dissolved && parseFormula(t.formula).charge === 0));
       expect(r.verdict).toBe(r.alloyVerdict === 'immune' ? 'immunity' : r.alloyVerdict === 'passive' ? 'passivation' : 'corrosion');
     }
   });
@@ -180,7 +183,8 @@ describe('Cu–Zn without a mixed compound: a boundary where only one element ch
   it('every such boundary vertex lies within 1e-9 V (or pH) of the single-element boundary', () => {
     let checked = 0;
     for (const b of m.boundaries) {
-      const [A, B] = b.between.map((t) => t.split(' + '));
+      // The single-element models name a neutral dissolved species by its formula alone.
+      const [A, B] = b.between.map((t) => t.split(' + ').map((x) => splitPhase(x).formula));
       const onlyA = A.filter((x) => !B.includes(x));
       const onlyB = B.filter((x) => !A.includes(x));
       expect(onlyA.length, b.between.join(' | ')).toBe(1);

@@ -14,6 +14,7 @@
  */
 import type { Phase } from '../../model.js';
 import { solveLp } from './lp.js';
+import { memberText } from './member.js';
 import { speciesPotentialsAt } from './psi.js';
 import { mainElements, type AlloyInput } from './types.js';
 import { type AlloyVerdict, assemblageVerdict } from './verdict.js';
@@ -34,7 +35,7 @@ export interface Assemblage {
   E: number;
   /** Species present, in the order of input.species. */
   phases: AssemblagePhase[];
-  /** Formulas joined with " + ", e.g. "Fe3O4 + Cr2O3 + Ni". */
+  /** Members joined with " + ", e.g. "Fe3O4 + Cr2O3 + Ni" (a neutral dissolved one tagged "(aq)": member.ts). */
   label: string;
   /** Σ n_k ψ'_k, kJ per mol of alloy atoms. */
   grandPotential: number;
@@ -128,9 +129,9 @@ export function assemblageAt(input: AlloyInput, pH: number, E: number): Assembla
     pH,
     E,
     phases,
-    label: phases.map((ph) => ph.formula).join(' + '),
+    label: phases.map((ph) => memberText(input.species[ph.index])).join(' + '),
     grandPotential: sup.grandPotential,
-    ties: sup.ties.map((j) => input.species[j].formula),
+    ties: sup.ties.map((j) => memberText(input.species[j])),
     verdict,
     dissolving,
     ligandSpecies: sup.ligandSpecies,
