@@ -15,8 +15,10 @@
  * act on; the distances do.
  */
 import { assemblageAt } from '../solve/alloy/assemblage.js';
+import { isDissolved, memberText } from '../solve/alloy/member.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
 import type { AlloyVerdict } from '../solve/alloy/verdict.js';
+import type { GivenPotential } from './points.js';
 
 export interface AlloyMargin {
   direction: 'E+' | 'E-' | 'pH+' | 'pH-';
@@ -30,12 +32,16 @@ export interface AlloyProbe {
   pH: number;
   E: number;
   label: string;
-  assemblage: { species: string; phase: string; amount: number; share: Record<string, number> }[];
+  /** Each member: `species` the formula, `name` as in the label (a neutral dissolved one tagged
+   *  "(aq)"), `dissolved` true for a dissolved species (at its threshold activity). */
+  assemblage: { species: string; name: string; phase: string; dissolved: boolean; amount: number; share: Record<string, number> }[];
   verdict: AlloyVerdict;
   dissolving: string[];
   ties: string[];
   margins: AlloyMargin[];
   composition: Record<string, number>;
+  /** The potential as given against a reference electrode (E above is on the SHE scale). */
+  reference?: GivenPotential;
 }
 
 const key = (input: AlloyInput, pH: number, E: number) => assemblageAt(input, pH, E).label;
@@ -69,17 +75,20 @@ function margin(input: AlloyInput, pH: number, E: number, dir: AlloyMargin['dire
   }
 }
 
-export function alloyProbe(input: AlloyInput, pH: number, E: number): AlloyProbe {
+/** The answer at (pH, E vs SHE); `reference` (the potential as given) is carried into the answer. */
+export function alloyProbe(input: AlloyInput, pH: number, E: number, reference?: GivenPotential): AlloyProbe {
   const a = assemblageAt(input, pH, E);
+  const sp = (p: { index: number }) => input.species[p.index];
   return {
     pH,
     E,
     label: a.label,
-    assemblage: a.phases.map((p) => ({ species: p.formula, phase: p.phase, amount: p.amount, share: p.share })),
+    assemblage: a.phases.map((p) => ({ species: p.formula, name: memberText(sp(p)), phase: p.phase, dissolved: isDissolved(sp(p)), amount: p.amount, share: p.share })),
     verdict: a.verdict,
     dissolving: a.dissolving,
     ties: a.ties,
     margins: (['E+', 'E-', 'pH+', 'pH-'] as const).map((d) => margin(input, pH, E, d)),
     composition: { ...input.composition },
+    ...(reference ? { reference } : {}),
   };
 }

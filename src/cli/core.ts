@@ -81,10 +81,7 @@ export function registerCore(program: Command): void {
     .option('--ref <name>', "also give each line against this reference electrode (sce, agcl-sat, cse, ...; default: the file's reference)")
     .action((file: string, opts: { json?: boolean; ref?: string } & SpecOverrides) => {
       const alloy = loadAlloyWith(file, opts);
-      if (alloy) {
-        if (opts.ref !== undefined) throw new InputError('command line', '--ref', 'no --ref with an alloy file yet');
-        return linesAlloy(alloy, opts.json === true);
-      }
+      if (alloy) return linesAlloy(alloy, opts.json === true, opts.ref);
       const spec = loadSpecWith(file, opts);
       if (spec.composition) return linesComposition(spec, opts);
       const c = compute(spec);

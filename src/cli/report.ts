@@ -47,9 +47,9 @@ export function registerReport(program: Command): void {
       checkOutputs(outputs, [{ path: file, option: '<file>' }]);
       const fmt = ext as ReportFormat;
       const alloy = loadAlloyWith(file, opts);
-      if (alloy) return reportAlloy(alloy, opts.output, fmt);
-      const spec = loadSpecWith(file, opts);
       const { output: _o, ref: _r, ...figOpts } = opts;
+      if (alloy) return reportAlloy(alloy, opts.output, fmt, figOpts, opts.ref);
+      const spec = loadSpecWith(file, opts);
       const fig = figureSettingsWidth(spec, figOpts, REPORT_WIDTH);
       if (spec.composition) return reportComposition(spec, fig, opts.output, fmt);
       const c = compute(spec);

@@ -5,7 +5,7 @@
 import type { AlloyProbe } from '../analysis/alloy-probe.js';
 import type { DiagramModel } from '../model.js';
 import { fmtCelsius, fmtNum, mdCode, mdEsc, mdTable } from './format.js';
-import { lineRows } from './lines.js';
+import { type LineRow, lineRows } from './lines.js';
 
 export const VERDICT_WORDS: Record<AlloyProbe['verdict'], string> = {
   immune: 'immune (every element stays metal)',
@@ -20,15 +20,25 @@ export function verdictText(verdict: AlloyProbe['verdict'], dissolving: readonly
   return `partly corroding: ${dissolving.join(', ')} ${dissolving.length > 1 ? 'dissolve' : 'dissolves'}, the rest stays solid`;
 }
 
+/** "Cu 0.65, Zn(OH)2 (dissolved) 0.35": each member of a region's assemblage with its amount. */
+export function memberAmounts(r: Pick<DiagramModel['regions'][number], 'assemblage'>): string {
+  return (r.assemblage ?? []).map((p) => `${p.species}${p.dissolved ? ' (dissolved)' : ''} ${fmtNum(p.amount)}`).join(', ');
+}
+
+/** A line's equation vs SHE, and against the reference electrode when one is set. */
+export function lineText(r: LineRow): string {
+  return r.equationRef && r.equationRef !== r.equation ? `${r.equation}; ${r.equationRef}` : r.equation;
+}
+
 const DIR: Record<string, string> = { 'E+': 'more oxidising (E up)', 'E-': 'more reducing (E down)', 'pH+': 'more alkaline (pH up)', 'pH-': 'more acid (pH down)' };
 
 export function alloyProbeText(r: AlloyProbe): string {
   const out = [
-    `pH ${fmtNum(r.pH)}, E ${fmtNum(r.E)} V vs SHE`,
+    r.reference ? `pH ${fmtNum(r.pH)}, E ${fmtNum(r.reference.E)} V vs ${r.reference.label} (= ${r.E.toFixed(4)} V vs SHE)` : `pH ${fmtNum(r.pH)}, E ${fmtNum(r.E)} V vs SHE`,
     `assemblage: ${r.label}${r.ties.length ? ` (on a boundary: ${r.ties.join(', ')} could replace part of it)` : ''}`,
     `verdict: ${verdictText(r.verdict, r.dissolving)}`,
     'amounts (mol per mol of alloy atoms):',
-    ...r.assemblage.map((p) => `  ${p.species.padEnd(14)} ${p.amount.toFixed(6)}   holds ${Object.entries(p.share).filter(([, v]) => v > 0).map(([e, v]) => `${(100 * v).toFixed(1)} % of ${e}`).join(', ')}`),
+    ...r.assemblage.map((p) => `  ${p.name.padEnd(14)} ${p.amount.toFixed(6)}   ${p.dissolved ? 'dissolved, ' : ''}holds ${Object.entries(p.share).filter(([, v]) => v > 0).map(([e, v]) => `${(100 * v).toFixed(1)} % of ${e}`).join(', ')}`),
     'margins to the neighbouring assemblages:',
     ...r.margins.map((m) => `  ${DIR[m.direction].padEnd(24)} ${m.distance === null ? 'none within the diagram' : `${m.distance.toFixed(4)} ${m.direction.startsWith('E') ? 'V' : 'pH'} to ${m.to}`}`),
     'Equilibrium only: pure phases (no solid-solution activities), no kinetics or film quality.',
@@ -46,10 +56,10 @@ export function alloyReportMarkdown(model: DiagramModel, svgName: string | null,
   parts.push('## Assemblages', '', mdTable(['assemblage', 'verdict', 'amounts (mol per mol of alloy atoms)', 'area (pH·V)'], model.regions.map((r) => [
     mdCode(r.species),
     mdEsc(verdictText(r.alloyVerdict!, r.dissolving ?? [])),
-    mdEsc(r.assemblage!.map((p) => `${p.species} ${fmtNum(p.amount)}`).join(', ')),
+    mdEsc(memberAmounts(r)),
     fmtNum(r.area, 3),
   ])), '');
-  parts.push('## Reactions between neighbouring assemblages', '', mdTable(['between', 'reaction', 'line'], lineRows(model).map((r) => [mdEsc(r.between.join(' | ')), mdCode(r.reaction), mdCode(r.equation)])), '');
+  parts.push('## Reactions between neighbouring assemblages', '', mdTable(['between', 'reaction', 'line'], lineRows(model, model.reference).map((r) => [mdEsc(r.between.join(' | ')), mdCode(r.reaction), mdCode(lineText(r))])), '');
   if (model.warnings.length) parts.push('## Warnings', '', ...model.warnings.map((w) => `- ${mdEsc(w)}`), '');
   parts.push('## What this diagram does not say', '',
     '- Phases are pure compounds: no solid-solution activities (a chromium-rich spinel film is not an ideal mixture of FeCr2O4 and Fe3O4), no alloy-metal activities below one.',
@@ -68,8 +78,8 @@ export function alloyReportHtml(model: DiagramModel, svg: string, caption: strin
     '<style>body{font-family:sans-serif;max-width:60em;margin:auto}td{border-bottom:1px solid #ccc;padding:2px 6px}code{font-size:95%}</style></head><body>',
     `<h1>Alloy ${esc(model.element)} at ${fmtCelsius(model.temperature.celsius)} °C</h1>`, svg, ...caption.map((c) => `<p>${esc(c)}</p>`),
     '<h2>Composition</h2><table>', ...Object.keys(a.composition).map((e) => row([e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '</table>',
-    '<h2>Assemblages</h2><table>', ...model.regions.map((r) => row([r.species, verdictText(r.alloyVerdict!, r.dissolving ?? []), r.assemblage!.map((p) => `${p.species} ${fmtNum(p.amount)}`).join(', ')])), '</table>',
-    '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model).map((r) => row([r.between.join(' | '), r.reaction, r.equation])), '</table>',
+    '<h2>Assemblages</h2><table>', ...model.regions.map((r) => row([r.species, verdictText(r.alloyVerdict!, r.dissolving ?? []), memberAmounts(r)])), '</table>',
+    '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model, model.reference).map((r) => row([r.between.join(' | '), r.reaction, lineText(r)])), '</table>',
     ...(model.warnings.length ? ['<h2>Warnings</h2><ul>', ...model.warnings.map((w) => `<li>${esc(w)}</li>`), '</ul>'] : []),
     '<h2>What this diagram does not say</h2><ul><li>Phases are pure compounds: no solid-solution activities.</li><li>Equilibrium only: no kinetics, film quality or localized attack.</li></ul>',
     '<h2>Sources</h2><ul>', ...model.sources.map((s) => `<li>${esc(s)}</li>`), '</ul></body></html>', '',

@@ -15,11 +15,12 @@ import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 type Doc = PDFKit.PDFDocument;
 
-const MARGIN = 56;
-const BODY = 9;
-const SMALL = 7.5;
+export const MARGIN = 56;
+export const BODY = 9;
+export const SMALL = 7.5;
 
-class Writer {
+/** Text, headings, bullets and tables on an A4 pdfkit document (shared with the alloy report). */
+export class Writer {
   constructor(private readonly doc: Doc) {}
 
   get left(): number {
@@ -98,7 +99,7 @@ class Writer {
 }
 
 /** Whether the figure argument is a scene (vector) rather than PNG bytes. */
-function isScene(f: Scene | Uint8Array): f is Scene {
+export function isScene(f: Scene | Uint8Array): f is Scene {
   return !(f instanceof Uint8Array) && typeof (f as Scene).widthPt === 'number' && Array.isArray((f as Scene).items);
 }
 
