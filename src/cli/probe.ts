@@ -19,6 +19,7 @@ import { Fields } from '../system/fields.js';
 import { readReference } from '../system/operating.js';
 import { checkOutputs, writeOne } from './outputs.js';
 import { compositionRows, probeComposition } from './probe-composition.js';
+import { alloyRows } from './alloy-points.js';
 
 const num = numberArg;
 
@@ -53,23 +54,24 @@ export function registerProbe(program: Command): void {
         checkOutputs([{ path: opts.output, option: '--output', extensions: ['.json'] }], [{ path: file, option: '<file>' }]);
       }
       const alloy = loadAlloyWith(file, opts);
-      if (alloy) {
-        if (opts.points !== undefined || opts.ref !== undefined) throw new InputError('command line', opts.points !== undefined ? '--points' : '--ref', 'for an alloy file: --ph and --potential (V vs SHE) only, for now');
-        if (opts.ph === undefined || opts.potential === undefined) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential');
-        return probeAlloy(alloy, num(opts.ph, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 }), num(opts.potential, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 }), opts.json === true);
-      }
-      const spec = loadSpecWith(file, opts);
+      const spec = alloy ? alloy.base : loadSpecWith(file, opts);
       let ref = spec.operating.reference;
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
       if (opts.points !== undefined && (opts.ph !== undefined || opts.potential !== undefined)) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
       if (opts.points === undefined && (opts.ph === undefined || opts.potential === undefined)) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
       if (opts.points !== undefined) {
-        // A composition file answers each row from the bath as made up; the streaming is the same.
-        await runPoints(file, spec, ref, { points: opts.points, output: opts.output, delimiter: opts.delimiter, unit: opts.unit, strict: opts.strict }, spec.composition ? compositionRows(spec, ref) : undefined);
+        // A composition file answers each row from the bath as made up, an alloy file with its
+        // assemblage; the streaming is the same.
+        const rows = alloy ? alloyRows(alloy, ref) : spec.composition ? compositionRows(spec, ref) : undefined;
+        await runPoints(file, spec, ref, { points: opts.points, output: opts.output, delimiter: opts.delimiter, unit: opts.unit, strict: opts.strict }, rows);
         return;
       }
       for (const [given, name] of [[opts.delimiter, '--delimiter'], [opts.unit, '--unit'], [opts.strict, '--strict']] as const) {
         if (given !== undefined) throw new InputError('command line', name, `${name} only with --points`);
+      }
+      if (alloy) {
+        const pH = num(opts.ph!, '--ph', 'a pH value from -3 to 17', { min: -3, max: 17 });
+        return probeAlloy(alloy, pH, num(opts.potential!, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 }), { json: opts.json === true, ref: opts.ref, output: opts.output });
       }
       if (spec.composition) return probeComposition(spec, opts, ref);
       const at = pointComputer(spec);
