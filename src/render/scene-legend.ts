@@ -37,7 +37,7 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
     if (!present.has(c)) continue;
     const tint = CLASS_TINTS[c][0]!;
     const moved = model.kind === 'alloy' ? [] : reclassified(c);
-    const runs = model.kind === 'alloy' ? plainRuns(alloySwatchName(c)) : moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
+    const runs = model.kind === 'alloy' ? plainRuns(alloySwatchName(c, model.regions.some((r) => r.species.includes('(aq)')))) : moved.length ? [...plainRuns(`${CLASS_NAMES[c]}; reclassified: `), ...moved.flatMap((f, i) => [...(i ? plainRuns(', ') : []), ...formulaRuns(f)])] : plainRuns(CLASS_NAMES[c]);
     out.push({ kind: 'swatch', group: c, fill: o.style === 'gray' ? toGray(tint) : tint, runs });
   }
   const und = [...new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species))].sort();
@@ -48,12 +48,13 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
   return out;
 }
 
-/** Alloy kind: the swatch names by assemblage verdict, naming the elements that dissolve. */
-function alloySwatchName(c: RegionClass): string {
+/** Alloy kind: the swatch names by assemblage verdict, naming the elements that dissolve; where a
+ *  label holds a neutral dissolved species (tagged "(aq)"), the key says that it is dissolved too. */
+function alloySwatchName(c: RegionClass, neutralDissolved: boolean): string {
   if (c === 'element') return 'metals (immune)';
   if (c === 'solid') return 'solids only (passive)';
   if (c === 'dissolved') return 'all dissolved (corroding)';
-  return 'partly corroding: dissolved species in the label';
+  return neutralDissolved ? 'partly corroding: ions and (aq) species in the label dissolved' : 'partly corroding: dissolved species in the label';
 }
 
 /** Every legend entry in order: swatches, the base boundaries, families, water, overlay layers. */

@@ -260,7 +260,10 @@ describe('a neutral dissolved species in an assemblage (Zn(OH)2(aq) in brass)', 
     const svg = join(dir, 'zn.svg');
     r = run(['draw', brass, '-o', svg, '--width', '170mm', '--height', '150mm']);
     expect(r.code, r.stderr).toBe(0);
-    expect(readFileSync(svg, 'utf8')).toContain('(aq)');
+    const svgText = readFileSync(svg, 'utf8');
+    expect(svgText).toContain('Zn(OH)2(aq)');
+    // The legend's key of the partly corroding fill says the (aq) members are dissolved.
+    expect(svgText).toContain('ions and (aq) species in the label dissolved');
     const html = join(dir, 'zn.html');
     r = run(['draw', brass, '-o', html]);
     expect(r.code, r.stderr).toBe(0);
