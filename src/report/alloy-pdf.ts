@@ -11,7 +11,7 @@ import { drawSceneOnPdf } from '../render/pdf.js';
 import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
 import { collectPdf } from '../render/pdf-buffer.js';
 import type { Scene } from '../render/scene-types.js';
-import { lineText, memberAmounts, verdictText } from './alloy-text.js';
+import { lineText, memberAmounts, referenceNote, verdictText } from './alloy-text.js';
 import { fmtCelsius, fmtNum } from './format.js';
 import { lineRows } from './lines.js';
 import { BODY, MARGIN, SMALL, Writer } from './report-pdf.js';
@@ -36,7 +36,7 @@ export async function alloyReportPdf(model: DiagramModel, scene: Scene, figureMm
 
   w.heading('Composition');
   w.table(['element', 'mole fraction', 'threshold activity of its dissolved species'], Object.keys(a.composition).map((e) => [e, fmtNum(a.composition[e]), fmtNum(a.activities[e])]), [0.2, 0.3, 0.5], BODY - 0.5);
-  if (model.reference) w.para(`Potentials are also given against ${model.reference.label} (E vs SHE − ${model.reference.offset.toFixed(4)} V at ${fmtCelsius(model.temperature.celsius)} °C).`);
+  if (model.reference) w.para(referenceNote(model));
 
   // The figure, its heading kept with it.
   const mmToPt = (mm: number) => (mm / 25.4) * 72;

@@ -25,6 +25,12 @@ export function memberAmounts(r: Pick<DiagramModel['regions'][number], 'assembla
   return (r.assemblage ?? []).map((p) => `${p.species}${p.dissolved ? ' (dissolved)' : ''} ${fmtNum(p.amount)}`).join(', ');
 }
 
+/** The sentence naming the reference electrode potentials are also given against. */
+export function referenceNote(model: DiagramModel): string {
+  const r = model.reference!;
+  return `Potentials are also given against ${r.label} (E vs ${r.label} = E vs SHE − ${r.offset.toFixed(4)} V at ${fmtCelsius(model.temperature.celsius)} °C).`;
+}
+
 /** A line's equation vs SHE, and against the reference electrode when one is set. */
 export function lineText(r: LineRow): string {
   return r.equationRef && r.equationRef !== r.equation ? `${r.equation}; ${r.equationRef}` : r.equation;
@@ -53,6 +59,7 @@ export function alloyReportMarkdown(model: DiagramModel, svgName: string | null,
   if (svgName) parts.push(`![diagram](${svgName})`, '');
   parts.push(...caption.map(mdEsc), '');
   parts.push('## Composition', '', mdTable(['element', 'mole fraction', 'threshold activity of its dissolved species'], Object.keys(a.composition).map((e) => [e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '');
+  if (model.reference) parts.push(mdEsc(referenceNote(model)), '');
   parts.push('## Assemblages', '', mdTable(['assemblage', 'verdict', 'amounts (mol per mol of alloy atoms)', 'area (pH·V)'], model.regions.map((r) => [
     mdCode(r.species),
     mdEsc(verdictText(r.alloyVerdict!, r.dissolving ?? [])),
@@ -77,7 +84,7 @@ export function alloyReportHtml(model: DiagramModel, svg: string, caption: strin
     '<!DOCTYPE html>', '<html lang="en"><head><meta charset="utf-8">', `<title>Alloy ${esc(model.element)}</title>`,
     '<style>body{font-family:sans-serif;max-width:60em;margin:auto}td{border-bottom:1px solid #ccc;padding:2px 6px}code{font-size:95%}</style></head><body>',
     `<h1>Alloy ${esc(model.element)} at ${fmtCelsius(model.temperature.celsius)} °C</h1>`, svg, ...caption.map((c) => `<p>${esc(c)}</p>`),
-    '<h2>Composition</h2><table>', ...Object.keys(a.composition).map((e) => row([e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '</table>',
+    '<h2>Composition</h2><table>', ...Object.keys(a.composition).map((e) => row([e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '</table>', ...(model.reference ? [`<p>${esc(referenceNote(model))}</p>`] : []),
     '<h2>Assemblages</h2><table>', ...model.regions.map((r) => row([r.species, verdictText(r.alloyVerdict!, r.dissolving ?? []), memberAmounts(r)])), '</table>',
     '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model, model.reference).map((r) => row([r.between.join(' | '), r.reaction, lineText(r)])), '</table>',
     ...(model.warnings.length ? ['<h2>Warnings</h2><ul>', ...model.warnings.map((w) => `<li>${esc(w)}</li>`), '</ul>'] : []),

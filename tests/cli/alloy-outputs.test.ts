@@ -122,7 +122,9 @@ describe('--ref and the file\'s reference on an alloy file', () => {
     const md = join(dir, 'ref-report.md');
     const r = run(['report', brass, '-o', md, '--ref', 'sce']);
     expect(r.code, r.stderr).toBe(0);
-    expect(readFileSync(md, 'utf8')).toMatch(/V vs SHE; E = .* V vs SCE/);
+    const text = readFileSync(md, 'utf8');
+    expect(text).toMatch(/V vs SHE; E = .* V vs SCE/);
+    expect(text).toMatch(/E vs SCE = E vs SHE − 0\.24\d+ V at 25 °C/);
     expect(readFileSync(join(dir, 'ref-report.svg'), 'utf8')).toContain('vs SCE');
   });
 
