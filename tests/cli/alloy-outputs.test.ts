@@ -86,6 +86,30 @@ describe('--ref and the file\'s reference on an alloy file', () => {
     expect(text).toMatch(/E -0\.7 V vs SCE \(= -0\.4\d+ V vs SHE\)/);
   });
 
+  it('probe at 60 °C: the electrode converted at the file\'s temperature, as for one element (SCE drifts by about −0.7 mV/K; common practice)', () => {
+    const alloy = probeJson([brass, '--ph', '5', '--potential', '-0.7', '--ref', 'sce', '--temperature', '60']);
+    const fe = join(dir, 'fe.yaml');
+    writeFileSync(fe, 'element: Fe\nactivity: 1.0e-6\n');
+    const one = probeJson([fe, '--ph', '5', '--potential', '-0.7', '--ref', 'sce', '--temperature', '60']);
+    expect(alloy.reference.offset).toBe(one.reference.offset);
+    expect(alloy.E).toBeCloseTo(one.E, 12);
+    // Lower than at 25 °C by roughly 35 K × 0.7 mV/K (tolerance: the coefficient varies by source).
+    expect(SCE - alloy.reference.offset).toBeGreaterThan(0.01);
+    expect(SCE - alloy.reference.offset).toBeLessThan(0.04);
+  });
+
+  it('probe -o: the JSON answer written to the file (same as --json), nothing printed but the note; a bad --ref writes nothing', () => {
+    const out = join(dir, 'point.json');
+    let r = run(['probe', brass, '--ph', '5', '--potential', '-0.7', '--ref', 'sce', '-o', out]);
+    expect(r.code, r.stderr).toBe(0);
+    expect(r.stdout).toBe(`wrote ${out}\n`);
+    expect(JSON.parse(readFileSync(out, 'utf8'))).toEqual(probeJson([brass, '--ph', '5', '--potential', '-0.7', '--ref', 'sce']));
+    const bad = join(dir, 'point-bad.json');
+    r = run(['probe', brass, '--ph', '5', '--potential', '-0.7', '--ref', 'nope', '-o', bad]);
+    expect(r.code).toBe(2);
+    expect(existsSync(bad)).toBe(false);
+  });
+
   it('draw: a second E axis vs the electrode, and the model names it; the file\'s reference does the same', () => {
     for (const [file, extra] of [[brass, ['--ref', 'sce']], [brassSce, []]] as const) {
       const json = join(dir, `ref-${extra.length}.json`);
