@@ -23,6 +23,7 @@ import { KELVIN } from '../thermo/constants.js';
 import { VERSION } from '../version.js';
 import { classify } from './classify.js';
 import { type CompositionSetup, compositionSetup } from './composition-setup.js';
+import { UNDETERMINED_SHARE, undeterminedIndices, undeterminedShareAreas } from './composition-undetermined.js';
 import { verdictOf } from './verdict.js';
 
 /** Default iso-solubility levels, mol/kg: every decade from 10⁻⁸ to 10⁻². */
@@ -74,6 +75,10 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
   // regions leave uncovered (slivers near triple points the junctions could not close).
   const failedPolys = undeterminedPolygons(g);
   const gaps = uncoveredPolygons(g, [...regions.flatMap((r) => r.polygons), ...failedPolys]);
+  // Step 5: where species without G at T hold a share of the element, no verdict either.
+  const und = undeterminedIndices(P);
+  const heldPolys = undeterminedShareAreas(g, und, P.species.length);
+  if (heldPolys.length) warnings.push(`composition mode: no verdict where ${und.map((k) => P.species[k].formula).join(', ')} (G unknown at this temperature) hold ${100 * UNDETERMINED_SHARE} % or more of ${input.element}; that area is drawn as undetermined`);
   if (gaps.length) warnings.push(`composition mode: ${gaps.length} small area(s) near region junctions are not resolved at grid ${n}; they are drawn as undetermined (a finer grid shrinks them)`);
   const comp = spec.composition!;
   const model: DiagramModel = {
@@ -92,7 +97,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     waterLines: { ...waterLines(input), pressures: input.pressures },
     warnings,
     sources: setup.built.sources,
-    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...failedPolys, ...gaps], ...(gaps.length ? { unresolved: gaps.length } : {}) },
+    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...heldPolys, ...failedPolys, ...gaps], ...(heldPolys.length ? { heldBy: und.map((k) => P.species[k].formula) } : {}), ...(gaps.length ? { unresolved: gaps.length } : {}) },
     isoSolubility,
   };
   return { setup, grid: g as GridSample<unknown>, model };
