@@ -107,6 +107,8 @@ function summary(element: string, sp: SolverSpecies, role: 'main' | 'ligand'): S
   const s: SpeciesSummary = { formula: sp.formula, phase: sp.phase, class: classify(element, sp), role, G: Math.round(sp.G * 1e6) / 1e6 };
   if (sp.name) s.name = sp.name;
   if (sp.source) s.source = sp.source;
+  if (sp.temperatureModel) s.temperatureModel = sp.temperatureModel;
+  if (sp.estimated) s.estimated = true;
   return s;
 }
 

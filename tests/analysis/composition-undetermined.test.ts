@@ -11,6 +11,7 @@ import { compositionProbe } from '../../src/analysis/composition-probe.js';
 import { computeComposition } from '../../src/diagram/composition.js';
 import { compositionSetup } from '../../src/diagram/composition-setup.js';
 import { UNDETERMINED_SHARE } from '../../src/diagram/composition-undetermined.js';
+import { bathCaptionLines } from '../../src/figure/compose-bath.js';
 import { readSpec } from '../../src/system/spec.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
@@ -66,6 +67,8 @@ describe('composition mode: undetermined species holding part of the element', (
     expect(inside(und, 10, 0)).toBe(true);
     expect(inside(und, 5, 0)).toBe(false);
     expect(m.warnings.join(' ')).toMatch(/no verdict where HZnO2- .*hold 1 %/);
+    expect(m.species.find((x) => x.formula === 'HZnO2-')!.temperatureModel).toBe('undetermined');
+    expect(bathCaptionLines(m).join(' ')).toMatch(/no verdict where HZnO2- .*undetermined/i);
   });
 
   it('probe text and probe --points rows carry verdict unknown and name the species', async () => {
