@@ -67,7 +67,10 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
   const triples = joinTriplePoints(field, g, traced.boundaries);
   const boundaries = traced.boundaries.map((b) => boundaryModel(setup, b));
   // Step 3: iso-solubility lines.
-  const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? spec.composition?.levels ?? [])])].sort((a, b) => a - b);
+  // Levels at or above the element's total have no line (the dissolved total never exceeds it; at
+  // the total itself the contour is degenerate wherever everything is dissolved and gave NaN vertices).
+  const total = setup.totals[input.element]!;
+  const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? spec.composition?.levels ?? [])])].filter((l) => l < total * (1 - 1e-9)).sort((a, b) => a - b);
   const isoSolubility: IsoSolubilityLine[] = levels.map((level) => ({ level, lines: traceIsoLines(field, g, Math.log10(level)) }));
   const warnings = [...setup.warnings];
   if (g.failed) warnings.push(`composition mode: ${g.failed} of ${n * n} grid points could not be solved; they are undetermined (no region drawn there)`);

@@ -86,3 +86,18 @@ describe('composition mode: undetermined species holding part of the element', (
     expect(row(2).verdict).toBe('corrosion');
   });
 });
+
+describe('iso-solubility levels at the total (found while checking the figure above)', () => {
+  it('a bath of 10⁻³ mol/kg Zn draws as SVG: no line at or above its own total, every vertex finite', async () => {
+    // Before the fix the 10⁻³ level (= the total) was traced where all zinc is dissolved, giving
+    // NaN vertices and "svg: non-finite number" on draw.
+    const spec = readSpec({ element: 'Zn', composition: { Zn: 1e-3 }, grid: 60 }, 'zn.json');
+    const m = computeComposition(spec).model;
+    expect(m.isoSolubility!.map((l) => l.level)).toEqual([1e-8, 1e-7, 1e-6, 1e-5, 1e-4]);
+    for (const l of m.isoSolubility!) for (const line of l.lines) for (const p of line) expect(Number.isFinite(p[0]) && Number.isFinite(p[1])).toBe(true);
+    const dir = tmpDir();
+    const file = writeTmp(dir, 'zn3.json', JSON.stringify({ element: 'Zn', composition: { Zn: 1e-3 } }));
+    const r = await runCli(['draw', file, '-o', `${dir}/zn3.svg`]);
+    expect(r.code, r.stderr).toBe(0);
+  });
+});
