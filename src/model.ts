@@ -99,10 +99,14 @@ export interface CompositionModel {
   /** Grid the regions were traced on, and points that could not be solved (undetermined). */
   grid: { nx: number; ny: number; failed: number };
   /**
-   * Polygons to show as undetermined: where the point solver failed (grid resolution, not refined),
-   * then, last, the `unresolved` patches the traced regions left uncovered near their junctions.
+   * Polygons to show as undetermined: first where species without G at T (`heldBy`) hold 1 % or more
+   * of the element (diagram/composition-undetermined.ts), then where the point solver failed (grid
+   * resolution, not refined), then, last, the `unresolved` patches the traced regions left
+   * uncovered near their junctions.
    */
   undetermined: Polygon[];
+  /** The species without G at T that hold part of the element somewhere on the diagram (absent: none). */
+  heldBy?: string[];
   /** How many of the last `undetermined` polygons are unresolved gaps rather than failed points (absent: none). */
   unresolved?: number;
 }

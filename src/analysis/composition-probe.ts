@@ -6,11 +6,15 @@
  * 3. the predominant form's class gives the verdict (immunity / passivation / corrosion, with the
  * file's `classes` overrides); 4. the total dissolved element is set against the corrosion
  * threshold (the trade's 10⁻⁶ mol/kg; `activity` is refused in composition mode), stated beside the verdict.
+ * 5. where species whose G at T is unknown (only ΔfG°, away from 25 °C) hold 1 % or more of the
+ * element (diagram/composition-undetermined.ts), the verdict is `unknown`, naming them in
+ * `undetermined` and `reason` — the shares they take could belong to any other form.
  * Example (tests/analysis/composition-probe.test.ts): 0.5 mol/kg Cu with 1 mol/kg NH₃ at pH 10,
  * +0.3 V: CuO predominates (passivation), Cu(NH₃)₄²⁺ cannot hold the copper.
  */
 import { classify } from '../diagram/classify.js';
 import { type CompositionSetup, speciationAt } from '../diagram/composition-setup.js';
+import { UNDETERMINED_SHARE, undeterminedHolders } from '../diagram/composition-undetermined.js';
 import { type Verdict, verdictOf } from '../diagram/verdict.js';
 import type { RegionClass } from '../model.js';
 import type { SpeciationProblem } from '../solve/speciation/problem.js';
@@ -21,8 +25,10 @@ export interface CompositionProbeResult {
   /** What the answer describes. */
   basis: 'the bath as made up';
   status: 'ok' | 'failed';
-  /** Why the point solver failed (status failed only). */
+  /** Why the point solver failed (status failed), or why there is no verdict (undetermined species). */
   reason?: string;
+  /** Species without G at T holding 1 % or more of the element here (verdict unknown); absent: none. */
+  undetermined?: { species: string; share: number }[];
   pH: number;
   /** Potential at the point, V vs SHE at T. */
   E: number;
@@ -84,6 +90,16 @@ export function compositionProbe(spec: SystemSpec, setup: CompositionSetup, pH: 
   const cls = classify(spec.element, sp);
   const verdict = verdictOf(cls, formula, spec.operating.classes);
   const solids = r.solids.map((s) => ({ species: dataFormula(P, s.species).formula, amount: s.amount }));
+  // Step 5: no verdict where species without G at T hold part of the element.
+  const byIndex = new Float64Array(P.species.length);
+  for (const x of r.shares[spec.element] ?? []) {
+    const k = dataFormula(P, x.species).index;
+    if (k >= 0) byIndex[k] = x.share;
+  }
+  const held = undeterminedHolders(P, byIndex);
+  const unknown = held.length
+    ? { verdict: 'unknown' as const, undetermined: held, reason: `${held.map((h) => `${h.species} (${(100 * h.share).toPrecision(3)} %)`).join(', ')} ${held.length > 1 ? 'hold' : 'holds'} part of the element (${100 * UNDETERMINED_SHARE} % or more) but cannot be carried to ${spec.temperature} °C (only ΔfG° given); no verdict` }
+    : { verdict };
   // Step 4: the dissolved total against the threshold.
   return {
     ...base,
@@ -91,7 +107,7 @@ export function compositionProbe(spec: SystemSpec, setup: CompositionSetup, pH: 
     predominant: formula,
     phase: sp.phase,
     class: cls,
-    verdict,
+    ...unknown,
     dissolved: r.dissolved,
     dissolvedVsThreshold: r.dissolved > spec.activity ? 'above' : 'below',
     speciation: r.speciation,

@@ -55,13 +55,22 @@ export function findSpecies(lib: readonly LibrarySpecies[], key: string): Librar
 export interface SpeciesForOptions {
   /** Include species flagged metastable (default false). */
   metastable?: boolean;
+  /** The system temperature, °C: species outside their `stableBelow`/`stableAbove` range count as metastable there (default 25). */
+  celsius?: number;
+}
+
+/** Whether a species counts as metastable at `celsius`: flagged so, or outside its phase-choice range. */
+export function metastableAt(s: Pick<LibrarySpecies, 'metastable' | 'stableBelow' | 'stableAbove'>, celsius = 25): boolean {
+  if (s.metastable) return true;
+  if (s.stableBelow !== undefined && !(celsius < s.stableBelow)) return true;
+  return s.stableAbove !== undefined && celsius < s.stableAbove;
 }
 
 /**
  * The species of the system {element, ligands, H, O}: every library species whose elements are all
  * within that set and which contains the main element or a ligand element. Water's own species
- * (only H and O) and compounds of the "mixed" file are not returned. Metastable species are left out
- * unless opts.metastable is true.
+ * (only H and O) and compounds of the "mixed" file are not returned. Metastable species (flagged, or
+ * outside their stableBelow/stableAbove range at opts.celsius) are left out unless opts.metastable is true.
  * Example: speciesFor(lib, 'Cu', ['S']) → Cu, Cu+2, CuO, ..., Cu2S, CuS, and S, H2S, HS-, SO4-2, ...
  */
 export function speciesFor(
@@ -73,7 +82,7 @@ export function speciesFor(
   const allowed = new Set<string>([element, ...ligands, 'H', 'O']);
   const wanted = new Set<string>([element, ...ligands]);
   return lib.filter((s) => {
-    if (s.metastable && !opts.metastable) return false;
+    if (!opts.metastable && metastableAt(s, opts.celsius)) return false;
     if (s.mixed) return false;
     const els = Object.keys(s.elements);
     if (!els.every((e) => allowed.has(e))) return false;

@@ -50,6 +50,10 @@ export interface SpeciesRecord extends SpeciesValues {
   uncertainty?: Partial<Record<ValueKey, number>>;
   /** Excluded from systems unless metastable phases are asked for. */
   metastable?: boolean;
+  /** Phase choice: enters a system only below this temperature (°C); treated as metastable at and above it. */
+  stableBelow?: number;
+  /** Phase choice: enters a system only at and above this temperature (°C); treated as metastable below it. */
+  stableAbove?: number;
   alternatives?: SpeciesAlternative[];
   note?: string;
   aliases?: string[];

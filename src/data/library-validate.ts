@@ -14,7 +14,7 @@ const PHASES: readonly Phase[] = ['s', 'l', 'g', 'aq'];
 const FILE_KEYS = new Set(['$schema', 'element', 'sources', 'species']);
 const SPECIES_KEYS = new Set([
   'formula', 'phase', 'name', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled',
-  'uncertainty', 'metastable', 'alternatives', 'note', 'aliases', 'hkf', 'cpPolynomial',
+  'uncertainty', 'metastable', 'stableBelow', 'stableAbove', 'alternatives', 'note', 'aliases', 'hkf', 'cpPolynomial',
 ]);
 const ALT_KEYS = new Set(['id', 'dfG', 'dfH', 'S', 'Cp', 'source', 'sources', 'recalled', 'uncertainty', 'note']);
 const ELEMENT_RE = /^[A-Z][a-z]?$/;
@@ -125,6 +125,11 @@ function checkEntry(file: string, i: number, raw: unknown, sourceMap: Readonly<R
     checkParameterBlock(o.cpPolynomial, POLY_FIELDS, sourceMap, (f, m) => fail(f ? `${at}.cpPolynomial.${f}` : `${at}.cpPolynomial`, m));
   }
   if (o.metastable !== undefined && typeof o.metastable !== 'boolean') fail(`${at}.metastable`, 'must be true or false');
+  for (const k of ['stableBelow', 'stableAbove'] as const) {
+    const v = o[k];
+    if (v !== undefined && (typeof v !== 'number' || !Number.isFinite(v) || v < 0 || v > 350)) fail(`${at}.${k}`, 'a temperature in °C from 0 to 350');
+  }
+  if (o.metastable === true && (o.stableBelow !== undefined || o.stableAbove !== undefined)) fail(`${at}.metastable`, 'not together with stableBelow/stableAbove (those already say where the species is metastable)');
   if (o.aliases !== undefined) {
     if (!Array.isArray(o.aliases) || !o.aliases.every(isText)) fail(`${at}.aliases`, 'must be an array of non-empty strings');
   }

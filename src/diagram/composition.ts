@@ -23,6 +23,7 @@ import { KELVIN } from '../thermo/constants.js';
 import { VERSION } from '../version.js';
 import { classify } from './classify.js';
 import { type CompositionSetup, compositionSetup } from './composition-setup.js';
+import { UNDETERMINED_SHARE, undeterminedIndices, undeterminedShareAreas } from './composition-undetermined.js';
 import { verdictOf } from './verdict.js';
 
 /** Default iso-solubility levels, mol/kg: every decade from 10⁻⁸ to 10⁻². */
@@ -66,7 +67,10 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
   const triples = joinTriplePoints(field, g, traced.boundaries);
   const boundaries = traced.boundaries.map((b) => boundaryModel(setup, b));
   // Step 3: iso-solubility lines.
-  const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? spec.composition?.levels ?? [])])].sort((a, b) => a - b);
+  // Levels at or above the element's total have no line (the dissolved total never exceeds it; at
+  // the total itself the contour is degenerate wherever everything is dissolved and gave NaN vertices).
+  const total = setup.totals[input.element]!;
+  const levels = [...new Set([...ISO_LEVELS, ...(opts.levels ?? spec.composition?.levels ?? [])])].filter((l) => l < total * (1 - 1e-9)).sort((a, b) => a - b);
   const isoSolubility: IsoSolubilityLine[] = levels.map((level) => ({ level, lines: traceIsoLines(field, g, Math.log10(level)) }));
   const warnings = [...setup.warnings];
   if (g.failed) warnings.push(`composition mode: ${g.failed} of ${n * n} grid points could not be solved; they are undetermined (no region drawn there)`);
@@ -74,6 +78,10 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
   // regions leave uncovered (slivers near triple points the junctions could not close).
   const failedPolys = undeterminedPolygons(g);
   const gaps = uncoveredPolygons(g, [...regions.flatMap((r) => r.polygons), ...failedPolys]);
+  // Step 5: where species without G at T hold a share of the element, no verdict either.
+  const und = undeterminedIndices(P);
+  const heldPolys = undeterminedShareAreas(g, und, P.species.length);
+  if (heldPolys.length) warnings.push(`composition mode: no verdict where ${und.map((k) => P.species[k].formula).join(', ')} (G unknown at this temperature) hold ${100 * UNDETERMINED_SHARE} % or more of ${input.element}; that area is drawn as undetermined`);
   if (gaps.length) warnings.push(`composition mode: ${gaps.length} small area(s) near region junctions are not resolved at grid ${n}; they are drawn as undetermined (a finer grid shrinks them)`);
   const comp = spec.composition!;
   const model: DiagramModel = {
@@ -92,7 +100,7 @@ export function computeComposition(spec: SystemSpec, opts: CompositionOptions = 
     waterLines: { ...waterLines(input), pressures: input.pressures },
     warnings,
     sources: setup.built.sources,
-    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...failedPolys, ...gaps], ...(gaps.length ? { unresolved: gaps.length } : {}) },
+    composition: { totals: setup.totals, units: 'mol/kg', ionicStrength: comp.autoIonicStrength ? 'auto' : setup.solver.gamma.ionicStrength, grid: { nx: n, ny: n, failed: g.failed }, undetermined: [...heldPolys, ...failedPolys, ...gaps], ...(heldPolys.length ? { heldBy: und.map((k) => P.species[k].formula) } : {}), ...(gaps.length ? { unresolved: gaps.length } : {}) },
     isoSolubility,
   };
   return { setup, grid: g as GridSample<unknown>, model };
@@ -102,6 +110,8 @@ function summary(element: string, sp: SolverSpecies, role: 'main' | 'ligand'): S
   const s: SpeciesSummary = { formula: sp.formula, phase: sp.phase, class: classify(element, sp), role, G: Math.round(sp.G * 1e6) / 1e6 };
   if (sp.name) s.name = sp.name;
   if (sp.source) s.source = sp.source;
+  if (sp.temperatureModel) s.temperatureModel = sp.temperatureModel;
+  if (sp.estimated) s.estimated = true;
   return s;
 }
 

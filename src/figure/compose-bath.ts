@@ -29,6 +29,7 @@ export function bathCaptionLines(m: DiagramModel): string[] {
   const w = m.water;
   if (w && (Number(w.temperatureC) >= 100 || w.pressurePath === 'user')) bits.push(`liquid water at ${Number(w.pressureMPa).toPrecision(3)} MPa`);
   if (w && m.temperature.celsius !== 25) bits.push(`neutral pH ${Number(w.neutralPH).toFixed(2)}`);
+  if (comp.heldBy?.length) bits.push(`no verdict where ${comp.heldBy.join(', ')} (ΔfG° only, G unknown at T) hold 1 % or more of ${m.element} (undetermined)`);
   if (comp.grid.failed > 0) bits.push(`${comp.grid.failed} of ${comp.grid.nx * comp.grid.ny} grid points unsolved (undetermined)`);
   if (bits.length) lines.push(`${bits.join('; ')}.`.replace(/^./, (ch) => ch.toUpperCase()));
   const short = m.sources.map(shortSource).filter((s, k, a) => a.indexOf(s) === k);

@@ -41,7 +41,7 @@ function swatchEntries(b: SceneBase): LegendEntry[] {
     out.push({ kind: 'swatch', group: c, fill: o.style === 'gray' ? toGray(tint) : tint, runs });
   }
   const und = [...new Set(model.regions.filter((r) => r.undetermined).map((r) => r.species))].sort();
-  if (und.length) {
+  if (und.length || model.composition?.heldBy?.length) {
     // Short, to share a legend row; the caption names the species (figure/compose.ts).
     out.push({ kind: 'swatch', fill: UNDETERMINED_FILL, runs: plainRuns('undetermined') });
   }

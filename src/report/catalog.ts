@@ -18,6 +18,9 @@ export interface CatalogEntry {
   valueSources?: Record<string, string>;
   recalled: boolean;
   metastable: boolean;
+  /** Phase choice by temperature (°C): used only below / from this temperature (absent: always). */
+  stableBelow?: number;
+  stableAbove?: number;
   uncertainty?: Record<string, number>;
   alternatives?: { id: string; dfG: number; dfH: number | null; S: number | null; Cp: number | null; source: string; sourceText: string; note?: string }[];
   note?: string;
@@ -49,6 +52,8 @@ export function catalogEntries(lib: readonly LibrarySpecies[], element?: string)
     const tm = libraryTemperatureModel(s, lib);
     e.temperatureModel = tm.model;
     if (tm.estimated) e.estimated = tm.estimatedWhat;
+    if (s.stableBelow !== undefined) e.stableBelow = s.stableBelow;
+    if (s.stableAbove !== undefined) e.stableAbove = s.stableAbove;
     if (s.valueSourceText) e.valueSources = { ...s.valueSourceText } as Record<string, string>;
     if (s.uncertainty) e.uncertainty = { ...s.uncertainty } as Record<string, number>;
     if (s.note) e.note = s.note;
@@ -79,7 +84,7 @@ export function catalogText(entries: CatalogEntry[]): string {
     n(e.S, 2),
     n(e.Cp, 2),
     `${e.temperatureModel}${e.estimated ? ` (estimated: ${e.estimated.join(', ')})` : ''}`,
-    `${e.source}${e.recalled ? '*' : ''}${e.metastable ? ' (metastable)' : ''}${e.alternatives ? ` [alt: ${e.alternatives.map((a) => a.id).join(', ')}]` : ''}`,
+    `${e.source}${e.recalled ? '*' : ''}${e.metastable ? ' (metastable)' : ''}${e.stableBelow !== undefined ? ` (used below ${e.stableBelow} °C)` : ''}${e.stableAbove !== undefined ? ` (used from ${e.stableAbove} °C)` : ''}${e.alternatives ? ` [alt: ${e.alternatives.map((a) => a.id).join(', ')}]` : ''}`,
   ]);
   const sources = new Map<string, string>();
   for (const e of entries) {

@@ -21,7 +21,10 @@ export function compositionProbeText(r: CompositionProbeResult): string {
     return `${lines.join('\n')}\n`;
   }
   const side = r.dissolvedVsThreshold === 'above' ? 'above' : 'at or below';
-  lines.push(`verdict: ${r.verdict.toUpperCase()} — ${r.predominant} holds the largest share of the element (${r.class}); total dissolved ${g(r.dissolved!)} mol/kg, ${side} the corrosion threshold ${g(r.threshold)} mol/kg`);
+  if (r.undetermined?.length) {
+    lines.push(`verdict: UNKNOWN — ${r.reason}`);
+    lines.push(`largest share: ${r.predominant} (${r.class}); total dissolved ${g(r.dissolved!)} mol/kg, ${side} the corrosion threshold ${g(r.threshold)} mol/kg`);
+  } else lines.push(`verdict: ${r.verdict.toUpperCase()} — ${r.predominant} holds the largest share of the element (${r.class}); total dissolved ${g(r.dissolved!)} mol/kg, ${side} the corrosion threshold ${g(r.threshold)} mol/kg`);
   // The speciation table: one row per dissolved species, then the solids.
   const comps = Object.keys(r.shares);
   // Shares label solids as 'formula(phase)', dissolved species by their formula.

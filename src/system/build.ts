@@ -142,7 +142,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
     }
   } else {
     const metaAll = spec.metastable === true;
-    list = speciesFor(lib, spec.element, ligandEls, { metastable: metaAll }).map((s) => ({ ...fromLibrary(s, `library ${s.file}: ${s.formula}`), implicit: true }));
+    list = speciesFor(lib, spec.element, ligandEls, { metastable: metaAll, celsius: spec.temperature }).map((s) => ({ ...fromLibrary(s, `library ${s.file}: ${s.formula}`), implicit: true }));
     list = list.filter((s) => keepLigandSpecies(spec, s));
     if (Array.isArray(spec.metastable)) {
       for (const m of spec.metastable) {

@@ -98,6 +98,9 @@ describe('loader validation errors name the file and the field', () => {
     ['unknown field', withSpecies({ dG: 3 }), /x\.json.*\.dG.*unknown field/],
     ['alternative without source', withSpecies({ alternatives: [{ id: 'A', dfG: 1 }] }), /alternatives\[0\]\.source/],
     ['empty sources', { ...base, sources: {} }, /x\.json: sources/],
+    ['phase-choice temperature out of range', withSpecies({ stableAbove: 400 }), /x\.json.*\.stableAbove.*0 to 350/],
+    ['phase-choice temperature not a number', withSpecies({ stableBelow: '100' }), /x\.json.*\.stableBelow/],
+    ['phase choice and metastable together', withSpecies({ stableBelow: 100, metastable: true }), /x\.json.*\.metastable.*stableBelow/],
   ];
   for (const [label, data, re] of cases) {
     it(label, () => {

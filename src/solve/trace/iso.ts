@@ -26,6 +26,8 @@ export function traceIsoLines<S>(field: TraceField<S>, g: GridSample<S>, level: 
           return (Number.isFinite(v1) ? v1 : floor) - level;
         };
         const c = refineCrossing(phi, vals[a] - level, vals[b] - level, tolT);
+        // A degenerate crossing (the value flat at the level on both ends) has no position: split there.
+        if (!Number.isFinite(c.t)) return null;
         return [xa + (xb - xa) * c.t, ya + (yb - ya) * c.t] as [number, number];
       });
       // Split at frame vertices; a ring without any is kept closed.

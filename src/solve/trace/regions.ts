@@ -161,7 +161,7 @@ function runs(ring: RefinedVertex[], f: number): TracedBoundary[] {
   return out;
 }
 
-function dedupe(pts: [number, number][]): [number, number][] {
+export function dedupe(pts: [number, number][]): [number, number][] {
   const out: [number, number][] = [];
   for (const p of pts) {
     const q = out[out.length - 1];
