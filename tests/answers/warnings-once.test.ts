@@ -1,0 +1,39 @@
+/**
+ * Each warning once: a reference electrode named in the file (`reference:`) away from the range of
+ * its temperature formula warns once on stderr and once in the JSON `warnings`, in probe and lines
+ * (the model and the displayed reference used to both carry it). The Ag/AgCl (sat. KCl) formula
+ * holds over 0–90 °C (src/thermo/reference.ts), so 120 °C is outside it.
+ */
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../helpers/cli.js';
+import { tmpDir, writeTmp } from '../helpers/tmp.js';
+
+const dir = tmpDir();
+const fe = writeTmp(dir, 'fe.yaml', 'element: Fe\ntemperature: 120\nreference: agcl-sat\n');
+const count = (text: string) => text.split('\n').filter((l) => /Ag\/AgCl.*outside/.test(l)).length;
+
+describe('reference extrapolation warning once', () => {
+  for (const [name, args] of [
+    ['probe', ['probe', fe, '--ph', '9', '--potential', '-0.6']],
+    ['probe --ref (same electrode)', ['probe', fe, '--ph', '9', '--potential', '-0.6', '--ref', 'agcl-sat']],
+    ['lines', ['lines', fe]],
+    ['lines --ref (same electrode)', ['lines', fe, '--ref', 'agcl-sat']],
+    ['window', ['window', fe]],
+  ] as const) {
+    it(`${name}: once on stderr, once in JSON`, async () => {
+      const text = await runCli([...args]);
+      expect(text.code).toBe(0);
+      expect(count(text.stderr)).toBe(1);
+      const json = await runCli([...args, '--json']);
+      expect(count(json.stderr)).toBe(1);
+      const ws = (JSON.parse(json.stdout) as { warnings: string[] }).warnings;
+      expect(ws.filter((w) => /Ag\/AgCl.*outside/.test(w))).toHaveLength(1);
+    });
+  }
+
+  it('draw --ref with the file\'s own electrode: once on stderr', async () => {
+    const r = await runCli(['draw', fe, '--ref', 'agcl-sat', '-o', `${dir}/fe.svg`]);
+    expect(r.code).toBe(0);
+    expect(count(r.stderr)).toBe(1);
+  });
+});
