@@ -37,10 +37,12 @@ export function windowText(r: WindowResult | ScaledWindowResult, head: string): 
     `${w.pH[0].toFixed(2)}–${w.pH[1].toFixed(2)}`,
     w.dissolved.join(', '),
     `${v(onScale(w.deposition[0]))} … ${v(onScale(w.deposition[w.deposition.length - 1]))}`,
-    `${v(w.marginToHydrogen.atLowPH)} … ${v(w.marginToHydrogen.atHighPH)}`,
+    // The margin's range over the window (its least value may lie inside it, e.g. at a ligand's
+    // pKa where E_dep turns), not its values at the ends: the same figures as the margin note.
+    `${v(w.marginToHydrogen.min)} … ${v(w.marginToHydrogen.max)}`,
     `${w.boundedBy.low ?? 'edge'} / ${w.boundedBy.high ?? 'edge'}`,
   ]);
-  const t = table(['pH range', 'dissolved form', `E_dep at ends / V vs ${scale}`, 'E_dep − E(H2) / V', 'bounded by (low / high pH)'], rows);
+  const t = table(['pH range', 'dissolved form', `E_dep at ends / V vs ${scale}`, 'E_dep − E(H2) min … max / V', 'bounded by (low / high pH)'], rows);
   const fs = r.firstSolid ? `First solid above the window: ${r.firstSolid.species} from pH ${r.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.';
   return `${head}\n\n${t}\n\n${fs}\n${r.notes.map((n) => `Note: ${n}`).join('\n')}\nEquilibrium thermodynamics only — not kinetics; check against the bath supplier's data and a qualified plating professional.\n${warn}`;
 }
