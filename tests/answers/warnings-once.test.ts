@@ -37,3 +37,14 @@ describe('reference extrapolation warning once', () => {
     expect(count(r.stderr)).toBe(1);
   });
 });
+
+describe('composition lines honour the file reference', () => {
+  it('a bath file with reference: sce gets the E span vs SCE column without --ref (SCE +0.241 V vs SHE, common practice)', async () => {
+    const bath = writeTmp(dir, 'ag.yaml', 'element: Ag\ncomposition: {Ag: 0.2, CN: 0.6}\nreference: sce\ngrid: 60\n');
+    const r = await runCli(['lines', bath, '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout) as { reference?: { label: string; offset: number } };
+    expect(j.reference?.label).toBe('SCE');
+    expect(j.reference?.offset).toBeCloseTo(0.241, 2);
+  });
+});
