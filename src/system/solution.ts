@@ -62,7 +62,8 @@ const SALTS: Record<string, [number, number][]> = {
   NiCl2: [[2, 1], [-1, 2]],
 };
 
-const AMOUNT_RE = /^\s*([0-9.]+(?:[eE][-+]?\d+)?)\s*(mol\/kg|mmol\/kg|mg\/L|mg\/l|g\/L|g\/l|ppm)\s*(?:as\s+([A-Za-z0-9()+-]+))?\s*$/;
+/** "<number> <unit> [as <formula>]"; the formula may be a hydrate written with ·, . or * (CuSO4·5H2O). */
+const AMOUNT_RE = /^\s*([0-9.]+(?:[eE][-+]?\d+)?)\s*(mol\/kg|mmol\/kg|mg\/L|mg\/l|g\/L|g\/l|ppm)\s*(?:as\s+([A-Za-z0-9()+\-·.*]+))?\s*$/;
 
 /** Read an amount: a number is an activity; "1e-4 mol/kg", "5 mg/L", "5 mg/L as Fe" are concentrations. */
 export function readAmount(f: Fields, v: unknown, field: string): Amount {

@@ -36,3 +36,15 @@ describe('amount as a salt', () => {
     expect(Number(m[2])).toBeCloseTo(1.025, 3);
   });
 });
+
+describe('a hydrate after "as"', () => {
+  it('200 g/L as CuSO4·5H2O (M = 249.69 g/mol, IUPAC atomic weights recalled): 0.8034 mol/kg Cu at 25 °C, as CuSO4(H2O)5', async () => {
+    const dir = tmpDir();
+    for (const salt of ['CuSO4·5H2O', 'CuSO4.5H2O', 'CuSO4(H2O)5']) {
+      const f = writeTmp(dir, 'cu.yaml', `element: Cu\ncomposition: {Cu: "200 g/L as ${salt}"}\npH: [0, 3]\nE: [-0.5, 1]\ngrid: 40\n`);
+      const r = await runCli(['window', f]);
+      expect(r.code).toBe(0);
+      expect(Number(/totals Cu ([\d.]+)/.exec(r.stdout)![1])).toBeCloseTo(0.8034, 3);
+    }
+  });
+});
