@@ -48,3 +48,16 @@ describe('composition lines honour the file reference', () => {
     expect(j.reference?.offset).toBeCloseTo(0.241, 2);
   });
 });
+
+describe('probe --points: each warning once per row', () => {
+  it('the row warnings column names the Ag/AgCl extrapolation once', async () => {
+    const log = writeTmp(dir, 'log.csv', 'pH,E\n9,-0.6\n9.5,-0.65\n');
+    const out = `${dir}/rows.csv`;
+    const r = await runCli(['probe', fe, '--points', log, '-o', out]);
+    expect(r.code).toBe(0);
+    const { readFileSync } = await import('node:fs');
+    const rows = readFileSync(out, 'utf8').trim().split('\n').slice(1);
+    expect(rows).toHaveLength(2);
+    for (const row of rows) expect(row.split(/Ag\/AgCl \(sat\. KCl\): 120 °C is outside/).length - 1).toBe(1);
+  });
+});
