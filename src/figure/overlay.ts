@@ -81,6 +81,26 @@ export function layerLabel(c: Computed, ascii: boolean): string {
   return `${m.element}, ${fmtCelsius(m.temperature.celsius)} \u00b0C, ${a}${lig.length ? `, ${lig.join(', ')}` : ''}`;
 }
 
+/** Legend labels longer than this many characters are shortened to what tells the layers apart. */
+export const LEGEND_LABEL_MAX = 40;
+
+/**
+ * The legend's name of each layer: its full label (layerLabel) when that is short, else only the
+ * parts that differ between layers (the element always kept), e.g. "Fe, 90 °C" when every layer has
+ * the same amounts and ligands — the caption's "Layers:" line keeps the full labels. Full labels
+ * are kept when the short ones would not tell every layer apart.
+ */
+export function legendLabels(layers: Computed[], full: string[], ascii: boolean): string[] {
+  if (full.every((l) => l.length <= LEGEND_LABEL_MAX)) return full;
+  const parts = layers.map((l) => [`${fmtCelsius(l.model.temperature.celsius)} \u00b0C`, elementAmountText(l.model, ascii), ...ligandAmountTexts(l.model, ascii)]);
+  const n = Math.max(...parts.map((p) => p.length));
+  // Amounts given by mass differ in mol/kg with T (water's density): compare them as given.
+  const given = (t: string | undefined) => t?.replace(/ \([^()]*mol\/kg\)/, '');
+  const differs = Array.from({ length: n }, (_, i) => parts.some((p) => given(p[i]) !== given(parts[0][i])));
+  const short = layers.map((l, k) => [l.model.element, ...parts[k].filter((_, i) => differs[i])].join(', '));
+  return new Set(short).size === short.length ? short : full;
+}
+
 export interface OverlayFigure {
   input: FigureInput;
   layers: { label: string; dash: string | null; computed: Computed }[];
@@ -138,18 +158,19 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
     const ts = [...new Set(layers.map((l) => fmtCelsius(l.model.temperature.celsius)))];
     fig.options.title = sameElement ? `${base.model.element}\u2013{H2O}, ${ts.join(' / ')} \u00b0C` : `${els.join(', ')}: separate single-element diagrams`;
   }
+  const legend = legendLabels(layers, labels, ascii);
   const explicitAxis = fig.options.secondAxis !== undefined;
   const input = figureInput(base, { options: fig.options, families: [] });
   const scaleNote = fileScaleMarks(input, layers, file, fig, explicitAxis);
   input.overlays = layers.slice(1).map((l, k) => ({
-    label: labels[k + 1],
+    label: legend[k + 1],
     model: l.model,
     dash: OVERLAY_DASHES[k],
     // The base keeps the 'lines' style's black boundaries, LAYER_INKS[0].
     ...(layerColors ? { color: LAYER_INKS[(k + 1) % LAYER_INKS.length] } : {}),
   }));
   // The base layer is named in the legend like the others (its fields are filled when the elements agree).
-  input.baseLabel = `${labels[0]}${sameElement && fig.options.style !== 'lines' ? ' (filled)' : ''}`;
+  input.baseLabel = `${legend[0]}${sameElement && fig.options.style !== 'lines' ? ' (filled)' : ''}`;
   if (fig.options.show.caption) {
     // The base's own caption without its first line (conditions, named per layer here) and data line.
     const own = captionLines(base).slice(1).filter((l) => !l.startsWith('Data: '));

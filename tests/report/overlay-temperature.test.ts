@@ -73,3 +73,27 @@ describe('overlay: operating marks and reference axis at the file temperature', 
     expect(Math.abs(second.offset - referenceOffset('sce', 25).offset)).toBeGreaterThan(0.01);
   });
 });
+
+describe('overlay legend of long layer labels', () => {
+  // 20 mg/L chloride and 120 mg/L bicarbonate make each full layer label ~90 characters, wider than
+  // an 85 mm figure's legend row: the legend used to run off the right edge.
+  const loop = writeTmp(dir, 'loop-lig.yaml', 'element: Fe\ntemperature: 90\nconcentration: "0.05 mg/L"\nligands: {Cl: "20 mg/L", C: "120 mg/L as HCO3"}\npH: [5, 12]\nE: [-1.4, 0.8]\n');
+
+  it('names the layers by what differs (the temperature) in the legend, in full in the caption', () => {
+    const spec = loadSpec(loop);
+    const layers = computeLayers(layerSpecs({ specs: [spec], temperatures: [25, 90, 150] }));
+    const fig = overlaySettings(layers, { width: '85mm' });
+    const input = overlayFigure(layers, fig, false, spec).input;
+    expect(input.overlays?.map((o) => o.label)).toEqual(['Fe, 90 °C', 'Fe, 150 °C']);
+    expect(input.baseLabel).toBe('Fe, 25 °C (filled)');
+    const cap = (input.caption ?? []).join(' ');
+    expect(cap).toMatch(/Layers: Fe, 25 °C, 0\.05 mg\/L .*Cl 20 mg\/L .*C 120 mg\/L as HCO3/);
+  });
+
+  it('keeps short labels as they are', () => {
+    const spec = loadSpec(file);
+    const layers = computeLayers(layerSpecs({ specs: [spec], temperatures: [25, 150] }));
+    const input = overlayFigure(layers, overlaySettings(layers, {}), false, spec).input;
+    expect(input.overlays?.[0].label).toMatch(/^Fe, 150 °C, a = 10/);
+  });
+});
