@@ -40,3 +40,19 @@ describe('composition window: one margin', () => {
     expect(mMax - mMin).toBeGreaterThan(0.05);
   });
 });
+
+describe('report: the plating-window section gives the same margin range', () => {
+  it('markdown table and note agree (least … greatest)', async () => {
+    const f = writeTmp(dir, 'rinse-report.yaml', 'element: Cu\ncomposition: {Cu: 0.05, N: 1}\npH: [4, 14]\nE: [-0.8, 1.0]\ngrid: 120\nplatingWindow: true\n');
+    const out = `${dir}/rinse.md`;
+    const r = await runCli(['report', f, '-o', out]);
+    expect(r.code).toBe(0);
+    const { readFileSync } = await import('node:fs');
+    const md = readFileSync(out, 'utf8');
+    expect(md).toContain('E_dep − E(H₂) min … max / V');
+    const row = /^\| \d+\.\d+–\d+\.\d+ \|[^|]*\|[^|]*\| ([+-]\d\.\d+) … ([+-]\d\.\d+) \|/m.exec(md)!;
+    const note = /margin ([+-]\d\.\d+) V to ([+-]\d\.\d+) V/.exec(md)!;
+    expect([row[1], row[2]]).toEqual([note[1], note[2]]);
+    expect(Number(row[2]) - Number(row[1])).toBeGreaterThan(0.05);
+  });
+});
