@@ -164,6 +164,17 @@ export function unitsPerFormula(as: string, unit: string): number {
 }
 
 /**
+ * Refuses an amount of `component` (the element, or a ligand such as Cl or CN) given "as" a formula
+ * that holds none of it ("20 mg/L as Fe" for chloride), which no conversion can make sense of.
+ */
+export function checkAsHolds(f: Fields, a: Amount, component: string, field: string): void {
+  if (a.as === undefined) return;
+  const have = parseFormula(a.as).elements;
+  const need = Object.entries(parseFormula(component).elements);
+  if (need.some(([el, k]) => (have[el] ?? 0) < k)) f.fail(field, `a formula holding ${component} after "as" (e.g. "as ${component}")`, a.as);
+}
+
+/**
  * Molality of an amount given as mg/L: of the fallback formula (the element, the ligand or the
  * species), with the molar mass of `as` when given times the units of the fallback that one `as`
  * holds — 60 g/L as Zn(CN)2 is 60/117.4 mol/L of Zn but twice that of CN.

@@ -48,3 +48,27 @@ describe('a hydrate after "as"', () => {
     }
   });
 });
+
+describe('"as" a formula that holds none of the component', () => {
+  const dir = tmpDir();
+  for (const [name, text, field] of [
+    ['a ligand', 'element: Fe\nligands: {Cl: "20 mg/L as Fe"}\n', 'ligands.Cl'],
+    ['the element', 'element: Fe\nconcentration: "1 mg/L as Cu"\n', 'concentration'],
+    ['a bath total', 'element: Cu\ncomposition: {Cu: 0.1, CN: "10 g/L as NaCl"}\n', 'composition.CN'],
+  ] as const) {
+    it(`is refused for ${name}, naming the field (exit 2)`, async () => {
+      const f = writeTmp(dir, 'bad.yaml', text);
+      const r = await runCli(['lines', f]);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toContain(field);
+      expect(r.stderr).toMatch(/a formula holding \w+ after "as"/);
+    });
+  }
+
+  it('accepts the usual forms (C as HCO3 or CaCO3, S as SO4, N as NH4)', async () => {
+    const f = writeTmp(dir, 'ok.yaml', 'element: Fe\nligands: {C: "120 mg/L as CaCO3", S: "10 mg/L as SO4"}\n');
+    expect((await runCli(['lines', f])).code).toBe(0);
+    const g = writeTmp(dir, 'ok2.yaml', 'element: Cu\nligands: {N: "18 mg/L as NH4"}\n');
+    expect((await runCli(['lines', g])).code).toBe(0);
+  });
+});
