@@ -46,7 +46,8 @@ export function compositionPointsAnswerer(
     const s = she.value;
     // Step 3: the speciation at the point.
     const result = compositionProbe({ ...spec, temperature: T }, k.s, q.pH, s.E, s.ref);
-    return { scale: s.ref?.label ?? 'SHE', result, warnings: [...k.s.warnings, ...s.warnings] };
+    const own = k.s.warnings;
+    return { scale: s.ref?.label ?? 'SHE', result, warnings: [...own, ...s.warnings.filter((w) => !own.includes(w))] };
   };
   return { answer };
 }

@@ -91,8 +91,9 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
       c = w.value;
     }
     const result = probe(c, q.pH, s.E, s.ref);
-    // The probe's own warnings: the model's, plus any about this point (e.g. no verdict in an undetermined field).
-    const warnings = s.warnings.length ? [...result.warnings, ...s.warnings] : result.warnings;
+    // The probe's own warnings: the model's, plus any about this point (e.g. no verdict in an undetermined
+    // field), each once (the model already carries the file's reference-electrode warnings).
+    const warnings = s.warnings.length ? [...result.warnings, ...s.warnings.filter((w) => !result.warnings.includes(w))] : result.warnings;
     return { scale: s.ref?.label ?? 'SHE', result, warnings };
   };
   return { answer, computed: () => computations };

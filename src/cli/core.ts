@@ -1,6 +1,7 @@
 /**
  * Verbs draw, probe, lines (issue 2 core) and demo.
  */
+import { writeWarnings } from './notes.js';
 import type { Command } from 'commander';
 import { compute, computeAny } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
@@ -89,10 +90,10 @@ export function registerCore(program: Command): void {
       const given = opts.ref !== undefined ? readReference(new Fields('command line'), opts.ref, '--ref') : c.spec.operating.reference;
       const [where, field] = opts.ref !== undefined ? ['command line', '--ref'] : [c.spec.file, 'reference'];
       const ref = given === undefined ? undefined : displayReference(given, c.spec.temperature, where, field);
-      warn([...c.model.warnings, ...(ref?.warnings ?? [])]);
+      const warnings = writeWarnings(c.model.warnings, ref?.warnings ?? []);
       const rows = lineRows(c.model, ref);
       if (opts.json) {
-        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, ...(ref ? { reference: { id: ref.id, label: ref.label, offset: ref.offset } } : {}), lines: rows, waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water, warnings: [...c.model.warnings, ...(ref?.warnings ?? [])] }));
+        process.stdout.write(stableJson({ element: c.model.element, temperature: c.model.temperature, units: c.model.units, ...(ref ? { reference: { id: ref.id, label: ref.label, offset: ref.offset } } : {}), lines: rows, waterLines: c.model.waterLines, activities: activityRows(c.model), water: c.model.water, warnings }));
       } else process.stdout.write(linesText(c.model, ref));
     });
 }

@@ -62,11 +62,12 @@ export function registerOverlay(program: Command): void {
       const layers = computeLayers(layerSpecs({ specs, temperatures, activities }));
       const fig = overlaySettings(layers, opts);
       if (opts.ref !== undefined) {
-        const r = displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), layers[0].spec.temperature, 'command line', '--ref');
+        // At the base file's own temperature, like its operating marks (see overlayFigure).
+        const r = displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), specs[0].temperature, 'command line', '--ref');
         withSecondAxis(layers[0], fig, r);
       }
       for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
-      const { input } = overlayFigure(layers, fig, ext === 'pdf');
+      const { input } = overlayFigure(layers, fig, ext === 'pdf', specs[0]);
       await writeOne(opts.output, await renderFigure(input, ext as FigureFormat));
       reportFigureNotes(input.model);
       process.stdout.write(`wrote ${opts.output} (${layers.length} layers)\n`);

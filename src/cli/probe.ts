@@ -4,6 +4,7 @@
  * -o for one point is checked before any compute (src/cli/outputs.ts): .json (its JSON answer),
  * never the system file; with --points, probe-points.ts checks and writes it.
  */
+import { writeWarnings } from './notes.js';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { loadAlloyWith, probeAlloy } from './alloy.js';
@@ -80,7 +81,7 @@ export function registerProbe(program: Command): void {
       const E0 = num(opts.potential, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 });
       const s = toShe(ref, E0, spec.temperature, pH, 'command line', '--ref');
       const c = at(spec.temperature, { pH, E: s.E });
-      for (const w of [...c.model.warnings, ...s.warnings]) process.stderr.write(`warning: ${w}\n`);
+      writeWarnings(c.model.warnings, s.warnings);
       const r = probe(c, pH, s.E, s.ref);
       if (opts.output !== undefined) {
         await writeOne(opts.output, stableJson(r));

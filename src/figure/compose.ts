@@ -99,7 +99,7 @@ export function figureInput(c: Drawn, fig: FigureSettings): FigureInput {
 export function withSecondAxis(c: Pick<Computed, 'model'>, fig: FigureSettings, r: DisplayedReference): void {
   fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
   c.model.reference = { id: r.id, label: r.label, offset: r.offset };
-  c.model.warnings.push(...r.warnings);
+  c.model.warnings.push(...r.warnings.filter((w) => !c.model.warnings.includes(w)));
 }
 
 /** Figure input with the plating windows drawn as boxes over the full potential range. */

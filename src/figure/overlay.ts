@@ -8,6 +8,7 @@
  * their own colour-blind-safe line colours (LAYER_INKS).
  */
 import { atActivity, captionLines, figureInput } from './compose.js';
+import { placeOperatingMarks } from './operating-marks.js';
 import { type FigureOverrides, type FigureSettings, figureSettingsWidth } from './options.js';
 import { compute, type Computed } from '../pipeline.js';
 import { LAYER_INK_NAMES, LAYER_INKS } from '../render/palette.js';
@@ -15,6 +16,7 @@ import type { FigureInput } from '../render/scene.js';
 import { InputError } from '../system/errors.js';
 import { T_RANGE, type SystemSpec } from '../system/spec.js';
 import { elementAmountText, fmtCelsius, ligandAmountTexts, shortSource } from '../report/format.js';
+import { referenceOffset } from '../thermo/reference.js';
 
 /**
  * Dash styles of the overlay layers, in order (names understood by the renderer's parseDash): the
@@ -79,6 +81,26 @@ export function layerLabel(c: Computed, ascii: boolean): string {
   return `${m.element}, ${fmtCelsius(m.temperature.celsius)} \u00b0C, ${a}${lig.length ? `, ${lig.join(', ')}` : ''}`;
 }
 
+/** Legend labels longer than this many characters are shortened to what tells the layers apart. */
+export const LEGEND_LABEL_MAX = 40;
+
+/**
+ * The legend's name of each layer: its full label (layerLabel) when that is short, else only the
+ * parts that differ between layers (the element always kept), e.g. "Fe, 90 °C" when every layer has
+ * the same amounts and ligands — the caption's "Layers:" line keeps the full labels. Full labels
+ * are kept when the short ones would not tell every layer apart.
+ */
+export function legendLabels(layers: Computed[], full: string[], ascii: boolean): string[] {
+  if (full.every((l) => l.length <= LEGEND_LABEL_MAX)) return full;
+  const parts = layers.map((l) => [`${fmtCelsius(l.model.temperature.celsius)} \u00b0C`, elementAmountText(l.model, ascii), ...ligandAmountTexts(l.model, ascii)]);
+  const n = Math.max(...parts.map((p) => p.length));
+  // Amounts given by mass differ in mol/kg with T (water's density): compare them as given.
+  const given = (t: string | undefined) => t?.replace(/ \([^()]*mol\/kg\)/, '');
+  const differs = Array.from({ length: n }, (_, i) => parts.some((p) => given(p[i]) !== given(parts[0][i])));
+  const short = layers.map((l, k) => [l.model.element, ...parts[k].filter((_, i) => differs[i])].join(', '));
+  return new Set(short).size === short.length ? short : full;
+}
+
 export interface OverlayFigure {
   input: FigureInput;
   layers: { label: string; dash: string | null; computed: Computed }[];
@@ -86,10 +108,37 @@ export interface OverlayFigure {
 }
 
 /**
- * Composes the figure: the base through figureInput (its operating points, reference axis and
- * settings), the other layers as FigureInput.overlays, and a caption naming every layer.
+ * The second potential axis of the base file's `reference:` and its operating marks, both at the
+ * file's own temperature (the one at which its potentials were measured), whatever temperatures
+ * the layers are drawn at: the second axis then reads a mark's potential as the file gives it.
+ * Returns the caption note when some layer's temperature differs from the file's (the SHE scale of
+ * each layer is that layer's own, so a shared reference axis is exact for the file's temperature only).
  */
-export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: boolean): OverlayFigure {
+function fileScaleMarks(input: FigureInput, layers: Computed[], file: SystemSpec, fig: FigureSettings, explicitAxis: boolean): string[] {
+  const T = file.temperature;
+  const ref = file.operating.reference;
+  // Step 1: the file's own reference axis at its temperature (an explicit --ref axis was set by the caller).
+  if (ref !== undefined && ref !== 'she' && ref !== 'rhe' && !explicitAxis) {
+    const r = referenceOffset(ref, T);
+    fig.options.secondAxis = { label: `E / V vs ${r.label}`, offset: r.offset };
+    input.options = fig.options;
+  }
+  // Step 2: the marks converted at the file's temperature.
+  placeOperatingMarks(input, file.operating, T);
+  // Step 3: say so when a layer is at another temperature and there is something on that scale.
+  const hasMarks = file.operating.points.length + file.operating.boxes.length + file.operating.paths.length > 0;
+  const differ = layers.some((l) => l.model.temperature.celsius !== T);
+  if (!differ || !(hasMarks || fig.options.secondAxis)) return [];
+  const what = [fig.options.secondAxis ? 'second axis' : '', hasMarks ? 'operating marks' : ''].filter(Boolean).join(' and ');
+  return [`The ${what} use${hasMarks && fig.options.secondAxis ? '' : 's'} the file's temperature (${fmtCelsius(T)} \u00b0C); each layer's potentials are vs SHE at its own temperature.`];
+}
+
+/**
+ * Composes the figure: the base through figureInput (its settings), the operating marks and the
+ * reference axis of the base file at the file's own temperature (`file`, the base file as read,
+ * before --temperatures), the other layers as FigureInput.overlays, and a caption naming every layer.
+ */
+export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: boolean, file: SystemSpec = layers[0].spec): OverlayFigure {
   const base = layers[0];
   const sameElement = layers.every((l) => l.model.element === base.model.element);
   // Several elements asked in colour: no fills (they would overlap), but a line colour per layer.
@@ -109,16 +158,19 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
     const ts = [...new Set(layers.map((l) => fmtCelsius(l.model.temperature.celsius)))];
     fig.options.title = sameElement ? `${base.model.element}\u2013{H2O}, ${ts.join(' / ')} \u00b0C` : `${els.join(', ')}: separate single-element diagrams`;
   }
+  const legend = legendLabels(layers, labels, ascii);
+  const explicitAxis = fig.options.secondAxis !== undefined;
   const input = figureInput(base, { options: fig.options, families: [] });
+  const scaleNote = fileScaleMarks(input, layers, file, fig, explicitAxis);
   input.overlays = layers.slice(1).map((l, k) => ({
-    label: labels[k + 1],
+    label: legend[k + 1],
     model: l.model,
     dash: OVERLAY_DASHES[k],
     // The base keeps the 'lines' style's black boundaries, LAYER_INKS[0].
     ...(layerColors ? { color: LAYER_INKS[(k + 1) % LAYER_INKS.length] } : {}),
   }));
   // The base layer is named in the legend like the others (its fields are filled when the elements agree).
-  input.baseLabel = `${labels[0]}${sameElement && fig.options.style !== 'lines' ? ' (filled)' : ''}`;
+  input.baseLabel = `${legend[0]}${sameElement && fig.options.style !== 'lines' ? ' (filled)' : ''}`;
   if (fig.options.show.caption) {
     // The base's own caption without its first line (conditions, named per layer here) and data line.
     const own = captionLines(base).slice(1).filter((l) => !l.startsWith('Data: '));
@@ -132,6 +184,7 @@ export function overlayFigure(layers: Computed[], fig: FigureSettings, ascii: bo
     if (layers.some((l) => l.model.temperature.celsius !== base.model.temperature.celsius)) {
       lines.push(`Water lines are those of the base layer (${fmtCelsius(base.model.temperature.celsius)} \u00b0C).`);
     }
+    lines.push(...scaleNote);
     if (!sameElement) lines.push(SEPARATE_ELEMENTS_NOTE);
     const short = layers.flatMap((l) => l.model.sources.map(shortSource)).filter((s, k, a) => a.indexOf(s) === k);
     if (short.length) lines.push(`Data: ${short.join('; ')}.`);

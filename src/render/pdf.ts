@@ -13,6 +13,9 @@ import type { Scene, SceneItem, ScenePath, SceneText } from './scene-types.js';
 type Doc = PDFKit.PDFDocument;
 
 function drawPath(doc: Doc, p: ScenePath): void {
+  // A path with neither fill nor stroke (a region in the 'lines' style) is not built at all: an
+  // unpainted PDF path stays current and the next fill would paint it too.
+  if (!p.fill && !p.stroke) return;
   let any = false;
   for (const sp of p.subpaths) {
     if (sp.points.length < 2) continue;
@@ -57,6 +60,7 @@ function drawItems(doc: Doc, items: readonly SceneItem[]): void {
     if (it.type === 'path') drawPath(doc, it);
     else if (it.type === 'text') drawText(doc, it);
     else if (it.type === 'circle') {
+      if (!it.fill && !it.stroke) continue; // nothing to paint; an unpainted path would stay current
       doc.circle(it.cx, it.cy, it.r);
       if (it.fill && it.stroke) {
         doc.lineWidth(it.strokeWidth).undash();

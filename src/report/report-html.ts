@@ -153,11 +153,11 @@ function windowSection(d: ReportData, o: string[]): void {
   if (d.window) {
     const w = d.window;
     o.push('<h2>Plating window</h2>');
-    o.push(table(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep \u2212 E(H\u2082) / V', 'bounded by (low / high pH)'], w.windows.map((x) => [
+    o.push(table(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep \u2212 E(H\u2082) min \u2026 max / V', 'bounded by (low / high pH)'], w.windows.map((x) => [
       esc(`${x.pH[0].toFixed(2)}\u2013${x.pH[1].toFixed(2)}`),
       x.dissolved.map(code).join(', '),
       esc(`${fmtSigned(x.deposition[0].E, 3)} \u2026 ${fmtSigned(x.deposition[x.deposition.length - 1].E, 3)}`),
-      esc(`${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`),
+      esc(`${fmtSigned(x.marginToHydrogen.min, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.max, 3)}`),
       esc(`${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`),
     ])));
     o.push(`<p>${w.firstSolid ? `First solid above the window: ${code(w.firstSolid.species)} from pH ${esc(w.firstSolid.pH.toFixed(2))}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).')}</p>`);

@@ -119,11 +119,11 @@ function windowSection(d: ReportData, out: string[]): void {
   if (d.window) {
     const w = d.window;
     para('## Plating window');
-    para(mdTable(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep \u2212 E(H\u2082) / V', 'bounded by (low / high pH)'], w.windows.map((x) => [
+    para(mdTable(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep \u2212 E(H\u2082) min \u2026 max / V', 'bounded by (low / high pH)'], w.windows.map((x) => [
       `${x.pH[0].toFixed(2)}\u2013${x.pH[1].toFixed(2)}`,
       x.dissolved.map(mdCode).join(', '),
       `${fmtSigned(x.deposition[0].E, 3)} \u2026 ${fmtSigned(x.deposition[x.deposition.length - 1].E, 3)}`,
-      `${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`,
+      `${fmtSigned(x.marginToHydrogen.min, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.max, 3)}`,
       `${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`,
     ])));
     para(w.firstSolid ? `First solid above the window: ${mdCode(w.firstSolid.species)} from pH ${w.firstSolid.pH.toFixed(2)}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).'));

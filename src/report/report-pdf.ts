@@ -228,11 +228,11 @@ function windowSection(d: ReportData, w: Writer): void {
   if (d.window) {
     const win = d.window;
     w.heading('Plating window');
-    w.table(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep - E(H2) / V', 'bounded by (low / high pH)'], win.windows.map((x) => [
+    w.table(['pH range', 'dissolved form', 'E_dep at the ends / V vs SHE', 'E_dep - E(H2) min \u2026 max / V', 'bounded by (low / high pH)'], win.windows.map((x) => [
       `${x.pH[0].toFixed(2)}\u2013${x.pH[1].toFixed(2)}`,
       x.dissolved.join(', '),
       `${fmtSigned(x.deposition[0].E, 3)} \u2026 ${fmtSigned(x.deposition[x.deposition.length - 1].E, 3)}`,
-      `${fmtSigned(x.marginToHydrogen.atLowPH, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.atHighPH, 3)}`,
+      `${fmtSigned(x.marginToHydrogen.min, 3)} \u2026 ${fmtSigned(x.marginToHydrogen.max, 3)}`,
       `${x.boundedBy.low ?? 'edge'} / ${x.boundedBy.high ?? 'edge'}`,
     ]), [0.14, 0.2, 0.22, 0.2, 0.24]);
     w.para(win.firstSolid ? `First solid above the window: ${win.firstSolid.species} from pH ${win.firstSolid.pH.toFixed(2)}.` : (d.window.windows.length ? 'No solid appears above the window within the diagram.' : 'No plating window in the diagram (see the note below for why).'));

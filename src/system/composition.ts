@@ -9,7 +9,7 @@
 import { isElement } from '../chem/elements.js';
 import { FormulaError, parseFormula } from '../chem/formula.js';
 import type { Fields } from './fields.js';
-import { type Amount, readAmount } from './solution.js';
+import { type Amount, checkAsHolds, readAmount } from './solution.js';
 
 export interface CompositionSpec {
   /** Total of the main element, as written (a number is mol/kg). */
@@ -35,6 +35,7 @@ const REFUSED = ['activity', 'concentration', 'ligands'] as const;
 /** A total: a plain number is mol/kg here (not an activity); strings carry their unit. */
 function readTotal(f: Fields, v: unknown, field: string): Amount {
   const a = readAmount(f, v, field);
+  checkAsHolds(f, a, field.slice(field.lastIndexOf('.') + 1), field);
   return a.kind === 'activity' ? { kind: 'molality', value: a.value } : a;
 }
 

@@ -62,7 +62,8 @@ const SALTS: Record<string, [number, number][]> = {
   NiCl2: [[2, 1], [-1, 2]],
 };
 
-const AMOUNT_RE = /^\s*([0-9.]+(?:[eE][-+]?\d+)?)\s*(mol\/kg|mmol\/kg|mg\/L|mg\/l|g\/L|g\/l|ppm)\s*(?:as\s+([A-Za-z0-9()+-]+))?\s*$/;
+/** "<number> <unit> [as <formula>]"; the formula may be a hydrate written with ·, . or * (CuSO4·5H2O). */
+const AMOUNT_RE = /^\s*([0-9.]+(?:[eE][-+]?\d+)?)\s*(mol\/kg|mmol\/kg|mg\/L|mg\/l|g\/L|g\/l|ppm)\s*(?:as\s+([A-Za-z0-9()+\-·.*]+))?\s*$/;
 
 /** Read an amount: a number is an activity; "1e-4 mol/kg", "5 mg/L", "5 mg/L as Fe" are concentrations. */
 export function readAmount(f: Fields, v: unknown, field: string): Amount {
@@ -149,8 +150,37 @@ export function solutionAt(file: string, celsius: number, pressureMPa: number | 
   return { water, A, B, settings: s, logGamma: (z) => m.logGamma(z), warnings: m.warnings };
 }
 
-/** Molality of an amount given as mg/L, with the molar mass of `as` (or the fallback formula). */
+/**
+ * How many units of `unit` (an element, a group such as CN, or a species' formula) one formula unit
+ * of `as` holds: the least over the unit's elements of count in `as` / count in `unit`, rounded
+ * down — 2 for CN in Zn(CN)2, 1 for C in HCO3, 2 for N in NH4NO3. At least 1, so that a species'
+ * concentration given "as Fe" keeps meaning one species per Fe atom.
+ */
+export function unitsPerFormula(as: string, unit: string): number {
+  const a = parseFormula(as).elements;
+  const u = Object.entries(parseFormula(unit).elements);
+  const n = Math.min(...u.map(([el, k]) => Math.floor((a[el] ?? 0) / k)));
+  return Number.isFinite(n) && n >= 1 ? n : 1;
+}
+
+/**
+ * Refuses an amount of `component` (the element, or a ligand such as Cl or CN) given "as" a formula
+ * that holds none of it ("20 mg/L as Fe" for chloride), which no conversion can make sense of.
+ */
+export function checkAsHolds(f: Fields, a: Amount, component: string, field: string): void {
+  if (a.as === undefined) return;
+  const have = parseFormula(a.as).elements;
+  const need = Object.entries(parseFormula(component).elements);
+  if (need.some(([el, k]) => (have[el] ?? 0) < k)) f.fail(field, `a formula holding ${component} after "as" (e.g. "as ${component}")`, a.as);
+}
+
+/**
+ * Molality of an amount given as mg/L: of the fallback formula (the element, the ligand or the
+ * species), with the molar mass of `as` when given times the units of the fallback that one `as`
+ * holds — 60 g/L as Zn(CN)2 is 60/117.4 mol/L of Zn but twice that of CN.
+ */
 export function molality(a: Amount, fallbackFormula: string, densityKgM3: number): number {
   if (a.kind === 'molality') return a.value;
-  return mgPerLitreToMolal(a.value, molarMass(parseFormula(a.as ?? fallbackFormula)), densityKgM3);
+  const per = a.as === undefined ? 1 : unitsPerFormula(a.as, fallbackFormula);
+  return per * mgPerLitreToMolal(a.value, molarMass(parseFormula(a.as ?? fallbackFormula)), densityKgM3);
 }

@@ -10,7 +10,7 @@ import { FormulaError, formulaWarnings, parseFormula } from '../chem/formula.js'
 import type { Phase } from '../model.js';
 import { InputError } from './errors.js';
 import { Fields } from './fields.js';
-import { type Amount, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
+import { type Amount, checkAsHolds, readAmount, readSolutionSettings, type SolutionSettings } from './solution.js';
 import { type Operating, readOperating } from './operating.js';
 import type { CpPolynomial } from '../thermo/cp-poly.js';
 import { HKF_KEYS, type HkfParameters } from '../thermo/hkf.js';
@@ -146,6 +146,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   let amount: SystemSpec['amount'] = { kind: 'activity', value: activity, isDefault: o.activity === undefined };
   if (o.concentration !== undefined) {
     const a = typeof o.concentration === 'number' ? { kind: 'molality' as const, value: f.number(o.concentration, 'concentration', { positive: true, max: 100 }) } : readAmount(f, o.concentration, 'concentration');
+    checkAsHolds(f, a, element, 'concentration');
     amount = { ...a, isDefault: false };
   }
   const solution = readSolutionSettings(f, comp ? comp.rest : o);
@@ -239,6 +240,7 @@ function readLigands(f: Fields, raw: unknown, element: string): { ligands: Recor
       }
       ligandGroups[k] = comp;
       const a = readAmount(f, v, `ligands.${k}`);
+      checkAsHolds(f, a, k, `ligands.${k}`);
       ligandAmounts[k] = a;
       ligands[k] = a.value;
     }
