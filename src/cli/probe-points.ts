@@ -21,7 +21,7 @@ import { CsvRecordReader, type CsvRecord, MAX_RECORD } from '../io/csv-records.j
 import { fileSink, type OutputSink, stdoutSink } from '../io/stream-output.js';
 import { refuseInputsAsOutputs, requireExtension } from '../io/path-safety.js';
 import { pointsAnswerer } from '../analysis/points-answer.js';
-import { type PointRow, type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsOutputRow, readPointRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
+import { type PointRow, type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsRowLine, readPointRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { progressBar } from './progress.js';
@@ -81,8 +81,8 @@ export function fixedActivityRows(spec: SystemSpec, ref: string | CustomReferenc
   return {
     header: pointsOutputHeader,
     row(row, sep) {
-      const a = answerer.answer(row);
-      return 'error' in a ? a : { text: pointsOutputRow(row, a.scale, a.result, a.warnings, sep) };
+      const a = answerer.row(row);
+      return 'error' in a ? a : { text: pointsRowLine(row, a.scale, a.E, a.fields, a.more, sep) };
     },
     errorRow: pointsErrorRow,
   };

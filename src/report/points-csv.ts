@@ -17,6 +17,7 @@ import { InputError } from '../errors.js';
 import { csvField } from '../io/csv-records.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
 import type { ProbeResult } from '../analysis/probe.js';
+import type { RowProbe } from '../analysis/probe-row.js';
 
 export type PotentialUnit = 'V' | 'mV';
 
@@ -222,6 +223,28 @@ function celsiusText(T: number): string {
 
 /** One answered row. `warnings` are joined with " | ". */
 export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, warnings: readonly string[], sep: string): string {
+  const f: RowProbe = {
+    predominant: r.predominant,
+    verdict: r.verdict,
+    runnerUp: r.runnerUp,
+    marginKJ: r.margin.kJPerMol,
+    distanceMV: r.distance.mV,
+    distancePH: r.distance.pH,
+    nearestReaction: r.nearestBoundary?.reaction ?? null,
+    advice: r.advice,
+    warnings,
+    celsius: r.temperature.celsius,
+  };
+  return pointsRowLine(row, scale, r.E, f, NONE, sep);
+}
+
+const NONE: readonly string[] = [];
+
+/**
+ * One answered row from the printed fields of its probe (analysis/probe-row.ts): `E` on the SHE
+ * scale; `f.warnings` then `more` joined with " | ".
+ */
+export function pointsRowLine(row: PointRow, scale: string, E: number, f: RowProbe, more: readonly string[], sep: string): string {
   let out = '';
   for (const c of row.extra) out += text(c, sep) + sep;
   return (
@@ -234,30 +257,44 @@ export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, wa
     sep +
     fixed(scale, sep) +
     sep +
-    num8(r.E) +
+    num8(E) +
     sep +
-    celsiusText(r.temperature.celsius) +
+    celsiusText(f.celsius) +
     sep +
-    fixed(r.predominant, sep) +
+    fixed(f.predominant, sep) +
     sep +
-    r.verdict +
+    f.verdict +
     sep +
-    fixed(r.runnerUp ?? '', sep) +
+    fixed(f.runnerUp ?? '', sep) +
     sep +
-    num8(r.margin.kJPerMol) +
+    num8(f.marginKJ) +
     sep +
-    num8(r.distance.mV) +
+    num8(f.distanceMV) +
     sep +
-    num8(r.distance.pH) +
+    num8(f.distancePH) +
     sep +
-    fixed(r.nearestBoundary?.reaction ?? '', sep) +
+    fixed(f.nearestReaction ?? '', sep) +
     sep +
-    csvField(r.advice, sep) +
+    csvField(f.advice, sep) +
     sep +
-    (warnings.length ? text(warnings.join(' | '), sep) : '') +
+    warningsText(f.warnings, more, sep) +
     sep +
     '\n'
   );
+}
+
+let lastWarnings: readonly string[] | undefined;
+let lastWarningsSep = '';
+let lastWarningsText = '';
+/** The warnings cell: the probe's (one array for long runs of rows, so its text is kept) and `more`. */
+function warningsText(w: readonly string[], more: readonly string[], sep: string): string {
+  if (more.length) return text([...w, ...more].join(' | '), sep);
+  if (w !== lastWarnings || sep !== lastWarningsSep) {
+    lastWarnings = w;
+    lastWarningsSep = sep;
+    lastWarningsText = w.length ? text(w.join(' | '), sep) : '';
+  }
+  return lastWarningsText;
 }
 
 /**
