@@ -18,6 +18,7 @@ import { csvField } from '../io/csv-records.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
 import type { ProbeResult } from '../analysis/probe.js';
 import type { RowProbe } from '../analysis/probe-row.js';
+import type { CellWriter } from './row-bytes.js';
 
 export type PotentialUnit = 'V' | 'mV';
 
@@ -245,42 +246,64 @@ const NONE: readonly string[] = [];
  * scale; `f.warnings` then `more` joined with " | ".
  */
 export function pointsRowLine(row: PointRow, scale: string, E: number, f: RowProbe, more: readonly string[], sep: string): string {
-  let out = '';
-  for (const c of row.extra) out += text(c, sep) + sep;
-  return (
-    out +
-    row.line +
-    sep +
-    (row.given.pH ?? num8(row.pH)) +
-    sep +
-    (row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential)) +
-    sep +
-    fixed(scale, sep) +
-    sep +
-    num8(E) +
-    sep +
-    celsiusText(f.celsius) +
-    sep +
-    fixed(f.predominant, sep) +
-    sep +
-    f.verdict +
-    sep +
-    fixed(f.runnerUp ?? '', sep) +
-    sep +
-    num8(f.marginKJ) +
-    sep +
-    num8(f.distanceMV) +
-    sep +
-    num8(f.distancePH) +
-    sep +
-    fixed(f.nearestReaction ?? '', sep) +
-    sep +
-    csvField(f.advice, sep) +
-    sep +
-    warningsText(f.warnings, more, sep) +
-    sep +
-    '\n'
-  );
+  const w = new CellText();
+  writePointsRow(w, row, scale, E, f, more, sep);
+  return w.s;
+}
+
+/** The cells of a row as text (num8 above), for pointsRowLine. */
+export class CellText implements CellWriter {
+  s = '';
+  text(s: string): void {
+    this.s += s;
+  }
+  num8(v: number | null | undefined): void {
+    this.s += num8(v);
+  }
+  int(n: number): void {
+    this.s += String(n);
+  }
+}
+
+/** The row of pointsRowLine, cell by cell into `w` (text, or bytes: report/row-bytes.ts). */
+export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: number, f: RowProbe, more: readonly string[], sep: string): void {
+  for (const c of row.extra) {
+    w.text(text(c, sep));
+    w.text(sep);
+  }
+  w.int(row.line);
+  w.text(sep);
+  if (row.given.pH !== undefined) w.text(row.given.pH);
+  else w.num8(row.pH);
+  w.text(sep);
+  if (row.given.potential !== undefined) w.text(row.given.potential);
+  else w.num8(row.unit === 'mV' ? row.potential * 1000 : row.potential);
+  w.text(sep);
+  w.text(fixed(scale, sep));
+  w.text(sep);
+  w.num8(E);
+  w.text(sep);
+  w.text(celsiusText(f.celsius));
+  w.text(sep);
+  w.text(fixed(f.predominant, sep));
+  w.text(sep);
+  w.text(f.verdict);
+  w.text(sep);
+  w.text(fixed(f.runnerUp ?? '', sep));
+  w.text(sep);
+  w.num8(f.marginKJ);
+  w.text(sep);
+  w.num8(f.distanceMV);
+  w.text(sep);
+  w.num8(f.distancePH);
+  w.text(sep);
+  w.text(fixed(f.nearestReaction ?? '', sep));
+  w.text(sep);
+  w.text(csvField(f.advice, sep));
+  w.text(sep);
+  w.text(warningsText(f.warnings, more, sep));
+  w.text(sep);
+  w.text('\n');
 }
 
 let lastWarnings: readonly string[] | undefined;
