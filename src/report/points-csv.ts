@@ -130,18 +130,23 @@ export function readPointRow(fields: string[], line: number, h: PointsHeader, de
   };
   const range = (k: number, what: string, v: number, lo: number, hi: number, unit: string): RowError | undefined =>
     v < lo || v > hi ? { field: where(k, what), expected: `${lo} to ${hi}${unit}`, got: String(v) } : undefined;
-  const pH = num(h.pH, 'pH');
+  // The pH and potential cells: a plain decimal (the common case) is read and echoed without more tests.
+  const pHCell = fields[h.pH];
+  const pHPlain = pHCell !== undefined && PLAIN.test(pHCell);
+  const pH = pHPlain ? Number(pHCell) : num(h.pH, 'pH');
   if (typeof pH !== 'number') return pH;
   const bad = range(h.pH, 'pH', pH, LIMITS.pH[0], LIMITS.pH[1], '');
   if (bad) return bad;
   const pName = h.unit === 'mV' ? 'potential, mV' : 'potential, V';
-  const p = num(h.potential, pName);
+  const pCell = fields[h.potential];
+  const pPlain = pCell !== undefined && PLAIN.test(pCell);
+  const p = pPlain ? Number(pCell) : num(h.potential, pName);
   if (typeof p !== 'number') return p;
   const E = h.unit === 'mV' ? p / 1000 : p;
   if (Math.abs(E) > LIMITS.E) return { field: where(h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
   const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? ''), given: {}, unit: h.unit };
-  if (PLAIN.test(fields[h.pH])) row.given.pH = fields[h.pH];
-  if (PLAIN.test(fields[h.potential])) row.given.potential = fields[h.potential];
+  if (pHPlain) row.given.pH = pHCell;
+  if (pPlain) row.given.potential = pCell;
   if (h.temperature >= 0 && (fields[h.temperature] ?? '').trim() !== '') {
     const T = num(h.temperature, 'temperature');
     if (typeof T !== 'number') return T;
@@ -325,9 +330,16 @@ function warningsText(w: readonly string[], more: readonly string[], sep: string
  * per separator, keyed by the cell itself (no key string built per row).
  */
 const FIXED = new Map<string, Map<string, string>>();
+let fixedSep = '';
+let fixedMap = new Map<string, string>();
 function fixed(s: string, sep: string): string {
-  let bySep = FIXED.get(sep);
-  if (bySep === undefined) FIXED.set(sep, (bySep = new Map()));
+  if (sep !== fixedSep) {
+    let m = FIXED.get(sep);
+    if (m === undefined) FIXED.set(sep, (m = new Map()));
+    fixedSep = sep;
+    fixedMap = m;
+  }
+  const bySep = fixedMap;
   let v = bySep.get(s);
   if (v === undefined) {
     v = csvField(s, sep);
