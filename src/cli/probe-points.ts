@@ -181,7 +181,17 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
   let bytes = 0;
   const records: CsvRecord[] = [];
   const lines = recordLines(name, unit, o.strict === true, answerer);
-  const out = new RowBytes(OUT_BATCH + (OUT_BATCH >> 2));
+  // Two buffers in turn: one is written out while the next rows go into the other.
+  const buffers = [new RowBytes(OUT_BATCH + (OUT_BATCH >> 2)), new RowBytes(OUT_BATCH + (OUT_BATCH >> 2))];
+  let out = buffers[0];
+  let pending: Promise<void> | undefined;
+  const flush = async (): Promise<void> => {
+    if (pending) await pending; // the other buffer is free again
+    if (!out.length) return;
+    pending = sink.write(out.take());
+    pending.catch(() => undefined); // awaited at the next flush or at the end
+    out = out === buffers[0] ? buffers[1] : buffers[0];
+  };
   try {
     for await (const chunk of input as AsyncIterable<string>) {
       bytes += Buffer.byteLength(chunk);
@@ -202,11 +212,11 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
       // input comes in pipe-sized chunks); the buffer is reused once its write has settled.
       for (const r of records) {
         lines.writeRecord(r, out);
-        if (out.length >= OUT_BATCH) await sink.write(out.take());
+        if (out.length >= OUT_BATCH) await flush();
       }
       records.length = 0;
       // What this chunk answered is written now (a pipe's rows appear as they come).
-      if (out.length) await sink.write(out.take());
+      if (out.length) await flush();
       bar.update(bytes, lines.rows);
     }
     if (!reader) {
@@ -218,11 +228,13 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
     for (const r of records) lines.writeRecord(r, out);
     if (!lines.header) throw new InputError(name, '', 'a CSV with a header row (pH, potential[, temperature]) and data rows', 'no header');
     if (lines.rows === 0) throw new InputError(name, '', 'at least one data row after the header');
-    if (out.length) await sink.write(out.take());
+    await flush();
+    await flush(); // waits for the last write
     bar.done();
     await sink.commit();
   } catch (e) {
     bar.done();
+    await pending?.catch(() => undefined); // no write in flight while the output is dropped
     await sink.abort();
     if (!(e instanceof EphmapError) && typeof (e as NodeJS.ErrnoException).code === 'string' && (e as NodeJS.ErrnoException).code!.startsWith('E')) throw new InputError(o.points, '', 'a readable CSV file', 'a file that cannot be read');
     throw e;
