@@ -19,6 +19,8 @@ import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { conditionCache, orError, rowOnShe } from './row-conditions.js';
 import { probe, type ProbeResult } from './probe.js';
+import { newRowProbe, probeRow, type RowProbe } from './probe-row.js';
+import type { GivenPotential } from './points.js';
 import { widenedSpec } from './widen.js';
 
 /** Diagrams kept at once (distinct conditions); each is a few hundred kB at most. */
@@ -34,6 +36,13 @@ export interface PointQuery {
 }
 
 export type PointAnswer = { scale: string; result: ProbeResult; warnings: string[] } | { error: string };
+
+/**
+ * A row's printed answer: its scale, potential on the SHE scale, the printed fields of the probe
+ * (`fields`: one record reused for every row — read it before the next row) and the warnings about
+ * this point beyond the probe's own (`more`, e.g. the reference electrode's).
+ */
+export type PointRowAnswer = { scale: string; E: number; fields: RowProbe; more: readonly string[] } | { error: string };
 
 interface Condition {
   c?: Computed;
@@ -52,7 +61,7 @@ function specAt(spec: SystemSpec, celsius: number, I: number | undefined): Syste
 
 
 /** A row answerer over one system and reference scale (see the module comment). */
-export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference | undefined, file: string): { answer: (q: PointQuery) => PointAnswer; computed: () => number } {
+export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference | undefined, file: string): { answer: (q: PointQuery) => PointAnswer; row: (q: PointQuery) => PointRowAnswer; computed: () => number } {
   let computations = 0;
   let lastT = NaN;
   let lastI: number | undefined;
@@ -72,29 +81,47 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
     return 'value' in r ? { c: r.value, warnings: r.value.model.warnings } : { error: r.error, warnings: [] };
   });
   const lookup = (celsius: number, I: number | undefined): Condition => cached(I === undefined ? `${celsius}` : `${celsius}|${I}`);
-  const answer = (q: PointQuery): PointAnswer => {
+  // Steps 1–3 up to the diagram the row is answered on, and the row's potential on the SHE scale.
+  const NO_WARNINGS: string[] = [];
+  const onShe = (q: PointQuery, T: number) =>
+    ref === undefined || ref === 'she' ? { value: { E: q.potential, ref: undefined, warnings: NO_WARNINGS } } : rowOnShe(ref, q, T, file);
+  const locate = (q: PointQuery): { c: Computed; s: { E: number; ref: GivenPotential | undefined; warnings: string[] } } | { error: string } => {
     const T = q.temperature ?? spec.temperature;
     const k = condition(T, q.ionicStrength);
     if (!k.c) return { error: `line ${q.line}: ${k.error}` };
     // Step 2: the SHE scale at T.
-    const she = rowOnShe(ref, q, T, file);
+    const she = onShe(q, T);
     if ('error' in she) return she;
     const s = she.value;
     // Step 3: inside the range on the cached diagram (widen.ts holdsAll, inlined: no allocation per
     // row); outside on one widened for this point.
-    const point = { pH: q.pH, E: s.E };
     let c = k.c;
     if (!(q.pH > c.spec.pH[0] && q.pH < c.spec.pH[1] && s.E > c.spec.E[0] && s.E < c.spec.E[1])) {
       computations++;
-      const w = orError(() => compute(widenedSpec(c.spec, [point])));
+      const w = orError(() => compute(widenedSpec(c.spec, [{ pH: q.pH, E: s.E }])));
       if ('error' in w) return { error: `line ${q.line}: ${w.error}` };
       c = w.value;
     }
-    const result = probe(c, q.pH, s.E, s.ref);
+    return { c, s };
+  };
+  const answer = (q: PointQuery): PointAnswer => {
+    const at = locate(q);
+    if ('error' in at) return at;
+    const s = at.s;
+    const result = probe(at.c, q.pH, s.E, s.ref);
     // The probe's own warnings: the model's, plus any about this point (e.g. no verdict in an undetermined
     // field), each once (the model already carries the file's reference-electrode warnings).
     const warnings = s.warnings.length ? [...result.warnings, ...s.warnings.filter((w) => !result.warnings.includes(w))] : result.warnings;
     return { scale: s.ref?.label ?? 'SHE', result, warnings };
   };
-  return { answer, computed: () => computations };
+  // The printed fields only (probe-row.ts), into one record reused for every row.
+  const fields = newRowProbe();
+  const row = (q: PointQuery): PointRowAnswer => {
+    const at = locate(q);
+    if ('error' in at) return at;
+    const s = at.s;
+    probeRow(at.c, q.pH, s.E, fields);
+    return { scale: s.ref?.label ?? 'SHE', E: s.E, fields, more: s.warnings };
+  };
+  return { answer, row, computed: () => computations };
 }

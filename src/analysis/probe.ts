@@ -93,7 +93,7 @@ function pointVerdict(element: string, sp: SolverSpecies, classes: Record<string
  * Per system: the ψ evaluator, a scratch array, each species' class and verdict, and what the
  * answer holds that does not depend on the point (threshold amount, metric text), built once.
  */
-interface ProbeContext {
+export interface ProbeContext {
   psi: PsiEvaluator;
   buf: Float64Array;
   classes: RegionClass[];
@@ -103,7 +103,8 @@ interface ProbeContext {
 }
 const contexts = new WeakMap<Computed, ProbeContext>();
 
-function contextOf(c: Computed): ProbeContext {
+/** The per-system part of the answer (see ProbeContext), built on first use and kept with `c`. */
+export function contextOf(c: Computed): ProbeContext {
   let ctx = contexts.get(c);
   if (!ctx) {
     const input = c.built.input;
@@ -122,7 +123,7 @@ function contextOf(c: Computed): ProbeContext {
 }
 
 /** Index of the smallest ψ (the first on a tie). */
-function argmin(psi: Float64Array): number {
+export function argmin(psi: Float64Array): number {
   let k = 0;
   for (let i = 1; i < psi.length; i++) if (psi[i] < psi[k]) k = i;
   return k;
@@ -246,16 +247,38 @@ function nearestOf(n: NonNullable<ReturnType<typeof probeGeometry>['nearest']>, 
 
 function advice(r: ProbeResult): string {
   const c = r.crossings;
-  // Compare a potential change with a pH change on the Nernst scale (59 mV ≈ 1 pH unit at 25 °C);
-  // the smallest change wins (the first listed on a tie).
-  const sizes = [c.raiseE ? Math.abs(c.raiseE.shift) / 0.059 : Infinity, c.lowerE ? Math.abs(c.lowerE.shift) / 0.059 : Infinity, c.lowerPH ? Math.abs(c.lowerPH.shift) : Infinity, c.raisePH ? Math.abs(c.raisePH.shift) : Infinity];
+  const k = adviceChoice(c.raiseE?.shift, c.lowerE?.shift, c.lowerPH?.shift, c.raisePH?.shift);
+  const x = k === 0 ? c.raiseE : k === 1 ? c.lowerE : k === 2 ? c.lowerPH : c.raisePH;
+  return adviceText(k, x?.shift ?? 0, x?.to ?? '', x?.verdict ?? 'unknown');
+}
+
+/**
+ * Which change of condition the advice names: 0 raise E, 1 lower E, 2 lower pH, 3 raise pH (the
+ * signed shifts to the boundaries, undefined where there is none), or -1 when there is none. A
+ * potential change is compared with a pH change on the Nernst scale (59 mV ≈ 1 pH unit at 25 °C);
+ * the smallest change wins (the first listed on a tie).
+ */
+export function adviceChoice(raiseE: number | undefined, lowerE: number | undefined, lowerPH: number | undefined, raisePH: number | undefined): number {
+  const s0 = raiseE !== undefined ? Math.abs(raiseE) / 0.059 : Infinity;
+  const s1 = lowerE !== undefined ? Math.abs(lowerE) / 0.059 : Infinity;
+  const s2 = lowerPH !== undefined ? Math.abs(lowerPH) : Infinity;
+  const s3 = raisePH !== undefined ? Math.abs(raisePH) : Infinity;
   let k = -1;
-  for (let i = 0; i < 4; i++) if (sizes[i] !== Infinity && (k < 0 || sizes[i] < sizes[k])) k = i;
+  let best = Infinity;
+  if (s0 !== Infinity) (k = 0), (best = s0);
+  if (s1 !== Infinity && (k < 0 || s1 < best)) (k = 1), (best = s1);
+  if (s2 !== Infinity && (k < 0 || s2 < best)) (k = 2), (best = s2);
+  if (s3 !== Infinity && (k < 0 || s3 < best)) k = 3;
+  return k;
+}
+
+/** The advice sentence for choice `k` (adviceChoice): the shift, and the species and verdict beyond. */
+export function adviceText(k: number, shift: number, to: string, verdict: PointVerdict): string {
   if (k < 0) return 'No boundary within the diagram along E or pH from this point.';
   let text: string;
-  if (k === 0) text = `raising the potential by ${(c.raiseE!.shift * 1000).toFixed(0)} mV reaches ${c.raiseE!.to} (${c.raiseE!.verdict})`;
-  else if (k === 1) text = `lowering the potential by ${(-c.lowerE!.shift * 1000).toFixed(0)} mV reaches ${c.lowerE!.to} (${c.lowerE!.verdict})`;
-  else if (k === 2) text = `lowering the pH by ${(-c.lowerPH!.shift).toFixed(2)} reaches ${c.lowerPH!.to} (${c.lowerPH!.verdict})`;
-  else text = `raising the pH by ${c.raisePH!.shift.toFixed(2)} reaches ${c.raisePH!.to} (${c.raisePH!.verdict})`;
+  if (k === 0) text = `raising the potential by ${(shift * 1000).toFixed(0)} mV reaches ${to} (${verdict})`;
+  else if (k === 1) text = `lowering the potential by ${(-shift * 1000).toFixed(0)} mV reaches ${to} (${verdict})`;
+  else if (k === 2) text = `lowering the pH by ${(-shift).toFixed(2)} reaches ${to} (${verdict})`;
+  else text = `raising the pH by ${shift.toFixed(2)} reaches ${to} (${verdict})`;
   return `Nearest change: ${text}.`;
 }

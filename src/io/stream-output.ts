@@ -15,7 +15,8 @@ import { TEMP_FLAGS } from './safe-write.js';
 import { registerTemp, sweepStaleTemps, tempName, unregisterTemp } from './temp-files.js';
 
 export interface OutputSink {
-  write(text: string): Promise<void>;
+  /** Text, or bytes (UTF-8) that the caller may reuse once the promise is settled. */
+  write(text: string | Uint8Array): Promise<void>;
   /** Everything written: make it visible (a file: sync and rename over the target). */
   commit(): Promise<void>;
   /** Failure: drop what was written (a file: remove the temporary; the target is unchanged). */
@@ -25,7 +26,8 @@ export interface OutputSink {
 /** Standard output, waiting for 'drain' when the reader is slower than we are. */
 export function stdoutSink(out: NodeJS.WritableStream = process.stdout): OutputSink {
   return {
-    write: (text) => (out.write(text) ? Promise.resolve() : new Promise<void>((r) => out.once('drain', () => r()))),
+    // Bytes are copied: the stream may hold a chunk after write() returns, the caller reuses its.
+    write: (text) => (out.write(typeof text === 'string' ? text : Buffer.from(text)) ? Promise.resolve() : new Promise<void>((r) => out.once('drain', () => r()))),
     commit: async () => undefined,
     abort: async () => undefined,
   };
@@ -59,7 +61,8 @@ export async function fileSink(path: string): Promise<OutputSink> {
   return {
     async write(text) {
       try {
-        await fh.write(text);
+        if (typeof text === 'string') await fh.write(text);
+        else for (let at = 0; at < text.length; ) at += (await fh.write(text, at, text.length - at)).bytesWritten;
       } catch (e) {
         await drop();
         throw toOutputError(path, e);

@@ -17,6 +17,8 @@ import { InputError } from '../errors.js';
 import { csvField } from '../io/csv-records.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
 import type { ProbeResult } from '../analysis/probe.js';
+import type { RowProbe } from '../analysis/probe-row.js';
+import type { CellWriter } from './row-bytes.js';
 
 export type PotentialUnit = 'V' | 'mV';
 
@@ -128,18 +130,23 @@ export function readPointRow(fields: string[], line: number, h: PointsHeader, de
   };
   const range = (k: number, what: string, v: number, lo: number, hi: number, unit: string): RowError | undefined =>
     v < lo || v > hi ? { field: where(k, what), expected: `${lo} to ${hi}${unit}`, got: String(v) } : undefined;
-  const pH = num(h.pH, 'pH');
+  // The pH and potential cells: a plain decimal (the common case) is read and echoed without more tests.
+  const pHCell = fields[h.pH];
+  const pHPlain = pHCell !== undefined && PLAIN.test(pHCell);
+  const pH = pHPlain ? Number(pHCell) : num(h.pH, 'pH');
   if (typeof pH !== 'number') return pH;
   const bad = range(h.pH, 'pH', pH, LIMITS.pH[0], LIMITS.pH[1], '');
   if (bad) return bad;
   const pName = h.unit === 'mV' ? 'potential, mV' : 'potential, V';
-  const p = num(h.potential, pName);
+  const pCell = fields[h.potential];
+  const pPlain = pCell !== undefined && PLAIN.test(pCell);
+  const p = pPlain ? Number(pCell) : num(h.potential, pName);
   if (typeof p !== 'number') return p;
   const E = h.unit === 'mV' ? p / 1000 : p;
   if (Math.abs(E) > LIMITS.E) return { field: where(h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
   const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? ''), given: {}, unit: h.unit };
-  if (PLAIN.test(fields[h.pH])) row.given.pH = fields[h.pH];
-  if (PLAIN.test(fields[h.potential])) row.given.potential = fields[h.potential];
+  if (pHPlain) row.given.pH = pHCell;
+  if (pPlain) row.given.potential = pCell;
   if (h.temperature >= 0 && (fields[h.temperature] ?? '').trim() !== '') {
     const T = num(h.temperature, 'temperature');
     if (typeof T !== 'number') return T;
@@ -222,42 +229,100 @@ function celsiusText(T: number): string {
 
 /** One answered row. `warnings` are joined with " | ". */
 export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, warnings: readonly string[], sep: string): string {
-  let out = '';
-  for (const c of row.extra) out += text(c, sep) + sep;
-  return (
-    out +
-    row.line +
-    sep +
-    (row.given.pH ?? num8(row.pH)) +
-    sep +
-    (row.given.potential ?? num8(row.unit === 'mV' ? row.potential * 1000 : row.potential)) +
-    sep +
-    fixed(scale, sep) +
-    sep +
-    num8(r.E) +
-    sep +
-    celsiusText(r.temperature.celsius) +
-    sep +
-    fixed(r.predominant, sep) +
-    sep +
-    r.verdict +
-    sep +
-    fixed(r.runnerUp ?? '', sep) +
-    sep +
-    num8(r.margin.kJPerMol) +
-    sep +
-    num8(r.distance.mV) +
-    sep +
-    num8(r.distance.pH) +
-    sep +
-    fixed(r.nearestBoundary?.reaction ?? '', sep) +
-    sep +
-    csvField(r.advice, sep) +
-    sep +
-    (warnings.length ? text(warnings.join(' | '), sep) : '') +
-    sep +
-    '\n'
-  );
+  const f: RowProbe = {
+    predominant: r.predominant,
+    verdict: r.verdict,
+    runnerUp: r.runnerUp,
+    marginKJ: r.margin.kJPerMol,
+    distanceMV: r.distance.mV,
+    distancePH: r.distance.pH,
+    nearestReaction: r.nearestBoundary?.reaction ?? null,
+    advice: r.advice,
+    warnings,
+    celsius: r.temperature.celsius,
+  };
+  return pointsRowLine(row, scale, r.E, f, NONE, sep);
+}
+
+const NONE: readonly string[] = [];
+
+/**
+ * One answered row from the printed fields of its probe (analysis/probe-row.ts): `E` on the SHE
+ * scale; `f.warnings` then `more` joined with " | ".
+ */
+export function pointsRowLine(row: PointRow, scale: string, E: number, f: RowProbe, more: readonly string[], sep: string): string {
+  const w = new CellText();
+  writePointsRow(w, row, scale, E, f, more, sep);
+  return w.s;
+}
+
+/** The cells of a row as text (num8 above), for pointsRowLine. */
+export class CellText implements CellWriter {
+  s = '';
+  text(s: string): void {
+    this.s += s;
+  }
+  num8(v: number | null | undefined): void {
+    this.s += num8(v);
+  }
+  int(n: number): void {
+    this.s += String(n);
+  }
+}
+
+/** The row of pointsRowLine, cell by cell into `w` (text, or bytes: report/row-bytes.ts). */
+export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: number, f: RowProbe, more: readonly string[], sep: string): void {
+  for (const c of row.extra) {
+    w.text(text(c, sep));
+    w.text(sep);
+  }
+  w.int(row.line);
+  w.text(sep);
+  if (row.given.pH !== undefined) w.text(row.given.pH);
+  else w.num8(row.pH);
+  w.text(sep);
+  if (row.given.potential !== undefined) w.text(row.given.potential);
+  else w.num8(row.unit === 'mV' ? row.potential * 1000 : row.potential);
+  w.text(sep);
+  w.text(fixed(scale, sep));
+  w.text(sep);
+  w.num8(E);
+  w.text(sep);
+  w.text(celsiusText(f.celsius));
+  w.text(sep);
+  w.text(fixed(f.predominant, sep));
+  w.text(sep);
+  w.text(f.verdict);
+  w.text(sep);
+  w.text(fixed(f.runnerUp ?? '', sep));
+  w.text(sep);
+  w.num8(f.marginKJ);
+  w.text(sep);
+  w.num8(f.distanceMV);
+  w.text(sep);
+  w.num8(f.distancePH);
+  w.text(sep);
+  w.text(fixed(f.nearestReaction ?? '', sep));
+  w.text(sep);
+  w.text(csvField(f.advice, sep));
+  w.text(sep);
+  w.text(warningsText(f.warnings, more, sep));
+  w.text(sep);
+  w.text('\n');
+}
+
+let lastWarnings: readonly string[] | undefined;
+let lastWarningsSep = '';
+let lastWarningsText = '';
+/** The warnings cell: the probe's (one array for long runs of rows, so its text is kept) and `more`, each once. */
+function warningsText(w: readonly string[], more: readonly string[], sep: string): string {
+  if (more.length) return text([...w, ...more.filter((m) => !w.includes(m))].join(' | '), sep);
+  if (w !== lastWarnings || sep !== lastWarningsSep) {
+    lastWarnings = w;
+    lastWarningsSep = sep;
+    lastWarningsText = w.length ? text(w.join(' | '), sep) : '';
+  }
+  return lastWarningsText;
 }
 
 /**
@@ -265,9 +330,16 @@ export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, wa
  * per separator, keyed by the cell itself (no key string built per row).
  */
 const FIXED = new Map<string, Map<string, string>>();
+let fixedSep = '';
+let fixedMap = new Map<string, string>();
 function fixed(s: string, sep: string): string {
-  let bySep = FIXED.get(sep);
-  if (bySep === undefined) FIXED.set(sep, (bySep = new Map()));
+  if (sep !== fixedSep) {
+    let m = FIXED.get(sep);
+    if (m === undefined) FIXED.set(sep, (m = new Map()));
+    fixedSep = sep;
+    fixedMap = m;
+  }
+  const bySep = fixedMap;
   let v = bySep.get(s);
   if (v === undefined) {
     v = csvField(s, sep);

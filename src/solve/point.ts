@@ -112,10 +112,52 @@ export interface ProbeGeometry {
   nearest?: { boundary: BoundaryModel; distanceV: number; at: [number, number] };
 }
 
+/**
+ * Step 4's hits as numbers and boundary indices (-1: none), filled in place by geometryHits so
+ * that many points on one system allocate nothing; probeGeometry wraps them in objects.
+ */
+export interface GeometryHits {
+  up: number;
+  down: number;
+  left: number;
+  right: number;
+  bUp: number;
+  bDown: number;
+  bLeft: number;
+  bRight: number;
+  bNear: number;
+  /** Nearest point's offset from the point and the point itself, pH scaled by s to volts. */
+  nx: number;
+  ny: number;
+  ncx: number;
+  ncy: number;
+  /** The Nernst slope s(T), V per pH. */
+  s: number;
+}
+
+export function newGeometryHits(): GeometryHits {
+  return { up: 0, down: 0, left: 0, right: 0, bUp: -1, bDown: -1, bLeft: -1, bRight: -1, bNear: -1, nx: 0, ny: 0, ncx: 0, ncy: 0, s: 0 };
+}
+
 /** Step 4: crossings of the vertical and horizontal lines through the point with the boundaries. */
 export function probeGeometry(boundaries: BoundaryModel[], pH: number, E: number, kelvin: number): ProbeGeometry {
+  const h = geometryHits(boundaries, pH, E, kelvin, newGeometryHits());
+  const g: ProbeGeometry = {};
+  if (h.bUp >= 0) g.up = { shift: h.up, boundary: boundaries[h.bUp] };
+  if (h.bDown >= 0) g.down = { shift: h.down, boundary: boundaries[h.bDown] };
+  if (h.bRight >= 0) g.right = { shift: h.right, boundary: boundaries[h.bRight] };
+  if (h.bLeft >= 0) g.left = { shift: h.left, boundary: boundaries[h.bLeft] };
+  if (h.bNear >= 0) g.nearest = { boundary: boundaries[h.bNear], distanceV: Math.hypot(h.nx, h.ny), at: [h.ncx / h.s, h.ncy] };
+  return g;
+}
+
+/**
+ * Step 4 into `out`: for every boundary segment, the crossing of the vertical line pH = const
+ * (shift in E, V) and of the horizontal line E = const (shift in pH), and the segment's closest
+ * point with 1 pH counted as s(T) volts; the nearest of each kind kept (the first on a tie).
+ */
+export function geometryHits(boundaries: BoundaryModel[], pH: number, E: number, kelvin: number, out: GeometryHits): GeometryHits {
   const s = nernstSlope(kelvin);
-  // Best hits kept as numbers and indices; objects built once at the end (many points per run).
   let up = Infinity, down = -Infinity, left = -Infinity, right = Infinity;
   let bUp = -1, bDown = -1, bLeft = -1, bRight = -1, bNear = -1;
   let best2 = Infinity, nx = 0, ny = 0, ncx = 0, ncy = 0;
@@ -150,11 +192,19 @@ export function probeGeometry(boundaries: BoundaryModel[], pH: number, E: number
       if (d2 < best2) (best2 = d2), (bNear = i), (nx = px - cx), (ny = E - cy), (ncx = cx), (ncy = cy);
     }
   }
-  const g: ProbeGeometry = {};
-  if (bUp >= 0) g.up = { shift: up, boundary: boundaries[bUp] };
-  if (bDown >= 0) g.down = { shift: down, boundary: boundaries[bDown] };
-  if (bRight >= 0) g.right = { shift: right, boundary: boundaries[bRight] };
-  if (bLeft >= 0) g.left = { shift: left, boundary: boundaries[bLeft] };
-  if (bNear >= 0) g.nearest = { boundary: boundaries[bNear], distanceV: Math.hypot(nx, ny), at: [ncx / s, ncy] };
-  return g;
+  out.up = up;
+  out.down = down;
+  out.left = left;
+  out.right = right;
+  out.bUp = bUp;
+  out.bDown = bDown;
+  out.bLeft = bLeft;
+  out.bRight = bRight;
+  out.bNear = bNear;
+  out.nx = nx;
+  out.ny = ny;
+  out.ncx = ncx;
+  out.ncy = ncy;
+  out.s = s;
+  return out;
 }
