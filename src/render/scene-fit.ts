@@ -81,9 +81,14 @@ export function fitFigure(input: FigureInput): FittedFigure {
     notes.push('caption moved to the figure metadata (not drawn) to fit');
   }
   if (!ok()) {
-    const plotMm = `${ptToMm(bands.plot.w).toFixed(0)}×${ptToMm(bands.plot.h).toFixed(0)} mm`;
-    if (!bands.fits.w) throw new FigureFitError('--width', `figure ${fmt(o.width)} mm wide leaves the plot only ${plotMm} even at ${fmt(fs)} pt; make it wider or use a smaller --font-size`);
-    throw new FigureFitError('--height', `figure ${fmt(o.width)}×${fmt(height)} mm leaves the plot only ${plotMm}; make it taller or hide the caption/legend`);
+    // The plot's size as a person reads it: a side squeezed to nothing is "no room", never a negative length.
+    const side = (pt: number): number => Math.max(0, Math.round(ptToMm(pt)));
+    if (!bands.fits.w) {
+      const room = side(bands.plot.w) > 0 ? `the plot only ${side(bands.plot.w)} mm wide` : 'no width for the plot';
+      throw new FigureFitError('--width', `figure ${fmt(o.width)} mm wide leaves ${room} even at ${fmt(fs)} pt; make it wider or use a smaller --font-size`);
+    }
+    const room = side(bands.plot.h) > 0 ? `the plot only ${side(bands.plot.w)}×${side(bands.plot.h)} mm` : 'no height for the plot';
+    throw new FigureFitError('--height', `figure ${fmt(o.width)}×${fmt(height)} mm leaves ${room}; make it taller or hide the caption/legend`);
   }
   return { base, bands, notes, ...(droppedCaption !== undefined ? { droppedCaption } : {}) };
 }
