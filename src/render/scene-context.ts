@@ -5,6 +5,7 @@
  */
 import type { BoundaryModel, DiagramModel, RegionClass } from '../model.js';
 import type { Tick } from './axes.js';
+import type { TagColumns } from './family-tags.js';
 import { clipPolyline } from './clip.js';
 import { inflate, polylineSegments, rectRing, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
 import type { Layout } from './labels.js';
@@ -107,6 +108,8 @@ export interface FigureBands {
   capSize: number;
   capLead: number;
   plot: Rect;
+  /** Thickness of the family tag columns beside the frame (family-tags.ts), pt; 0 where none. */
+  tagCols: TagColumns;
 }
 
 /** Diagram coordinates → figure points within the plot rectangle. */

@@ -57,7 +57,7 @@ function alloySwatchName(c: RegionClass): string {
 }
 
 /** Every legend entry in order: swatches, the base boundaries, families, water, overlay layers. */
-export function legendEntries(b: SceneBase): LegendEntry[] {
+export function legendEntries(b: SceneBase, tagged = false): LegendEntry[] {
   const { o, input, model, ink, lw, thin } = b;
   if (!o.show.legend) return [];
   const legend: LegendEntry[] = o.style !== 'lines' ? swatchEntries(b) : [];
@@ -71,9 +71,11 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
     legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
   }
   if ((input.families?.length ?? 0) > 0) {
-    // One key for the family: "a = 1, 10⁻², 10⁻⁴".
+    // One key for the family: "a = 1, 10⁻², 10⁻⁴", and what the tags at the line ends say (log a).
     const acts = input.families!.map((f) => f.activity);
-    const runs: TextRun[] = [{ text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...acts.flatMap((a, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(a)])];
+    const a: TextRun = { text: 'a', shift: 'normal', italic: true };
+    const runs: TextRun[] = [a, ...plainRuns(' = '), ...acts.flatMap((x, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(x)])];
+    if (tagged) runs.push(...plainRuns(' (tags: log '), a, ...plainRuns(')'));
     legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs });
   }
   if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });

@@ -10,9 +10,10 @@ import { buildFills } from './scene-fills.js';
 import { isoLabels, isoLines, undeterminedFills } from './scene-iso.js';
 import { fitFigure } from './scene-fit.js';
 import { captionItems, legendItems } from './scene-legend.js';
-import { familyLabels, ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-line-labels.js';
+import { ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-line-labels.js';
 import { boundaryLines, familyLines, gridLines, ligandLines, neutralLine, overlayLines, triplePoints, waterLines } from './scene-lines.js';
 import { buildMarks } from './scene-marks.js';
+import { familyTags } from './scene-family-tags.js';
 import { markLabels, regionLabels } from './scene-labels.js';
 import type { Scene, SceneItem } from './scene-types.js';
 import { runsUnicode } from './typeset.js';
@@ -52,16 +53,19 @@ export function buildScene(input: FigureInput): Scene {
   markLabels(ctx, fills, marks.jobs, labelItems);
   waterLabels(ctx, water.hw, water.ow, labelItems);
   overlayLabels(ctx, placements, labelItems);
-  familyLabels(ctx, families.labels, labelItems);
   isoLabels(ctx, iso.labels, labelItems);
   neutralLabel(ctx, neutral.piece, labelItems);
   ligandLabels(ctx, ligands.labels, labelItems);
+  // (6b) The family tags in the margins (never along the lines).
+  const tagItems: SceneItem[] = [];
+  const untagged = familyTags(ctx, families.labels, tagItems);
+  if (untagged > 0) notes.push(`${untagged} family tag${untagged > 1 ? 's' : ''} left out for want of room in the margin (the legend key lists the activities)`);
   // (7) Assembly: the plot (clipped), axes, labels, then title, legend and caption.
   const plotChildren = [...fills.items, ...undetermined, ...ligands.items, ...grid, ...families.items, ...water.items, ...iso.items, ...neutral.items, ...overlays, ...boundaries, ...triples, ...marks.items];
   const items: SceneItem[] = [
     { type: 'group', role: 'plot', clip: plot, children: plotChildren },
     { type: 'group', role: 'axes', children: axisItems(ctx) },
-    { type: 'group', role: 'labels', children: labelItems },
+    { type: 'group', role: 'labels', children: [...labelItems, ...tagItems] },
     { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx, fills.fills), ...captionItems(ctx)] },
   ];
   const o = base.o;
