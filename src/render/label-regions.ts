@@ -3,7 +3,7 @@
  * turned upright in a tall narrow region, else moved out with a leader line). Deterministic.
  */
 import { inflate, insideRings, nearestOnRect, rectInside, segmentHitsRect, type Segment } from './geometry.js';
-import { Layout, ringsBox, nearSegments, centredBox, DIRECTIONS, LABEL_ROOM, segmentDistanceSq, countCrossings, segmentCross } from './labels.js';
+import { Layout, ringsBox, nearSegments, centredBox, DIRECTIONS, LABEL_ROOM, segmentDistanceSq, countCrossings, segmentCross, boxSegments } from './labels.js';
 import { FONT_SAFETY, runsExtent, runsWidth } from './metrics.js';
 import { rectPole } from './pole.js';
 import type { Point, Rect, TextRun } from './scene-types.js';
@@ -77,7 +77,8 @@ function placeInside(layout: Layout, req: RegionLabelRequest, size: number, minS
   const padY = 0.22 * size;
   // Only lines near the region can limit its label.
   const near = nearSegments(req.rings);
-  const hardNear = near(layout.hard);
+  // Operating points and arrowheads already placed are hard too: a label never hides them.
+  const hardNear = near([...layout.hard, ...markSegments(layout, ['point', 'arrow'])]);
   const softNear = near(layout.soft);
   const bothNear = [...hardNear, ...softNear];
   const w1 = (runsWidth(req.runs, size) * FONT_SAFETY) / size; // width per pt of font
@@ -141,8 +142,10 @@ function placeInside(layout: Layout, req: RegionLabelRequest, size: number, minS
  * tried (all of them up to 4 labels, else as given) and the cheapest layout is kept.
  */
 function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[], outside: number[], size: number, out: (RegionLabelPlacement | null)[], minSize = size): void {
-  // Leader anchors: each region's own pole (a square probe; 1 pt is ample for a dot).
-  const anchors = outside.map((i) => rectPole(requests[i]!.rings, [], 1, 1, 1).point);
+  // Leader anchors: each region's own pole (a square probe; 1 pt is ample for a dot), kept off the
+  // operating marks where the region leaves room.
+  const marks = markSegments(layout, ['point', 'box', 'arrow']);
+  const anchors = outside.map((i) => rectPole(requests[i]!.rings, nearSegments(requests[i]!.rings)(marks), 1, 1, 1).point);
   // Try the orders of the outside labels (all of them up to 4 labels, else as given) and keep the
   // cheapest layout; ties keep the earlier order, so the result is deterministic.
   const orders = outside.length <= 4 ? permutations(outside.map((_, k) => k)) : [outside.map((_, k) => k)];
@@ -169,6 +172,11 @@ function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[]
   layout.hard.push(...best!.hard);
   layout.leaders.push(...best!.leaders);
   for (const [i, pl] of best!.placed) out[i] = pl;
+}
+
+/** Edges of the placed boxes with the given roles (the operating marks). */
+function markSegments(layout: Layout, roles: readonly string[]): Segment[] {
+  return layout.boxes.filter((b) => roles.includes(b.role)).flatMap((b) => boxSegments(b.rect));
 }
 
 /** All orderings of a short list, in lexicographic order of positions (the given order first). */

@@ -78,15 +78,22 @@ function markLabel(ctx: SceneContext, f: RegionFills, out: SceneItem[], role: st
 }
 
 /**
- * The marks' labels: (1) every mark's own box joins the layout, (2) boxes are labelled first (their
- * labels have the fewest good places), then points, then paths (at their start).
+ * Every mark's own box joins the layout (before the region labels, so that their leaders keep off
+ * the marks).
  */
-export function markLabels(ctx: SceneContext, f: RegionFills, jobs: MarkJobs, out: SceneItem[]): void {
+export function registerMarks(ctx: SceneContext, jobs: MarkJobs): void {
   const { layout } = ctx;
-  const markW = markWidth(ctx.lw);
   for (const pj of jobs.points) layout.addBox(inflate({ x: pj.at[0], y: pj.at[1], w: 0, h: 0 }, pj.r + 0.3), 'point');
   for (const bj of jobs.boxes) layout.addBox(bj.rect, 'box');
   for (const tip of jobs.arrowTips) layout.addBox(tip, 'arrow');
+}
+
+/**
+ * The marks' labels (their boxes already in the layout: registerMarks): boxes are labelled first
+ * (their labels have the fewest good places), then points, then paths (at their start).
+ */
+export function markLabels(ctx: SceneContext, f: RegionFills, jobs: MarkJobs, out: SceneItem[]): void {
+  const markW = markWidth(ctx.lw);
   for (const bj of jobs.boxes) markLabel(ctx, f, out, 'box-label', bj.label, bj.rect, 'box');
   for (const pj of jobs.points) markLabel(ctx, f, out, 'point-label', pj.label, inflate({ x: pj.at[0], y: pj.at[1], w: 0, h: 0 }, pj.r + 0.3), 'point');
   for (const pj of jobs.paths) markLabel(ctx, f, out, 'path-label', pj.label, inflate({ x: pj.start[0], y: pj.start[1], w: 0, h: 0 }, markW + 1), 'point', pj.segs);

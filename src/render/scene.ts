@@ -14,7 +14,7 @@ import { ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-
 import { boundaryLines, familyLines, gridLines, ligandLines, neutralLine, overlayLines, triplePoints, waterLines } from './scene-lines.js';
 import { buildMarks } from './scene-marks.js';
 import { familyTags } from './scene-family-tags.js';
-import { markLabels, regionLabels } from './scene-labels.js';
+import { markLabels, regionLabels, registerMarks } from './scene-labels.js';
 import type { Scene, SceneItem } from './scene-types.js';
 import { runsUnicode } from './typeset.js';
 
@@ -49,6 +49,7 @@ export function buildScene(input: FigureInput): Scene {
   const marks = buildMarks(ctx);
   // (6) Labels: regions, marks, then the lines' labels where they still fit.
   const labelItems: SceneItem[] = [];
+  registerMarks(ctx, marks.jobs);
   const placements = regionLabels(ctx, fills, labelItems);
   markLabels(ctx, fills, marks.jobs, labelItems);
   waterLabels(ctx, water.hw, water.ow, labelItems);
