@@ -135,6 +135,7 @@ function nearestFreeInPlot(layout: Layout, w: number, h: number, mark: Rect, gap
       const box = { x: cx - w / 2, y: cy - h / 2, w, h };
       if (rectsOverlap(box, mark, 0)) continue;
       if (!layout.boxFree(inflate(box, gap), 0)) continue;
+      if (layout.anyHit(inflate(box, gap), layout.leaders)) continue;
       if (!leaderClear(layout, mark, box)) continue;
       best = { cx, cy, d };
     }

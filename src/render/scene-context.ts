@@ -44,6 +44,11 @@ export interface FigureInput {
   baseLabel?: string;
   /** Composition mode: the HTML page's share read-out grid. */
   readout?: ShareGrid;
+  /**
+   * Regions labelled by number (their names did not fit in or beside them), in key order: region
+   * species i is labelled "i + 1" and keyed "i + 1 <name>" in the legend. Set by buildScene.
+   */
+  regionNumbers?: string[];
 }
 
 export type Inks = ReturnType<typeof inks>;
@@ -71,7 +76,8 @@ export interface SceneBase {
 }
 
 export interface LegendEntry {
-  kind: 'swatch' | 'line';
+  /** 'key': text only (a numbered region's name, "1 Cr₂O₃ + Fe₃O₄ + Ni"). */
+  kind: 'swatch' | 'line' | 'key';
   /** Swatches: the tint group (region class) whose every tint in use the swatch shows. */
   group?: RegionClass;
   fill?: string | null;
@@ -79,6 +85,8 @@ export interface LegendEntry {
   width?: number;
   dash?: number[] | null;
   runs: TextRun[];
+  /** Extra attributes of the entry's label (data-*). */
+  data?: Record<string, string>;
 }
 
 /** Where everything outside the plot goes, and the plot rectangle itself. */

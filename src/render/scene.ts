@@ -23,12 +23,32 @@ export type { FigureInput } from './scene-context.js';
 export { dashStroke, parseDash, wrapText } from './scene-context.js';
 export { CAUTION } from './scene-legend.js';
 
+/** Passes of buildScene at most: the first, then up to five with more regions numbered. */
+const NUMBERING_PASSES = 6;
+
 /**
  * Builds the figure scene, squeezed to fit its size (scene-fit.ts; the steps taken are in
- * `notes`). Throws FigureFitError (naming the option) for a request that cannot fit, Error for
- * other invalid options.
+ * `notes`). Region names that fit nowhere (not inside, not outside with a leader, at the smallest
+ * size) are replaced by numbers keyed in the legend ("1 Cr₂O₃ + Fe₃O₄ + Ni"): the figure is laid
+ * out again with the key (which takes room, so more regions may need numbers: up to
+ * NUMBERING_PASSES passes), reported once as a note. Throws FigureFitError (naming the option) for
+ * a request that cannot fit, Error for other invalid options.
  */
 export function buildScene(input: FigureInput): Scene {
+  let inp = input;
+  for (let pass = 1; ; pass++) {
+    const { scene, crowded } = buildOnce(inp);
+    if (!crowded.length || pass === NUMBERING_PASSES) {
+      const n = inp.regionNumbers?.length ?? 0;
+      if (n > (input.regionNumbers?.length ?? 0)) scene.notes.push(`${n} region${n > 1 ? 's' : ''} numbered (names in the legend key) where the names did not fit`);
+      return scene;
+    }
+    inp = { ...inp, regionNumbers: [...(inp.regionNumbers ?? []), ...crowded] };
+  }
+}
+
+/** One layout of the figure; `crowded`: region names that found no free place (not numbered yet). */
+function buildOnce(input: FigureInput): { scene: Scene; crowded: string[] } {
   // (1)–(2) Sizes, inks and the layout of the bands and the plot, squeezed to fit; (3) the context.
   const { base, bands, notes, droppedCaption } = fitFigure(input);
   const plot = bands.plot;
@@ -50,7 +70,7 @@ export function buildScene(input: FigureInput): Scene {
   // (6) Labels: regions, marks, then the lines' labels where they still fit.
   const labelItems: SceneItem[] = [];
   registerMarks(ctx, marks.jobs);
-  const placements = regionLabels(ctx, fills, labelItems);
+  const { placements, crowded } = regionLabels(ctx, fills, labelItems);
   markLabels(ctx, fills, marks.jobs, labelItems);
   waterLabels(ctx, water.hw, water.ow, labelItems);
   overlayLabels(ctx, placements, labelItems);
@@ -70,7 +90,7 @@ export function buildScene(input: FigureInput): Scene {
     { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx, fills.fills), ...captionItems(ctx)] },
   ];
   const o = base.o;
-  return {
+  const scene: Scene = {
     widthPt: base.W,
     heightPt: base.H,
     widthMm: o.width,
@@ -84,4 +104,5 @@ export function buildScene(input: FigureInput): Scene {
     notes,
     ...(droppedCaption !== undefined ? { caption: droppedCaption } : {}),
   };
+  return { scene, crowded };
 }
