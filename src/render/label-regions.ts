@@ -220,7 +220,8 @@ const NO_PLACE = 1e6;
  * (the scene numbers its region) and put down at the nearest free box regardless. Adds the
  * box and the leader to the layout (the leader as a hard line, so later labels keep off it).
  */
-function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number, minSize = size): { placement: RegionLabelPlacement; cost: number } {
+function placeOutside(layout: Layout, req: RegionLabelRequest, anchorAt: Point, size: number, minSize = size): { placement: RegionLabelPlacement; cost: number } {
+  let anchor = anchorAt;
   const tries: [number, boolean][] = req.keyed ? [[size, false], [minSize, false], [minSize, true]] : [[size, false], [minSize, false]];
   let best: OutsideSpot | null = null;
   let f = size;
@@ -239,6 +240,17 @@ function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, si
     }
   }
   if (!best) best = nearestFreeBox(layout, req, anchor, f);
+  if (!best && req.keyed) {
+    // The anchor may be boxed in by labels placed since: try other points of the region.
+    for (const a of otherAnchors(req.rings, anchor)) {
+      if (layout.boxes.some((b) => insideRect(a, b.rect))) continue;
+      best = nearestFreeBox(layout, req, a, f);
+      if (best) {
+        anchor = a;
+        break;
+      }
+    }
+  }
   if (!best) {
     // Last resort: beside the anchor, kept inside the plot, over whatever is there.
     const { w, h } = labelSize(req, f);
@@ -261,6 +273,19 @@ interface OutsideSpot {
   cx: number;
   cy: number;
   box: Rect;
+}
+
+/** Whether a point lies in a rectangle (edges included). */
+const insideRect = (p: Point, r: Rect): boolean => p[0] >= r.x && p[0] <= r.x + r.w && p[1] >= r.y && p[1] <= r.y + r.h;
+
+/** Other leader anchors inside a region: halfway from the anchor to each vertex of its outer rings, in order. */
+function otherAnchors(rings: readonly Point[][], anchor: Point): Point[] {
+  const out: Point[] = [];
+  for (const ring of rings) for (const v of ring) {
+    const p: Point = [(anchor[0] + v[0]) / 2, (anchor[1] + v[1]) / 2];
+    if (insideRings(p, rings)) out.push(p);
+  }
+  return out;
 }
 
 /**

@@ -42,11 +42,7 @@ describe.each(ALLOYS)('alloy figure labels, %s', (name, data) => {
     const model = computeAlloy(spec).model;
     const species = [...new Set(model.regions.map((r) => r.species))];
     for (const width of ['85mm', '170mm']) {
-      // Known defect (not fixed yet): Fe–Cr–Ni at 85 mm has ~50 assemblage fields; after numbering,
-      // one number (25 °C) finds no free place and overlaps another, and one leader (200 °C) crosses
-      // another. `it.fails` keeps the case visible: it starts failing the day the layout gets it right.
-      const known = name === 'Fe–Cr–Ni' && width === '85mm';
-      (known ? it.fails : it)(`${celsius} °C, ${width}: no overlaps, clean leaders, every region named or numbered and keyed`, () => {
+      it(`${celsius} °C, ${width}: no overlaps, clean leaders, every region named or numbered and keyed`, () => {
         const s = buildScene(alloyFigureInput(model, spec, figureSettings(spec.base, { width })));
         expect(overlaps(s)).toEqual([]);
         expect(leaderProblems.fromScene(s).problems).toEqual([]);
