@@ -75,7 +75,7 @@ leaderProblems.fromScene = (s: Scene): { problems: string[]; leaders: number } =
     return box ? [{ box, what: `${t.role} "${textOf(t)}"`, ...(key !== undefined ? { key } : {}) }] : [];
   });
   const marks: Boxed[] = items.flatMap((m): Boxed[] => {
-    const key = keyOf(m.role, m.data);
+    const key = m.type === 'group' ? undefined : keyOf(m.role, m.data);
     const k = key !== undefined ? { key } : {};
     if (m.type === 'circle' && m.role === 'point') return [{ box: { x: m.cx - m.r, y: m.cy - m.r, w: 2 * m.r, h: 2 * m.r }, what: `point ${m.data?.label}`, ...k }];
     if (m.type === 'path' && (m.role === 'box' || m.role === 'arrow')) {
