@@ -76,6 +76,17 @@ describe('family tags', () => {
     }
   });
 
+  it('beside a second E axis the right margin is the axis\'s: tags go elsewhere, still clear of everything', () => {
+    for (const width of [85, 170]) {
+      const { s } = scene('Fe', 25, width, { fontSize: 11, style: 'lines' });
+      const c = compute(readSpec({ element: 'Fe', activity: 1e-6, E: [-1.2, 1.6], reference: 'agcl-sat', figure: { width: `${width}mm`, families: [1, 1e-2, 1e-4] } }, 'fam.yaml'));
+      const s2 = buildScene(figureInput(c, figureSettings(c.spec)));
+      for (const sc of [s, s2]) expect(overlaps(sc)).toEqual([]);
+      expect(tags(s2).length).toBeGreaterThan(0);
+      expect(tags(s2).filter((t) => t.data?.side === 'right')).toEqual([]);
+    }
+  });
+
   for (const element of ['Fe', 'Cu', 'Zn', 'Ni', 'Cr']) {
     for (const celsius of [25, 150]) {
       for (const width of [40, 85, 170]) {
