@@ -76,8 +76,9 @@ export function legendEntries(b: SceneBase, tagged = false): LegendEntry[] {
     const acts = input.families!.map((f) => f.activity);
     const a: TextRun = { text: 'a', shift: 'normal', italic: true };
     const runs: TextRun[] = [a, ...plainRuns(' = '), ...acts.flatMap((x, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(x)])];
-    if (tagged) runs.push(...plainRuns(' (tags: log '), a, ...plainRuns(')'));
     legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs });
+    // What the tags say, as an entry of its own (it wraps to the next row on a narrow figure).
+    if (tagged) legend.push({ kind: 'key', runs: [...plainRuns('tags: log '), a] });
   }
   if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });
   legend.push(...bathLegendEntries(b));
@@ -112,7 +113,8 @@ export function legendRows(legend: LegendEntry[], legSize: number, innerW: numbe
   for (const e of legend) {
     const w = entryW(e, legSize);
     // The numbered regions' key starts a row of its own.
-    const keyStarts = e.kind === 'key' && row.length > 0 && row[row.length - 1]!.kind !== 'key';
+    const numbered = (x: LegendEntry): boolean => x.kind === 'key' && x.data?.number !== undefined;
+    const keyStarts = numbered(e) && row.length > 0 && !numbered(row[row.length - 1]!);
     if (row.length > 0 && (x + w > innerW || keyStarts)) {
       rows.push(row);
       row = [];
