@@ -28,7 +28,8 @@ export interface MarkLabelPlacement {
  * distances, clear of everything; (2) the nearest free place around the mark (16
  * directions, growing radius) with a leader line from the mark's edge (also where a boundary runs
  * between the mark and a place beside it), clear of soft lines, then
- * allowing them at a cost; (3) a place beside the mark over soft lines; (4) the first place beside
+ * allowing them at a cost; (3) a place beside the mark over soft lines; (4) the free place in the
+ * plot nearest the mark whose leader strikes no other box or leader; (5) the first place beside
  * the mark regardless. `own` are segments of the mark itself to keep off (e.g. a path). Adds the
  * box (and leader, as a hard line) to the layout.
  */
@@ -134,10 +135,29 @@ function nearestFreeInPlot(layout: Layout, w: number, h: number, mark: Rect, gap
       const box = { x: cx - w / 2, y: cy - h / 2, w, h };
       if (rectsOverlap(box, mark, 0)) continue;
       if (!layout.boxFree(inflate(box, gap), 0)) continue;
+      if (layout.anyHit(inflate(box, gap), layout.leaders)) continue;
+      if (!leaderClear(layout, mark, box)) continue;
       best = { cx, cy, d };
     }
   }
   return best;
+}
+
+/** Roles of the marks' own boxes in the layout (scene-labels.ts registerMarks). */
+const MARK_ROLES = new Set(['point', 'box', 'arrow']);
+
+/** Whether a placed box is the mark's own (a mark box over it), not a label that happens to cover it. */
+const ownMark = (b: { rect: Rect; role: string }, mark: Rect): boolean => MARK_ROLES.has(b.role) && rectsOverlap(b.rect, mark, -1e-6);
+
+/**
+ * Whether the leader from the mark's edge to a label box at `box` keeps off every placed box (but
+ * the mark's own) and crosses no other leader.
+ */
+function leaderClear(layout: Layout, mark: Rect, box: Rect): boolean {
+  const start = nearestOnRect([box.x + box.w / 2, box.y + box.h / 2], mark);
+  const end = nearestOnRect(start, box);
+  for (const b of layout.boxes) if (!ownMark(b, mark) && segmentHitsRect(start, end, b.rect)) return false;
+  return !layout.leaders.some(([p, q]) => segmentCross(start, end, p, q));
 }
 
 /** Leader placement for placeMarkLabel: nearest free box around the mark, cost = distance + penalties. */
@@ -170,7 +190,7 @@ function leaderPlace(
       const end = nearestOnRect(start, box);
       let blocked = false;
       for (const b of layout.boxes) {
-        if (rectsOverlap(b.rect, mark, -1e-6)) continue; // the mark's own box
+        if (ownMark(b, mark)) continue; // the mark's own box
         if (segmentHitsRect(start, end, b.rect)) {
           blocked = true;
           break;

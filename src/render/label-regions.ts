@@ -3,7 +3,7 @@
  * turned upright in a tall narrow region, else moved out with a leader line). Deterministic.
  */
 import { inflate, insideRings, nearestOnRect, rectInside, segmentHitsRect, type Segment } from './geometry.js';
-import { Layout, ringsBox, nearSegments, centredBox, DIRECTIONS, LABEL_ROOM, segmentDistanceSq, countCrossings, segmentCross } from './labels.js';
+import { Layout, ringsBox, nearSegments, centredBox, DIRECTIONS, LABEL_ROOM, segmentDistanceSq, countCrossings, segmentCross, boxSegments } from './labels.js';
 import { FONT_SAFETY, runsExtent, runsWidth } from './metrics.js';
 import { rectPole } from './pole.js';
 import type { Point, Rect, TextRun } from './scene-types.js';
@@ -15,6 +15,11 @@ export interface RegionLabelRequest {
   rings: Point[][];
   /** Label only if it fits inside (no leader): for the smaller parts of a region in several pieces. */
   optional?: boolean;
+  /**
+   * The label is the region's number (keyed in the legend): it may sit over boundary lines as a
+   * last resort. A name is not put over lines: it is reported `crowded` instead.
+   */
+  keyed?: boolean;
 }
 
 export interface RegionLabelPlacement {
@@ -30,6 +35,11 @@ export interface RegionLabelPlacement {
   box: Rect;
   /** Present when the label sits outside its region: from the region's interior point to the box. */
   leader?: [Point, Point];
+  /**
+   * The label found no free place, inside or outside (even over lines): it was put down where it
+   * overlaps or its leader may cross. The scene then labels the region by number with a key.
+   */
+  crowded?: true;
 }
 
 /**
@@ -63,6 +73,8 @@ export function placeRegionLabels(
       outside.push(i);
     }
   });
+  // Numbers first (small, and they must land near their region), then the names with leaders.
+  outside.sort((a, b) => Number(!requests[a]!.keyed) - Number(!requests[b]!.keyed) || a - b);
   if (outside.length > 0) placeAllOutside(layout, requests, outside, size, out, minSize);
   return out;
 }
@@ -77,7 +89,8 @@ function placeInside(layout: Layout, req: RegionLabelRequest, size: number, minS
   const padY = 0.22 * size;
   // Only lines near the region can limit its label.
   const near = nearSegments(req.rings);
-  const hardNear = near(layout.hard);
+  // Operating points and arrowheads already placed are hard too: a label never hides them.
+  const hardNear = near([...layout.hard, ...markSegments(layout, ['point', 'arrow'])]);
   const softNear = near(layout.soft);
   const bothNear = [...hardNear, ...softNear];
   const w1 = (runsWidth(req.runs, size) * FONT_SAFETY) / size; // width per pt of font
@@ -141,8 +154,11 @@ function placeInside(layout: Layout, req: RegionLabelRequest, size: number, minS
  * tried (all of them up to 4 labels, else as given) and the cheapest layout is kept.
  */
 function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[], outside: number[], size: number, out: (RegionLabelPlacement | null)[], minSize = size): void {
-  // Leader anchors: each region's own pole (a square probe; 1 pt is ample for a dot).
-  const anchors = outside.map((i) => rectPole(requests[i]!.rings, [], 1, 1, 1).point);
+  // Leader anchors: each region's own pole (a square probe; 1 pt is ample for a dot), kept off the
+  // operating marks and the labels already placed where the region leaves room (so that a leader
+  // can get out).
+  const placed = layout.boxes.flatMap((b) => boxSegments(b.rect));
+  const anchors = outside.map((i) => rectPole(requests[i]!.rings, nearSegments(requests[i]!.rings)(placed), 1, 1, 1).point);
   // Try the orders of the outside labels (all of them up to 4 labels, else as given) and keep the
   // cheapest layout; ties keep the earlier order, so the result is deterministic.
   const orders = outside.length <= 4 ? permutations(outside.map((_, k) => k)) : [outside.map((_, k) => k)];
@@ -171,6 +187,11 @@ function placeAllOutside(layout: Layout, requests: readonly RegionLabelRequest[]
   for (const [i, pl] of best!.placed) out[i] = pl;
 }
 
+/** Edges of the placed boxes with the given roles (the operating marks). */
+function markSegments(layout: Layout, roles: readonly string[]): Segment[] {
+  return layout.boxes.filter((b) => roles.includes(b.role)).flatMap((b) => boxSegments(b.rect));
+}
+
 /** All orderings of a short list, in lexicographic order of positions (the given order first). */
 function permutations(xs: number[]): number[][] {
   if (xs.length <= 1) return [xs];
@@ -194,12 +215,14 @@ const NO_PLACE = 1e6;
  * Outside place for a region label: the nearest free box around the anchor (16 directions, growing
  * radius) whose leader crosses no other leader or label; cost = distance + penalties for soft lines
  * under the box and for each boundary the leader crosses beyond the region's own. Tried at full
- * size, then at `minSize`, then (still at `minSize`) letting the box sit over boundary lines at a
- * heavy cost, so that the label always lands inside the plot clear of every other label. Adds the
+ * size, then at `minSize`, then — for a region's number only (`keyed`) — still at `minSize` letting
+ * the box sit over boundary lines at a heavy cost. A name that finds no place is marked `crowded`
+ * (the scene numbers its region) and put down at the nearest free box regardless. Adds the
  * box and the leader to the layout (the leader as a hard line, so later labels keep off it).
  */
-function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number, minSize = size): { placement: RegionLabelPlacement; cost: number } {
-  const tries: [number, boolean][] = [[size, false], [minSize, false], [minSize, true]];
+function placeOutside(layout: Layout, req: RegionLabelRequest, anchorAt: Point, size: number, minSize = size): { placement: RegionLabelPlacement; cost: number } {
+  let anchor = anchorAt;
+  const tries: [number, boolean][] = req.keyed ? [[size, false], [minSize, false], [minSize, true]] : [[size, false], [minSize, false]];
   let best: OutsideSpot | null = null;
   let f = size;
   for (const [s, overLines] of tries) {
@@ -207,7 +230,27 @@ function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, si
     f = s;
     if (best) break;
   }
+  const crowded = !best;
+  if (!best && req.keyed) {
+    // A region's number at its own pole, over lines if need be, where no label or leader is.
+    const pole = atPole(layout, req, anchor, f);
+    if (pole) {
+      layout.addBox(pole.box, 'region-label');
+      return { placement: { key: req.key, runs: req.runs, size: f, cx: pole.cx, cy: pole.cy, angle: 0, box: pole.box }, cost: pole.cost };
+    }
+  }
   if (!best) best = nearestFreeBox(layout, req, anchor, f);
+  if (!best && req.keyed) {
+    // The anchor may be boxed in by labels placed since: try other points of the region.
+    for (const a of otherAnchors(req.rings, anchor)) {
+      if (layout.boxes.some((b) => insideRect(a, b.rect))) continue;
+      best = nearestFreeBox(layout, req, a, f);
+      if (best) {
+        anchor = a;
+        break;
+      }
+    }
+  }
   if (!best) {
     // Last resort: beside the anchor, kept inside the plot, over whatever is there.
     const { w, h } = labelSize(req, f);
@@ -222,7 +265,7 @@ function placeOutside(layout: Layout, req: RegionLabelRequest, anchor: Point, si
   const tip: Point = len > 0 ? [end[0] - ((end[0] - anchor[0]) / len) * trim, end[1] - ((end[1] - anchor[1]) / len) * trim] : end;
   layout.leaders.push([anchor, tip]);
   layout.hard.push([anchor, tip]);
-  return { placement: { key: req.key, runs: req.runs, size: f, cx: best.cx, cy: best.cy, angle: 0, box: best.box, leader: [anchor, tip] }, cost: best.cost };
+  return { placement: { key: req.key, runs: req.runs, size: f, cx: best.cx, cy: best.cy, angle: 0, box: best.box, leader: [anchor, tip], ...(crowded ? { crowded: true as const } : {}) }, cost: best.cost };
 }
 
 interface OutsideSpot {
@@ -232,9 +275,44 @@ interface OutsideSpot {
   box: Rect;
 }
 
+/** Whether a point lies in a rectangle (edges included). */
+const insideRect = (p: Point, r: Rect): boolean => p[0] >= r.x && p[0] <= r.x + r.w && p[1] >= r.y && p[1] <= r.y + r.h;
+
+/** Other leader anchors inside a region: halfway from the anchor to each vertex of its outer rings, in order. */
+function otherAnchors(rings: readonly Point[][], anchor: Point): Point[] {
+  const out: Point[] = [];
+  for (const ring of rings) for (const v of ring) {
+    const p: Point = [(anchor[0] + v[0]) / 2, (anchor[1] + v[1]) / 2];
+    if (insideRings(p, rings)) out.push(p);
+  }
+  return out;
+}
+
 /**
- * Fallback of placeOutside: the free box (clear of every placed box, inside the plot) nearest the
- * anchor on a grid of half font sizes, whatever lines it covers or its leader crosses.
+ * A number's box inside its region, over lines if need be: at the leader anchor, else where the
+ * region keeps it farthest from placed labels and leaders; null if no placed box or leader is clear.
+ */
+function atPole(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number): OutsideSpot | null {
+  const { w, h } = labelSize(req, size);
+  const gap = 0.15 * size;
+  const free = (cx: number, cy: number): Rect | null => {
+    const box = { x: cx - w / 2, y: cy - h / 2, w, h };
+    const padded = inflate(box, gap);
+    return rectInside(padded, layout.plot) && layout.boxFree(padded, 0) && !layout.anyHit(padded, layout.leaders) ? box : null;
+  };
+  const atAnchor = free(anchor[0], anchor[1]);
+  if (atAnchor) return { cost: NO_PLACE / 4, cx: anchor[0], cy: anchor[1], box: atAnchor };
+  // Else the place in the region farthest from the placed labels and leaders (lines ignored).
+  const obstacles = nearSegments(req.rings)([...layout.boxes.flatMap((b) => boxSegments(b.rect)), ...layout.leaders]);
+  const pole = rectPole(req.rings, obstacles, w / 2 + gap, h / 2 + gap);
+  const box = pole.scale >= 1 ? free(pole.point[0], pole.point[1]) : null;
+  return box ? { cost: NO_PLACE / 4, cx: pole.point[0], cy: pole.point[1], box } : null;
+}
+
+/**
+ * Fallback of placeOutside: the free box (clear of every placed box and leader, inside the plot)
+ * nearest the anchor on a grid of half font sizes whose leader strikes no box and crosses no other
+ * leader, whatever boundary lines it covers or its leader crosses.
  */
 function nearestFreeBox(layout: Layout, req: RegionLabelRequest, anchor: Point, size: number): OutsideSpot | null {
   const { w, h } = labelSize(req, size);
@@ -247,6 +325,11 @@ function nearestFreeBox(layout: Layout, req: RegionLabelRequest, anchor: Point, 
       const d = Math.hypot(x - anchor[0], y - anchor[1]);
       if (best && d >= best.cost - NO_PLACE / 2) continue;
       if (!layout.boxFree(inflate(box, gap), 0)) continue;
+      // The box keeps off the leaders, and its own leader off every box and leader.
+      if (layout.anyHit(inflate(box, gap), layout.leaders)) continue;
+      const end = nearestOnRect(anchor, box);
+      if (layout.boxes.some((b) => segmentHitsRect(anchor, end, b.rect))) continue;
+      if (layout.leaders.some(([p, q]) => segmentCross(anchor, end, p, q))) continue;
       best = { cost: NO_PLACE / 2 + d, cx: x, cy: y, box };
     }
   }

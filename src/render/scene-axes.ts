@@ -23,7 +23,7 @@ function axisTicks(ctx: SceneContext, axis: 'pH' | 'E' | 'E2', ticks: Tick[], ti
     } else if (axis === 'E') {
       const y = fr.y(t.value);
       ticksOut.push([[plot.x, y], [plot.x - tickLen, y]]);
-      items.push(text('tick-label', plainRuns(t.label), plot.x - tickLen - tickGap, y + (CAP_HEIGHT * fs) / 2, fs, 'end', ink.text, { data }));
+      items.push(text('tick-label', plainRuns(t.label), plot.x - tickLen - bands.tagCols.left - tickGap, y + (CAP_HEIGHT * fs) / 2, fs, 'end', ink.text, { data }));
     } else {
       const y = fr.y(t.value + bands.off);
       ticksOut.push([[rx, y], [rx + tickLen, y]]);

@@ -5,6 +5,7 @@
  */
 import type { BoundaryModel, DiagramModel, RegionClass } from '../model.js';
 import type { Tick } from './axes.js';
+import type { TagColumns } from './family-tags.js';
 import { clipPolyline } from './clip.js';
 import { inflate, polylineSegments, rectRing, segmentDistance, simplifyCollinear, type Segment } from './geometry.js';
 import type { Layout } from './labels.js';
@@ -43,6 +44,11 @@ export interface FigureInput {
   baseLabel?: string;
   /** Composition mode: the HTML page's share read-out grid. */
   readout?: ShareGrid;
+  /**
+   * Regions labelled by number (their names did not fit in or beside them), in key order: region
+   * species i is labelled "i + 1" and keyed "i + 1 <name>" in the legend. Set by buildScene.
+   */
+  regionNumbers?: string[];
 }
 
 export type Inks = ReturnType<typeof inks>;
@@ -70,7 +76,8 @@ export interface SceneBase {
 }
 
 export interface LegendEntry {
-  kind: 'swatch' | 'line';
+  /** 'key': text only (a numbered region's name, "1 Cr₂O₃ + Fe₃O₄ + Ni"). */
+  kind: 'swatch' | 'line' | 'key';
   /** Swatches: the tint group (region class) whose every tint in use the swatch shows. */
   group?: RegionClass;
   fill?: string | null;
@@ -78,6 +85,8 @@ export interface LegendEntry {
   width?: number;
   dash?: number[] | null;
   runs: TextRun[];
+  /** Extra attributes of the entry's label (data-*). */
+  data?: Record<string, string>;
 }
 
 /** Where everything outside the plot goes, and the plot rectangle itself. */
@@ -107,6 +116,8 @@ export interface FigureBands {
   capSize: number;
   capLead: number;
   plot: Rect;
+  /** Thickness of the family tag columns beside the frame (family-tags.ts), pt; 0 where none. */
+  tagCols: TagColumns;
 }
 
 /** Diagram coordinates → figure points within the plot rectangle. */

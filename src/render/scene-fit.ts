@@ -1,7 +1,9 @@
 /**
  * Fitting a figure to the requested size. The layout is tried as given, then squeezed step by step
  * until the plot keeps its minimum size: (1) the title wraps, shrinks or is cut, (2) every font
- * shrinks in 0.5 pt steps down to a floor (75 % of the request, at least 6 pt), (3) the height
+ * shrinks in 0.5 pt steps down to a floor (75 % of the request, at least 6 pt), (2b) the family
+ * tags leave the margins (the legend key lists the activities; here when the width does not fit,
+ * else after step 5), (3) the height
  * grows (up to twice the width or the requested height, whichever is larger), (4) the legend folds
  * (smallest font, tight spacing), (5) the caption leaves the drawing for the figure's metadata.
  * Each step taken is reported once as a note. Only a request that still cannot fit is refused,
@@ -59,6 +61,15 @@ export function fitFigure(input: FigureInput): FittedFigure {
   }
   if (fs < o.fontSize) notes.push(`font size reduced from ${fmt(o.fontSize)} to ${fmt(fs)} pt to fit`);
   titleNote();
+  // (2b) Family tags out of the margins (the legend key lists the activities): here only when the
+  // width does not fit (their columns take width); for the height, after the other steps.
+  const dropTags = (): void => {
+    if (ok() || !Object.values(bands.tagCols).some((c) => c > 0)) return;
+    plan = { ...plan, dropTags: true };
+    bands = layoutFigure(base, plan);
+    notes.push('family tags left out of the margins to fit (the legend key lists the activities)');
+  };
+  if (!bands.fits.w) dropTags();
   // (3) Height, up to the larger of twice the width and the request.
   const maxH = Math.max(o.height, 2 * o.width);
   if (!ok() && bands.fits.w) {
@@ -80,10 +91,16 @@ export function fitFigure(input: FigureInput): FittedFigure {
     bands = layoutFigure(base, plan);
     notes.push('caption moved to the figure metadata (not drawn) to fit');
   }
+  dropTags();
   if (!ok()) {
-    const plotMm = `${ptToMm(bands.plot.w).toFixed(0)}×${ptToMm(bands.plot.h).toFixed(0)} mm`;
-    if (!bands.fits.w) throw new FigureFitError('--width', `figure ${fmt(o.width)} mm wide leaves the plot only ${plotMm} even at ${fmt(fs)} pt; make it wider or use a smaller --font-size`);
-    throw new FigureFitError('--height', `figure ${fmt(o.width)}×${fmt(height)} mm leaves the plot only ${plotMm}; make it taller or hide the caption/legend`);
+    // The plot's size as a person reads it: a side squeezed to nothing is "no room", never a negative length.
+    const side = (pt: number): number => Math.max(0, Math.round(ptToMm(pt)));
+    if (!bands.fits.w) {
+      const room = side(bands.plot.w) > 0 ? `the plot only ${side(bands.plot.w)} mm wide` : 'no width for the plot';
+      throw new FigureFitError('--width', `figure ${fmt(o.width)} mm wide leaves ${room} even at ${fmt(fs)} pt; make it wider or use a smaller --font-size`);
+    }
+    const room = side(bands.plot.h) > 0 ? `the plot only ${side(bands.plot.w)}×${side(bands.plot.h)} mm` : 'no height for the plot';
+    throw new FigureFitError('--height', `figure ${fmt(o.width)}×${fmt(height)} mm leaves ${room}; make it taller or hide the caption/legend`);
   }
   return { base, bands, notes, ...(droppedCaption !== undefined ? { droppedCaption } : {}) };
 }

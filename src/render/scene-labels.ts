@@ -13,8 +13,8 @@ import { MIN_FONT_PT } from './options.js';
 import { knockout, line, text, type SceneContext } from './scene-context.js';
 import { fillAt, polyArea, type RegionFills } from './scene-fills.js';
 import { markWidth, type MarkJobs } from './scene-marks.js';
-import type { Rect, SceneItem } from './scene-types.js';
-import { formulaRuns, richRuns } from './typeset.js';
+import type { Rect, SceneItem, TextRun } from './scene-types.js';
+import { formulaRuns, plainRuns, richRuns } from './typeset.js';
 
 /** Label requests: main pieces first, then by decreasing area (ties: region, piece order). */
 function regionRequests(ctx: SceneContext, f: RegionFills): RegionLabelRequest[] {
@@ -27,9 +27,13 @@ function regionRequests(ctx: SceneContext, f: RegionFills): RegionLabelRequest[]
     });
   });
   pieces.sort((a, b) => Number(b.main) - Number(a.main) || b.area - a.area || a.i - b.i || a.k - b.k);
+  // A numbered region (scene.ts: its name fits nowhere) shows its number; the legend keys it.
+  const numbers = ctx.input.regionNumbers ?? [];
+  const runsOf = (species: string): TextRun[] => (numbers.includes(species) ? plainRuns(String(numbers.indexOf(species) + 1)) : formulaRuns(species));
   return pieces.map(({ i, k, main }) => ({
     key: `${i}:${k}`,
-    runs: formulaRuns(ctx.model.regions[i]!.species),
+    runs: runsOf(ctx.model.regions[i]!.species),
+    ...(numbers.includes(ctx.model.regions[i]!.species) ? { keyed: true } : {}),
     rings: f.polys[i]![k]!,
     ...(main ? {} : { optional: true }),
   }));
@@ -44,7 +48,8 @@ function regionLabelItems(ctx: SceneContext, f: RegionFills, pl: RegionLabelPlac
     // A soft line (water, family, …) runs under the label: knock it out with the fill under it.
     out.push(knockout(pl.box, pl.size, pl.leader ? fillAt(f, [pl.cx, pl.cy]) : (f.fills[ri] ?? '#ffffff')));
   }
-  const data = { species: r.species, placement: pl.leader ? 'outside' : 'inside' };
+  const n = (ctx.input.regionNumbers ?? []).indexOf(r.species);
+  const data = { species: r.species, placement: pl.leader ? 'outside' : 'inside', ...(n >= 0 ? { number: String(n + 1) } : {}) };
   if (pl.angle === 0) {
     const base = baselineForCentre(pl.runs, pl.size, pl.cy);
     out.push(text('region-label', pl.runs, pl.cx, base, pl.size, 'middle', ink.text, { box: pl.box, data }));
@@ -59,12 +64,18 @@ function regionLabelItems(ctx: SceneContext, f: RegionFills, pl: RegionLabelPlac
   }
 }
 
-/** Places and draws the region labels; returns the placements (overlay labels skip named fields). */
-export function regionLabels(ctx: SceneContext, f: RegionFills, out: SceneItem[]): (RegionLabelPlacement | null)[] {
+/**
+ * Places and draws the region labels; returns the placements (overlay labels skip named fields)
+ * and the species whose name found no free place (not yet numbered), in region order.
+ */
+export function regionLabels(ctx: SceneContext, f: RegionFills, out: SceneItem[]): { placements: (RegionLabelPlacement | null)[]; crowded: string[] } {
   const minLabel = Math.max(MIN_FONT_PT, 0.7 * ctx.fs);
   const placements = placeRegionLabels(ctx.layout, regionRequests(ctx, f), ctx.fs, minLabel);
   for (const pl of placements) if (pl) regionLabelItems(ctx, f, pl, out);
-  return placements;
+  const numbered = new Set(ctx.input.regionNumbers ?? []);
+  const crowded = new Set<number>();
+  for (const pl of placements) if (pl?.crowded && !numbered.has(ctx.model.regions[Number(pl.key.split(':')[0])]!.species)) crowded.add(Number(pl.key.split(':')[0]));
+  return { placements, crowded: [...crowded].sort((a, b) => a - b).map((i) => ctx.model.regions[i]!.species).filter((s, k, all) => all.indexOf(s) === k) };
 }
 
 /** One mark's label at the small size, with a knock-out over soft lines and a leader if moved away. */
@@ -78,15 +89,22 @@ function markLabel(ctx: SceneContext, f: RegionFills, out: SceneItem[], role: st
 }
 
 /**
- * The marks' labels: (1) every mark's own box joins the layout, (2) boxes are labelled first (their
- * labels have the fewest good places), then points, then paths (at their start).
+ * Every mark's own box joins the layout (before the region labels, so that their leaders keep off
+ * the marks).
  */
-export function markLabels(ctx: SceneContext, f: RegionFills, jobs: MarkJobs, out: SceneItem[]): void {
+export function registerMarks(ctx: SceneContext, jobs: MarkJobs): void {
   const { layout } = ctx;
-  const markW = markWidth(ctx.lw);
   for (const pj of jobs.points) layout.addBox(inflate({ x: pj.at[0], y: pj.at[1], w: 0, h: 0 }, pj.r + 0.3), 'point');
   for (const bj of jobs.boxes) layout.addBox(bj.rect, 'box');
   for (const tip of jobs.arrowTips) layout.addBox(tip, 'arrow');
+}
+
+/**
+ * The marks' labels (their boxes already in the layout: registerMarks): boxes are labelled first
+ * (their labels have the fewest good places), then points, then paths (at their start).
+ */
+export function markLabels(ctx: SceneContext, f: RegionFills, jobs: MarkJobs, out: SceneItem[]): void {
+  const markW = markWidth(ctx.lw);
   for (const bj of jobs.boxes) markLabel(ctx, f, out, 'box-label', bj.label, bj.rect, 'box');
   for (const pj of jobs.points) markLabel(ctx, f, out, 'point-label', pj.label, inflate({ x: pj.at[0], y: pj.at[1], w: 0, h: 0 }, pj.r + 0.3), 'point');
   for (const pj of jobs.paths) markLabel(ctx, f, out, 'path-label', pj.label, inflate({ x: pj.start[0], y: pj.start[1], w: 0, h: 0 }, markW + 1), 'point', pj.segs);

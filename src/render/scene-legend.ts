@@ -58,9 +58,10 @@ function alloySwatchName(c: RegionClass, neutralDissolved: boolean): string {
 }
 
 /** Every legend entry in order: swatches, the base boundaries, families, water, overlay layers. */
-export function legendEntries(b: SceneBase): LegendEntry[] {
+export function legendEntries(b: SceneBase, tagged = false): LegendEntry[] {
   const { o, input, model, ink, lw, thin } = b;
-  if (!o.show.legend) return [];
+  // The numbered regions' key is kept even without a legend: it names regions the plot cannot.
+  if (!o.show.legend) return regionKeyEntries(b);
   const legend: LegendEntry[] = o.style !== 'lines' ? swatchEntries(b) : [];
   if ((input.families?.length ?? 0) > 0 || (input.overlays?.length ?? 0) > 0) {
     const runs: TextRun[] =
@@ -72,10 +73,13 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
     legend.push({ kind: 'line', stroke: ink.boundary, width: lw, dash: null, runs });
   }
   if ((input.families?.length ?? 0) > 0) {
-    // One key for the family: "a = 1, 10⁻², 10⁻⁴".
+    // One key for the family: "a = 1, 10⁻², 10⁻⁴", and what the tags at the line ends say (log a).
     const acts = input.families!.map((f) => f.activity);
-    const runs: TextRun[] = [{ text: 'a', shift: 'normal', italic: true }, ...plainRuns(' = '), ...acts.flatMap((a, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(a)])];
+    const a: TextRun = { text: 'a', shift: 'normal', italic: true };
+    const runs: TextRun[] = [a, ...plainRuns(' = '), ...acts.flatMap((x, i) => [...(i ? plainRuns(', ') : []), ...powerOfTenRuns(x)])];
     legend.push({ kind: 'line', stroke: ink.family, width: thin, dash: null, runs });
+    // What the tags say, as an entry of its own (it wraps to the next row on a narrow figure).
+    if (tagged) legend.push({ kind: 'key', runs: [...plainRuns('tags: log '), a] });
   }
   if (o.show.water) legend.push({ kind: 'line', stroke: ink.water, width: 0.75 * lw, dash: b.waterDash, runs: richRuns('water stability limits') });
   legend.push(...bathLegendEntries(b));
@@ -87,11 +91,17 @@ export function legendEntries(b: SceneBase): LegendEntry[] {
   (input.overlays ?? []).forEach((ov, i) => {
     legend.push({ kind: 'line', stroke: overlayInk(ink, ov, i), width: 0.8 * lw, dash: parseDash(ov.dash, lw), runs: richRuns(ov.label) });
   });
+  legend.push(...regionKeyEntries(b));
   return legend;
 }
 
 /** Width of an entry's sample (swatch or line) at legend size `legSize`. */
-const sampleW = (e: LegendEntry, legSize: number): number => (e.kind === 'swatch' ? legSize * 1.6 : legSize * 2.6);
+const sampleW = (e: LegendEntry, legSize: number): number => (e.kind === 'swatch' ? legSize * 1.6 : e.kind === 'key' ? 0 : legSize * 2.6);
+
+/** Key entries of the numbered regions: "1 Cr₂O₃ + Fe₃O₄ + Ni" (figure input regionNumbers). */
+function regionKeyEntries(b: SceneBase): LegendEntry[] {
+  return (b.input.regionNumbers ?? []).map((species, i) => ({ kind: 'key', runs: [...plainRuns(`${i + 1} `), ...formulaRuns(species)], data: { species, number: String(i + 1) } }));
+}
 
 /** Width of an entry: sample, gap, text. */
 const entryW = (e: LegendEntry, legSize: number): number => sampleW(e, legSize) + 0.4 * legSize + runsWidth(e.runs, legSize) * PROSE_SAFETY;
@@ -103,7 +113,10 @@ export function legendRows(legend: LegendEntry[], legSize: number, innerW: numbe
   let x = 0;
   for (const e of legend) {
     const w = entryW(e, legSize);
-    if (row.length > 0 && x + w > innerW) {
+    // The numbered regions' key starts a row of its own.
+    const numbered = (x: LegendEntry): boolean => x.kind === 'key' && x.data?.number !== undefined;
+    const keyStarts = numbered(e) && row.length > 0 && !numbered(row[row.length - 1]!);
+    if (row.length > 0 && (x + w > innerW || keyStarts)) {
       rows.push(row);
       row = [];
       x = 0;
@@ -148,7 +161,7 @@ export function legendLineSample(e: LegendEntry, x: number, sw: number, cy: numb
 /** An entry's label, starting at tx, its text centred on cy. */
 export function legendLabel(e: LegendEntry, tx: number, cy: number, size: number, fill: string): SceneItem {
   const base = baselineForCentre(e.runs, size, cy);
-  return text('legend-label', e.runs, tx, base, size, 'start', fill, { box: textBox(e.runs, size, tx, base, 'start') });
+  return text('legend-label', e.runs, tx, base, size, 'start', fill, { box: textBox(e.runs, size, tx, base, 'start'), ...(e.data ? { data: e.data } : {}) });
 }
 
 /**
@@ -168,10 +181,10 @@ export function legendItems(ctx: SceneContext, fills: readonly (string | null)[]
       if (e.kind === 'swatch') {
         const s = legSize * 0.95;
         out.push(...swatchItems({ x, y: cy - s / 2, w: sw, h: s }, swatchTints(ctx, e, fills)));
-      } else {
+      } else if (e.kind === 'line') {
         out.push(legendLineSample(e, x, sw, cy));
       }
-      out.push(legendLabel(e, x + sw + 0.4 * legSize, cy, legSize, ink.text));
+      out.push(legendLabel(e, x + (e.kind === 'key' ? 0 : sw + 0.4 * legSize), cy, legSize, ink.text));
       x += entryW(e, legSize) + bands.legGap * legSize;
     }
   });

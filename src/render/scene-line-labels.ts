@@ -1,7 +1,8 @@
 /**
  * Labels of the lines, placed after the region and mark labels, each only where it fits clear of
- * every line and label: water couples along their lines, overlay layers' region formulas, family
- * activities at line ends or along them, "neutral" beside its line, ligand fields at their pole.
+ * every line and label: water couples along their lines, overlay layers' region formulas,
+ * "neutral" beside its line, ligand fields at their pole. (Family lines get tags in the margin:
+ * scene-family-tags.ts.)
  */
 import { pointAlong, polylineLength } from './geometry.js';
 import { rectPole } from './pole.js';
@@ -132,19 +133,6 @@ export function overlayLabels(ctx: SceneContext, placements: (RegionLabelPlaceme
     const runs = j.req.runs;
     out.push(text('overlay-label', runs, pl.cx, baselineForCentre(runs, size, pl.cy), size, 'middle', textInk(overlayInk(ink, ov, j.layer)), { box: pl.box, data: { species: j.species, layer: ov.label } }));
   });
-}
-
-/** Each family line's activity, past a line end or beside the line (long enough lines only). */
-export function familyLabels(ctx: SceneContext, jobs: { runs: TextRun[]; pieces: Point[][] }[], out: SceneItem[]): void {
-  const famSize = Math.max(MIN_FONT_PT, ctx.fs * 0.75);
-  for (const job of jobs) {
-    const len = job.pieces.reduce((s, p) => s + polylineLength(p), 0);
-    if (len < 2.5 * famSize) continue;
-    const fr2 = [0.5, 0.35, 0.65, 0.2, 0.8, 0.1, 0.9];
-    const cands = [...beyondEnds(job.pieces, job.runs, famSize), ...alongLine(ctx, job.pieces, job.runs, famSize, 1, fr2, false), ...alongLine(ctx, job.pieces, job.runs, famSize, -1, fr2, false)];
-    const idx = firstFree(ctx.layout, cands, 0.02 * ctx.fs, true, segsOf(job.pieces));
-    placeFirst(ctx, out, 'family-label', job.runs, famSize, cands, idx);
-  }
 }
 
 /** "neutral" reading upwards beside the neutral line, tried from the ends inwards. */

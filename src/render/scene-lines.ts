@@ -8,7 +8,8 @@ import { clipRing } from './clip.js';
 import { polylineSegments, ringSegments, type Segment } from './geometry.js';
 import { coincides, dashStroke, figLine, line, onFrame, overlayInk, parseDash, segsOf, type SceneContext } from './scene-context.js';
 import type { Point, SceneItem, TextRun } from './scene-types.js';
-import { formulaRuns, powerOfTenRuns } from './typeset.js';
+import { formulaRuns } from './typeset.js';
+import { movingSpecies } from './family-tags.js';
 
 /** Ligand predominance fields: dotted edges under everything, and their label requests. */
 export function ligandLines(ctx: SceneContext): { items: SceneItem[]; labels: { runs: TextRun[]; rings: Point[][] }[] } {
@@ -52,21 +53,21 @@ export function gridLines(ctx: SceneContext): SceneItem[] {
 }
 
 /** Boundaries at other activities (pieces that coincide with a main boundary left out); soft. */
-export function familyLines(ctx: SceneContext): { items: SceneItem[]; labels: { runs: TextRun[]; pieces: Point[][] }[] } {
+export function familyLines(ctx: SceneContext): { items: SceneItem[]; labels: { activity: number; pieces: Point[][] }[] } {
   const { input, model, ink, thin, layout } = ctx;
   const items: SceneItem[] = [];
-  const labels: { runs: TextRun[]; pieces: Point[][] }[] = [];
+  const labels: { activity: number; pieces: Point[][] }[] = [];
   const mainSegs: Segment[] = model.boundaries.flatMap((b) => segsOf(figLine(ctx, b.points)));
   // Only a line with a dissolved species of the element on one side moves with its activity; the
-  // others (solid/solid, solid/metal) are drawn where they extend but not labelled.
-  const dissolved = new Set(model.species.filter((s) => s.role === 'main' && s.class === 'dissolved').map((s) => s.formula));
+  // others (solid/solid, solid/metal) are drawn where they extend but not tagged.
+  const dissolved = movingSpecies(model);
   for (const fam of input.families ?? []) {
     for (const b of fam.boundaries) {
       const pieces = figLine(ctx, b.points).filter((p) => !coincides(p, mainSegs, 0.4));
       if (!pieces.length) continue;
       items.push(line('family', pieces, ink.family, thin, null, { lineCap: 'round', data: { activity: fam.activity.toExponential(2) } }));
       layout.soft.push(...segsOf(pieces));
-      if (b.between.some((f) => dissolved.has(f))) labels.push({ runs: powerOfTenRuns(fam.activity), pieces });
+      if (b.between.some((f) => dissolved.has(f))) labels.push({ activity: fam.activity, pieces });
     }
   }
   return { items, labels };

@@ -10,10 +10,11 @@ import { buildFills } from './scene-fills.js';
 import { isoLabels, isoLines, undeterminedFills } from './scene-iso.js';
 import { fitFigure } from './scene-fit.js';
 import { captionItems, legendItems } from './scene-legend.js';
-import { familyLabels, ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-line-labels.js';
+import { ligandLabels, neutralLabel, overlayLabels, waterLabels } from './scene-line-labels.js';
 import { boundaryLines, familyLines, gridLines, ligandLines, neutralLine, overlayLines, triplePoints, waterLines } from './scene-lines.js';
 import { buildMarks } from './scene-marks.js';
-import { markLabels, regionLabels } from './scene-labels.js';
+import { familyTags } from './scene-family-tags.js';
+import { markLabels, regionLabels, registerMarks } from './scene-labels.js';
 import type { Scene, SceneItem } from './scene-types.js';
 import { runsUnicode } from './typeset.js';
 
@@ -22,12 +23,32 @@ export type { FigureInput } from './scene-context.js';
 export { dashStroke, parseDash, wrapText } from './scene-context.js';
 export { CAUTION } from './scene-legend.js';
 
+/** Passes of buildScene at most: the first, then up to five with more regions numbered. */
+const NUMBERING_PASSES = 6;
+
 /**
  * Builds the figure scene, squeezed to fit its size (scene-fit.ts; the steps taken are in
- * `notes`). Throws FigureFitError (naming the option) for a request that cannot fit, Error for
- * other invalid options.
+ * `notes`). Region names that fit nowhere (not inside, not outside with a leader, at the smallest
+ * size) are replaced by numbers keyed in the legend ("1 Cr₂O₃ + Fe₃O₄ + Ni"): the figure is laid
+ * out again with the key (which takes room, so more regions may need numbers: up to
+ * NUMBERING_PASSES passes), reported once as a note. Throws FigureFitError (naming the option) for
+ * a request that cannot fit, Error for other invalid options.
  */
 export function buildScene(input: FigureInput): Scene {
+  let inp = input;
+  for (let pass = 1; ; pass++) {
+    const { scene, crowded } = buildOnce(inp);
+    if (!crowded.length || pass === NUMBERING_PASSES) {
+      const n = inp.regionNumbers?.length ?? 0;
+      if (n > (input.regionNumbers?.length ?? 0)) scene.notes.push(`${n} region${n > 1 ? 's' : ''} numbered (names in the legend key) where the names did not fit`);
+      return scene;
+    }
+    inp = { ...inp, regionNumbers: [...(inp.regionNumbers ?? []), ...crowded] };
+  }
+}
+
+/** One layout of the figure; `crowded`: region names that found no free place (not numbered yet). */
+function buildOnce(input: FigureInput): { scene: Scene; crowded: string[] } {
   // (1)–(2) Sizes, inks and the layout of the bands and the plot, squeezed to fit; (3) the context.
   const { base, bands, notes, droppedCaption } = fitFigure(input);
   const plot = bands.plot;
@@ -48,24 +69,28 @@ export function buildScene(input: FigureInput): Scene {
   const marks = buildMarks(ctx);
   // (6) Labels: regions, marks, then the lines' labels where they still fit.
   const labelItems: SceneItem[] = [];
-  const placements = regionLabels(ctx, fills, labelItems);
+  registerMarks(ctx, marks.jobs);
+  const { placements, crowded } = regionLabels(ctx, fills, labelItems);
   markLabels(ctx, fills, marks.jobs, labelItems);
   waterLabels(ctx, water.hw, water.ow, labelItems);
   overlayLabels(ctx, placements, labelItems);
-  familyLabels(ctx, families.labels, labelItems);
   isoLabels(ctx, iso.labels, labelItems);
   neutralLabel(ctx, neutral.piece, labelItems);
   ligandLabels(ctx, ligands.labels, labelItems);
+  // (6b) The family tags in the margins (never along the lines).
+  const tagItems: SceneItem[] = [];
+  const untagged = familyTags(ctx, families.labels, tagItems);
+  if (untagged > 0) notes.push(`${untagged} family tag${untagged > 1 ? 's' : ''} left out for want of room in the margin (the legend key lists the activities)`);
   // (7) Assembly: the plot (clipped), axes, labels, then title, legend and caption.
   const plotChildren = [...fills.items, ...undetermined, ...ligands.items, ...grid, ...families.items, ...water.items, ...iso.items, ...neutral.items, ...overlays, ...boundaries, ...triples, ...marks.items];
   const items: SceneItem[] = [
     { type: 'group', role: 'plot', clip: plot, children: plotChildren },
     { type: 'group', role: 'axes', children: axisItems(ctx) },
-    { type: 'group', role: 'labels', children: labelItems },
+    { type: 'group', role: 'labels', children: [...labelItems, ...tagItems] },
     { type: 'group', role: 'annotations', children: [...titleItems(ctx), ...legendItems(ctx, fills.fills), ...captionItems(ctx)] },
   ];
   const o = base.o;
-  return {
+  const scene: Scene = {
     widthPt: base.W,
     heightPt: base.H,
     widthMm: o.width,
@@ -79,4 +104,5 @@ export function buildScene(input: FigureInput): Scene {
     notes,
     ...(droppedCaption !== undefined ? { caption: droppedCaption } : {}),
   };
+  return { scene, crowded };
 }

@@ -57,4 +57,14 @@ describe('figure too small', () => {
     const e = caught(() => resolveOptions({ lineWidth: 0 }));
     expect(e).not.toBeInstanceOf(FigureFitError);
   });
+  it('never prints a negative plot size in the refusal (was "24×-223 mm")', () => {
+    // A long title and caption at a large font on a narrow figure: the plot has no height left at all.
+    for (const [width, fontSize] of [[40, 12], [60, 18], [40, 24]] as const) {
+      const e = caught(() => buildScene({ model: iron(), options: opts({ width, height: 30, fontSize, title: 'A very long title '.repeat(12) }), caption: ['x '.repeat(800)] }));
+      expect(e).toBeInstanceOf(FigureFitError);
+      const msg = (e as FigureFitError).message;
+      expect(msg).not.toMatch(/[×x]\s*-\d|-\d+(\.\d+)? mm/);
+      expect(msg).toMatch(/--width|wide/);
+    }
+  });
 });

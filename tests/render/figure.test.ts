@@ -98,7 +98,7 @@ describe.each(sizes)('SVG figure, $name', ({ input }) => {
   });
 
   it('keeps unrotated labels from overlapping each other', () => {
-    const sel = 'text.region-label, text.point-label, text.path-label, text.box-label, text.family-label';
+    const sel = 'text.region-label, text.point-label, text.path-label, text.box-label, text.family-tag';
     const boxes = [...svg.querySelectorAll(sel)].map((el: any) => ({ box: inkBox(el), text: el.textContent }));
     expect(boxes.length).toBeGreaterThan(0);
     for (let i = 0; i < boxes.length; i++)

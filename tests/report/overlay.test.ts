@@ -179,7 +179,7 @@ describe('overlay: labels of the layers\' fields', () => {
     expect(crInk).not.toBe(niInk);
     for (const l of of(/^Cr,/)) expect(luminance(l.getAttribute('fill'))).toBeLessThanOrEqual(luminance(crInk!) + 1e-9);
     // No two labels of any kind overlap (unrotated ones, measured by svgdom).
-    const sel = 'text.region-label, text.overlay-label, text.point-label, text.path-label, text.box-label, text.family-label';
+    const sel = 'text.region-label, text.overlay-label, text.point-label, text.path-label, text.box-label, text.family-tag';
     const boxes = [...svg.querySelectorAll(sel)].map((el: any) => ({ box: inkBox(el), text: `${el.getAttribute('class')} ${el.textContent}` }));
     for (let i = 0; i < boxes.length; i++)
       for (let j = i + 1; j < boxes.length; j++) expect(overlaps(boxes[i]!.box, boxes[j]!.box), `${boxes[i]!.text} vs ${boxes[j]!.text}`).toBe(false);
