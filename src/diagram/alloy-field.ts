@@ -15,8 +15,8 @@
  * A label that wins only between grid nodes is not discovered; computeAlloy checks every boundary
  * against the LP and warns where a lower assemblage exists (raise the grid).
  */
-import { supportAt } from '../solve/alloy/assemblage.js';
-import { speciesPotentialsAt } from '../solve/alloy/psi.js';
+import { supportAt, type WarmBasis, warmBasis, warmStillOptimal } from '../solve/alloy/assemblage.js';
+import { speciesPotentialsAt, speciesPsiInto } from '../solve/alloy/psi.js';
 import type { AlloyInput } from '../solve/alloy/types.js';
 import { argmax, type TraceField } from '../solve/trace/field.js';
 import { type GridSample, gridX, gridY } from '../solve/trace/grid.js';
@@ -26,29 +26,45 @@ export interface AlloyLabel extends AssemblageAmounts {
   key: string;
 }
 
-/** Step 1: every assemblage optimal at a node of the n × n grid (in order of first appearance), and
- *  the ψ' vector of every node (the field's state there, kept for the grid sample). */
-export function discoverAssemblages(input: AlloyInput, pH: [number, number], E: [number, number], n: number): { labels: AlloyLabel[]; psi: number[][] } {
-  const seen = new Map<string, AlloyLabel>();
+/** Step 1: every assemblage optimal at a node of the n × n grid (in order of first appearance), the
+ *  ψ' vector of every node (the field's state there, kept for the grid sample) and the index of
+ *  each node's assemblage (`at`, node i + j·n). */
+export function discoverAssemblages(input: AlloyInput, pH: [number, number], E: [number, number], n: number): { labels: AlloyLabel[]; psi: number[][]; at: Int32Array } {
   const g = { nx: n, ny: n, x: pH, y: E };
   const psi: number[][] = new Array(n * n);
   const at = new Int32Array(n * n);
   const index = new Map<string, number>();
+  const order: AlloyLabel[] = [];
   const add = (s: { indices: number[]; amounts: number[] }): number => {
     const key = s.indices.join(',');
     let k = index.get(key);
     if (k === undefined) {
       k = index.size;
       index.set(key, k);
-      seen.set(key, { key, indices: s.indices, amounts: s.amounts });
+      order.push({ key, indices: s.indices, amounts: s.amounts });
     }
     return k;
   };
+  // Warm start: a node whose left (else lower) neighbour's full basis is still optimal there by a
+  // clear margin has that neighbour's assemblage (warmStillOptimal); only the others run the LP.
+  const warm: (WarmBasis | null)[] = [];
+  const stillOptimal = (l: number, p: number[]): boolean => {
+    if (l < 0) return false;
+    if (warm[l] === undefined) warm[l] = warmBasis(input, order[l].indices);
+    const w = warm[l];
+    return w !== null && warmStillOptimal(input, w, p);
+  };
   for (let j = 0; j < n; j++) {
     for (let i = 0; i < n; i++) {
-      const s = supportAt(input, gridX(g, i), gridY(g, j));
-      psi[i + j * n] = s.psi;
-      at[i + j * n] = add(s);
+      const k = i + j * n;
+      const x = gridX(g, i);
+      const y = gridY(g, j);
+      const p = new Array<number>(input.species.length);
+      speciesPsiInto(input, x, y, p);
+      psi[k] = p;
+      const left = i > 0 ? at[k - 1] : -1;
+      const below = j > 0 ? at[k - n] : -1;
+      at[k] = stillOptimal(left, p) ? left : below !== left && stillOptimal(below, p) ? below : add(supportAt(input, x, y));
     }
   }
   // Between two neighbouring nodes of different assemblages, the LP at the midpoint too: an
@@ -60,7 +76,7 @@ export function discoverAssemblages(input: AlloyInput, pH: [number, number], E: 
       if (j + 1 < n && at[k] !== at[k + n]) add(supportAt(input, gridX(g, i), (gridY(g, j) + gridY(g, j + 1)) / 2));
     }
   }
-  return { labels: [...seen.values()], psi };
+  return { labels: order, psi, at };
 }
 
 /** The grid sample of the field from the nodes' ψ' vectors (as sampleGrid would compute it). */
