@@ -27,6 +27,11 @@ interface Prepared {
   phi: Plane[];
   /** k_{k,L} per species and ligand (ligands in solving order). */
   ligandCounts: number[][];
+  /** The same, flattened for the per-point loop: Φ_k's g, p, e and k_{k,L} at k·ligands + L. */
+  phiG: Float64Array;
+  phiP: Float64Array;
+  phiE: Float64Array;
+  counts: Float64Array;
 }
 const prepared = new WeakMap<AlloyInput, Prepared>();
 
@@ -34,9 +39,15 @@ function prepare(input: AlloyInput): Prepared {
   let p = prepared.get(input);
   if (!p) {
     const w = alloyWater(input);
+    const phi = input.species.map((sp) => formationPlane(sp, w));
+    const ligandCounts = input.species.map((sp) => input.ligands.map((L) => sp.elements[L.element] ?? 0));
     p = {
-      phi: input.species.map((sp) => formationPlane(sp, w)),
-      ligandCounts: input.species.map((sp) => input.ligands.map((L) => sp.elements[L.element] ?? 0)),
+      phi,
+      ligandCounts,
+      phiG: Float64Array.from(phi, (pl) => pl.g),
+      phiP: Float64Array.from(phi, (pl) => pl.p),
+      phiE: Float64Array.from(phi, (pl) => pl.e),
+      counts: Float64Array.from(ligandCounts.flat()),
     };
     prepared.set(input, p);
   }
@@ -70,14 +81,14 @@ export function speciesPotentialsAt(input: AlloyInput, pH: number, E: number): {
 
 /**
  * ψ'_k (kJ/mol) of every species at (pH, E) written into `out`, without allocating per point; returns
- * the index (in its own species list) of each ligand's predominant species. The ligand recursion is
+ * the index (in its own species list) of each ligand's predominant species (a scratch array,
+ * overwritten by the next call). The ligand recursion is
  * that of ligandPotentialsAt (src/solve/point.ts) with the same plane arithmetic, so the values are
  * the same to the last bit: the μ plane of ligand m depends only on which species won for the
  * ligands before it, so the candidate planes are memoised per input and per earlier choice.
  */
 export function speciesPsiInto(input: AlloyInput, pH: number, E: number, out: number[] | Float64Array): Int32Array {
   const p = prepare(input);
-  const { phi, ligandCounts } = p;
   const lc = ligandCache(input);
   const nL = input.ligands.length;
   const choice = lc.choice;
@@ -100,13 +111,17 @@ export function speciesPsiInto(input: AlloyInput, pH: number, E: number, out: nu
     muAt[m] = planeAt(planes[bestK], pH, E);
     key = key * planes.length + bestK + 1;
   }
-  for (let k = 0; k < phi.length; k++) {
-    let v = planeAt(phi[k], pH, E);
-    const counts = ligandCounts[k];
-    for (let m = 0; m < nL; m++) if (counts[m]) v -= counts[m] * muAt[m];
+  // Step 2: ψ'_k = Φ_k − Σ_L k_{k,L}·μ_L (the arithmetic of planeAt, term for term).
+  const { phiG, phiP, phiE, counts } = p;
+  for (let k = 0; k < phiG.length; k++) {
+    let v = phiG[k] + phiP[k] * pH + phiE[k] * E;
+    for (let m = 0; m < nL; m++) {
+      const c = counts[k * nL + m];
+      if (c) v -= c * muAt[m];
+    }
     out[k] = v / 1000;
   }
-  return choice.slice();
+  return choice;
 }
 
 /** Per input: the ligand species' formation planes, scratch for the point, and the memo of the
