@@ -122,7 +122,7 @@ function traceAlloy(input: AlloyInput, labels: readonly AlloyLabel[], psi: numbe
   // polygons (alloy-exact.ts). With ligands: traced on the grid and refined.
   if (input.ligands.length === 0) return exactAlloyRegions(input, labels, pH, E);
   const field = alloyField(input, labels);
-  const g = alloyGrid(field, psi, pH, E, n);
+  const g = alloyGrid(labels, psi, pH, E, n);
   const traced = traceRegions(field, g);
   return { ...traced, triples: joinTriplePoints(field, g, traced.boundaries) };
 }

@@ -13,7 +13,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computeAlloy } from '../../src/diagram/alloy.js';
-import { parseFormula, splitPhase } from '../../src/chem/parse.js';
+import { parseFormula, sameFormula, splitPhase } from '../../src/chem/parse.js';
 import type { DiagramModel, Ring } from '../../src/model.js';
 import { compute } from '../../src/pipeline.js';
 import { assemblageAt } from '../../src/solve/alloy/assemblage.js';
@@ -96,7 +96,11 @@ describe.each([
   ['Fe–Cr–Ni', { elements: { Fe: 0.7, Cr: 0.18, Ni: 0.12 }, activity: 1e-6 }],
   ['Cu–Zn', { elements: { Cu: 0.65, Zn: 0.35 }, activity: 1e-6 }],
   ['Cu–Zn with sulfur', { elements: { Cu: 0.65, Zn: 0.35 }, activity: 1e-6, ligands: { S: 1e-4 } }],
-])('alloy diagram %s', (_n, data) => {
+  // The mixed compounds added for issue 18's second part: nickel chromite and cobalt ferrite take
+  // part in these assemblages, so their reactions are in the balance sweep.
+  ['Ni–Cr (nickel chromite)', { elements: { Ni: 0.8, Cr: 0.2 }, activity: 1e-6 }],
+  ['Fe–Co (cobalt ferrite)', { elements: { Fe: 0.6, Co: 0.4 }, activity: 1e-6 }],
+])('alloy diagram %s', (name, data) => {
   const spec = readAlloySpec(data, 'alloy.yaml');
   const c = computeAlloy(spec, { grid: 80 });
   const m = c.model;
@@ -128,6 +132,16 @@ describe.each([
   it('every boundary reaction balances in every element and charge', () => {
     expect(m.boundaries.length).toBeGreaterThan(3);
     for (const b of m.boundaries) expectBalanced(b.reaction);
+  });
+
+  it('the mixed compound named in the title takes part in boundary reactions, all balanced', () => {
+    const mixed = input.species.filter((sp) => Object.keys(sp.elements).filter((e) => e in m.alloy!.composition).length > 1 && sp.phase === 's');
+    const expected = name.includes('chromite') ? 'NiCr2O4' : name.includes('ferrite') ? 'CoFe2O4' : undefined;
+    if (!expected) return;
+    expect(mixed.map((sp) => sp.formula)).toContain(expected);
+    const reactions = m.boundaries.filter((b) => b.between.some((t) => t.split(' + ').some((f) => sameFormula(parseFormula(f), parseFormula(expected)))));
+    expect(reactions.length).toBeGreaterThan(2);
+    for (const b of reactions) expectBalanced(b.reaction);
   });
 
   it.skipIf('ligands' in data)('boundaries are straight without ligands: every vertex on its own line within 1e-9 V (or pH)', () => {

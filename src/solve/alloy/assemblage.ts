@@ -13,6 +13,7 @@
  * This is the single point solver of the alloy kind: probe, grid and refinement call it.
  */
 import type { Phase } from '../../model.js';
+import { luFactor, luSolveT } from '../linalg.js';
 import { solveLp } from './lp.js';
 import { memberText } from './member.js';
 import { speciesPotentialsAt } from './psi.js';
@@ -106,6 +107,59 @@ export function supportAt(input: AlloyInput, pH: number, E: number): { indices: 
   const sol = solveLp({ A: p.A, b: p.b, c: psi, basis: startBasis(p, psi), tieTol: TIE_KJ });
   const order = sol.basis.map((_, k) => k).filter((k) => sol.values[k] > AMOUNT_EPS).sort((i, j) => sol.basis[i] - sol.basis[j]);
   return { indices: order.map((k) => sol.basis[k]), amounts: order.map((k) => sol.values[k]), ties: sol.ties, grandPotential: sol.objective, ligandSpecies, psi };
+}
+
+/** Margin of the warm check, kJ per mol of species: far above the LP's tolerances (1e-11 pivot,
+ *  1e-9 tie), so a point that passes is one where the cold simplex reaches the same basis. */
+export const WARM_MARGIN_KJ = 1e-6;
+
+/** A full, non-degenerate optimal basis kept for the warm check: its columns and the LU of B. */
+export interface WarmBasis {
+  indices: number[];
+  lu: Float64Array;
+  perm: Int32Array;
+  isBasic: Uint8Array;
+}
+
+/** The warm basis of a support, or null when it cannot serve (fewer phases than main elements: a
+ *  degenerate vertex, whose basis is not fixed by its support; or a singular B). */
+export function warmBasis(input: AlloyInput, indices: readonly number[]): WarmBasis | null {
+  const p = prepare(input);
+  const m = p.els.length;
+  if (indices.length !== m) return null;
+  const lu = new Float64Array(m * m);
+  for (let i = 0; i < m; i++) for (let k = 0; k < m; k++) lu[i * m + k] = p.A[i][indices[k]];
+  const perm = new Int32Array(m);
+  if (!luFactor(lu, m, perm, { tol: 1e-12 })) return null;
+  const isBasic = new Uint8Array(input.species.length);
+  for (const j of indices) isBasic[j] = 1;
+  return { indices: [...indices], lu, perm, isBasic };
+}
+
+const warmScratch = { cB: new Float64Array(8), y: new Float64Array(8), tmp: new Float64Array(8) };
+
+/**
+ * Is the warm basis (a neighbour's optimum) still optimal at a point with potentials psi, by a
+ * clear margin? Duals from Bᵀy = c_B, reduced costs d_j = ψ'_j − y·a_j of every other species; all
+ * above WARM_MARGIN_KJ means B is the unique optimal basis (no tie, no alternative optimum), so the
+ * plain simplex (supportAt) gives the same support there and need not run. The amounts B⁻¹b do not
+ * depend on the point, so feasibility is kept. False → solve from scratch.
+ */
+export function warmStillOptimal(input: AlloyInput, w: WarmBasis, psi: ArrayLike<number>): boolean {
+  const p = prepare(input);
+  const m = p.els.length;
+  if (warmScratch.cB.length < m) for (const k of ['cB', 'y', 'tmp'] as const) warmScratch[k] = new Float64Array(m);
+  const { cB, y, tmp } = warmScratch;
+  for (let k = 0; k < m; k++) cB[k] = psi[w.indices[k]];
+  luSolveT(w.lu, m, w.perm, cB, y, tmp);
+  const N = input.species.length;
+  for (let j = 0; j < N; j++) {
+    if (w.isBasic[j]) continue;
+    let d = psi[j];
+    for (let i = 0; i < m; i++) d -= y[i] * p.A[i][j];
+    if (!(d > WARM_MARGIN_KJ)) return false;
+  }
+  return true;
 }
 
 export function assemblageAt(input: AlloyInput, pH: number, E: number): Assemblage {

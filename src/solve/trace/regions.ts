@@ -1,7 +1,10 @@
 /**
- * Regions and boundaries of a TraceField from a grid sample. Steps: 1. for each label present, its
- * margin field (score minus the best other score; −1 where undetermined); 2. marching squares on
- * it at 0 (contour.ts); 3. every crossing refined on its grid segment with the point solver
+ * Regions and boundaries of a TraceField from a grid sample. Steps: 0. per node the best and
+ * second-best scores, per label the window of nodes where its margin can be ≥ 0 (one-node margin);
+ * 1. for each label present, its margin field (score minus the best other score; −1 where
+ * undetermined) over its window; 2. marching squares on it at 0 over the window only
+ * (contourRingsWindow: the same rings as the whole grid, at a cost proportional to the region's
+ * bounding box rather than the grid); 3. every crossing refined on its grid segment with the point solver
  * (refine.ts) and its neighbour label read just across; 4. rings oriented (outer counter-clockwise,
  * holes clockwise) with their area; 5. boundary polylines: maximal runs of consecutive refined
  * vertices of a ring that share the same neighbour; 6. each pair's boundary taken from the side
@@ -10,7 +13,7 @@
  * it), ties to the lower label.
  */
 import { argmax, marginOf, type TraceField } from './field.js';
-import { contourRings, type ContourVertex } from './contour.js';
+import { contourRings, contourRingsWindow, type ContourVertex, type NodeWindow } from './contour.js';
 import { gridEdge, type GridSample } from './grid.js';
 import { refineCrossing } from './refine.js';
 
@@ -62,16 +65,28 @@ export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: Tra
     top[k] = v1;
     second[k] = v2;
   }
+  const windows = marginWindows(g, L, best, top, second);
+  // One margin buffer for all labels: only each label's window is written and read.
+  const m = new Float64Array(n);
   for (const f of present) {
-    // Step 1: margin field.
-    const m = new Float64Array(n);
-    for (let k = 0; k < n; k++) m[k] = g.label[k] < 0 ? -1 : best[k] === f ? top[k] - second[k] : g.scores[k * L + f] - top[k];
+    // Step 1: margin field, in the window of the nodes where it is ≥ 0 (plus a one-node margin);
+    // everywhere else it is < 0, so contouring the window gives the rings of the whole grid.
+    const win = windows[f];
+    const winW = win.i1 - win.i0 + 1;
+    const mw = new Float64Array(winW * (win.j1 - win.j0 + 1));
+    for (let j = win.j0; j <= win.j1; j++) {
+      for (let i = win.i0; i <= win.i1; i++) {
+        const k = i + j * g.nx;
+        m[k] = g.label[k] < 0 ? -1 : best[k] === f ? top[k] - second[k] : g.scores[k * L + f] - top[k];
+        mw[i - win.i0 + (j - win.j0) * winW] = m[k];
+      }
+    }
     // Steps 2–3: contour and refine.
     const marginAt = (x: number, y: number, warm: S) => {
       const s = field.solve(x, y, warm);
       return field.scores(s, sc) ? marginOf(sc, f) : -1;
     };
-    const polys = contourRings(g, m, 0).map((poly) =>
+    const polys = contourRingsWindow(g, win, mw, 0).map((poly) =>
       poly.map((ring) => ring.map((v) => refineVertex(field, g, f, v, m, marginAt, sc, opt))),
     );
     // Step 4: orientation and area.
@@ -100,6 +115,37 @@ export function traceRegions<S>(field: TraceField<S>, g: GridSample<S>, opt: Tra
     }
   }
   return { regions, boundaries: pickSides(sides) };
+}
+
+/** Step 0's windows: per label, the bounding box of the nodes where its margin can be ≥ 0 (it is
+ *  the best there, or ties with the best), grown by one node and clipped to the grid. Labels with
+ *  no such node get an empty-box window (never contoured: they are not present). */
+function marginWindows<S>(g: GridSample<S>, L: number, best: Int32Array, top: Float64Array, second: Float64Array): NodeWindow[] {
+  const win: NodeWindow[] = Array.from({ length: L }, () => ({ i0: g.nx, j0: g.ny, i1: -1, j1: -1 }));
+  const grow = (f: number, i: number, j: number) => {
+    const w = win[f];
+    if (i < w.i0) w.i0 = i;
+    if (i > w.i1) w.i1 = i;
+    if (j < w.j0) w.j0 = j;
+    if (j > w.j1) w.j1 = j;
+  };
+  for (let j = 0; j < g.ny; j++) {
+    for (let i = 0; i < g.nx; i++) {
+      const k = i + j * g.nx;
+      if (g.label[k] < 0) continue;
+      if (best[k] >= 0) grow(best[k], i, j);
+      // Another label ties with the best only where the second-best score reaches the top.
+      if (second[k] - top[k] >= 0) for (let l = 0; l < L; l++) if (l !== best[k] && g.scores[k * L + l] - top[k] >= 0) grow(l, i, j);
+    }
+  }
+  for (const w of win) {
+    if (w.i1 < 0) continue;
+    w.i0 = Math.max(0, w.i0 - 1);
+    w.j0 = Math.max(0, w.j0 - 1);
+    w.i1 = Math.min(g.nx - 1, w.i1 + 1);
+    w.j1 = Math.min(g.ny - 1, w.j1 + 1);
+  }
+  return win;
 }
 
 /** Step 6: per pair (in order of first appearance), the runs of the side with fewest pieces. */
