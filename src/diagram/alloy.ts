@@ -28,6 +28,7 @@ import { joinTriplePoints } from '../solve/trace/junctions.js';
 import { type TracedBoundary, traceRegions } from '../solve/trace/regions.js';
 import type { SolverInput } from '../solve/types.js';
 import type { AlloySpec } from '../system/alloy-spec.js';
+import { amountNumber, givenAmounts } from '../system/amounts.js';
 import { type BuiltAlloy, buildAlloySystem } from '../system/alloy-build.js';
 import { KELVIN } from '../thermo/constants.js';
 import { VERSION } from '../version.js';
@@ -95,6 +96,9 @@ export function computeAlloy(spec: AlloySpec, opts: AlloyOptions = {}): Computed
   });
   const triples = traced.triples;
   const els = Object.keys(input.composition);
+  // Ligand totals as the single-element model gives them: the number used (activity, or molality from
+  // mg/L at the water's density), with the amount as written kept in `amounts` for captions.
+  const amounts = givenAmounts(spec.base, built.solution.water.density);
   const model: DiagramModel = {
     kind: 'alloy',
     ephmap: VERSION,
@@ -103,7 +107,8 @@ export function computeAlloy(spec: AlloySpec, opts: AlloyOptions = {}): Computed
     units: { pH: 'pH (molal activity scale)', E: 'V vs SHE at the diagram temperature', G: 'kJ/mol', area: 'pH·V', amount: 'mol per mol of alloy atoms' },
     domain: { pH, E },
     activity: Math.min(...els.map((e) => spec.activities[e])),
-    ligands: spec.base.ligands,
+    ligands: Object.fromEntries(Object.entries(amounts.ligands).map(([k, a]) => [k, amountNumber(a)])),
+    amounts,
     species: input.species.map((sp) => summary(els, sp)),
     regions,
     boundaries,
@@ -186,6 +191,8 @@ function summary(els: string[], sp: AlloyInput['species'][number]): SpeciesSumma
   if (sp.name) s.name = sp.name;
   if (sp.source) s.source = sp.source;
   if (sp.activity !== undefined && sp.phase === 'aq') s.activity = sp.activity;
+  if (sp.temperatureModel) s.temperatureModel = sp.temperatureModel;
+  if (sp.estimated) s.estimated = true;
   return s;
 }
 

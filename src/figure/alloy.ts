@@ -6,7 +6,8 @@
 import type { DiagramModel } from '../model.js';
 import type { FigureInput } from '../render/scene.js';
 import type { AlloySpec } from '../system/alloy-spec.js';
-import { fmtCelsius, powerOfTen, shortSource } from '../report/format.js';
+import { fmtCelsius, ligandAmountTexts, powerOfTen, shortSource } from '../report/format.js';
+import { temperatureCaveats } from './compose.js';
 import type { FigureSettings } from './options.js';
 import { placeOperatingMarks } from './operating-marks.js';
 
@@ -23,10 +24,11 @@ export function alloyCaption(model: DiagramModel): string[] {
   const acts = Object.entries(a.activities);
   const same = acts.every(([, v]) => v === acts[0][1]);
   const th = same ? `dissolved species of every element at activity ${powerOfTen(acts[0][1])}` : `dissolved ${acts.map(([e, v]) => `${e} ${powerOfTen(v)}`).join(', ')}`;
-  const lig = Object.entries(model.ligands).map(([k, v]) => `${k} ${powerOfTen(v)}`);
+  const lig = ligandAmountTexts(model);
   const lines = [
     `Alloy ${compositionText(a.composition)} in water at ${fmtCelsius(model.temperature.celsius)} °C; ${th}${lig.length ? `; ligand totals ${lig.join(', ')}` : ''}.`,
     'Assemblages of lowest grand potential; pure phases (no solid solutions).',
+    ...temperatureCaveats(model),
   ];
   const short = model.sources.map(shortSource).filter((s, k, arr) => arr.indexOf(s) === k);
   if (short.length) lines.push(`Data: ${short.join('; ')}.`);

@@ -40,6 +40,8 @@ export interface RegionLabelPlacement {
    * overlaps or its leader may cross. The scene then labels the region by number with a key.
    */
   crowded?: true;
+  /** Placed by the last resort (over whatever is there): the figure needs more room. */
+  lastResort?: true;
 }
 
 /**
@@ -265,7 +267,7 @@ function placeOutside(layout: Layout, req: RegionLabelRequest, anchorAt: Point, 
   const tip: Point = len > 0 ? [end[0] - ((end[0] - anchor[0]) / len) * trim, end[1] - ((end[1] - anchor[1]) / len) * trim] : end;
   layout.leaders.push([anchor, tip]);
   layout.hard.push([anchor, tip]);
-  return { placement: { key: req.key, runs: req.runs, size: f, cx: best.cx, cy: best.cy, angle: 0, box: best.box, leader: [anchor, tip], ...(crowded ? { crowded: true as const } : {}) }, cost: best.cost };
+  return { placement: { key: req.key, runs: req.runs, size: f, cx: best.cx, cy: best.cy, angle: 0, box: best.box, leader: [anchor, tip], ...(crowded ? { crowded: true as const } : {}), ...(best.cost === NO_PLACE ? { lastResort: true as const } : {}) }, cost: best.cost };
 }
 
 interface OutsideSpot {

@@ -4,7 +4,7 @@
  * paths: the user's own marks come before the water and family labels). A label over a soft line
  * gets a knock-out in the fill under it.
  */
-import { inflate, type Segment } from './geometry.js';
+import { inflate, segmentHitsRect, segmentsIntersect, type Segment } from './geometry.js';
 import { placeMarkLabel } from './label-marks.js';
 import { placeRegionLabels, type RegionLabelPlacement, type RegionLabelRequest } from './label-regions.js';
 import { baselineForCentre } from './labels.js';
@@ -68,14 +68,37 @@ function regionLabelItems(ctx: SceneContext, f: RegionFills, pl: RegionLabelPlac
  * Places and draws the region labels; returns the placements (overlay labels skip named fields)
  * and the species whose name found no free place (not yet numbered), in region order.
  */
-export function regionLabels(ctx: SceneContext, f: RegionFills, out: SceneItem[]): { placements: (RegionLabelPlacement | null)[]; crowded: string[] } {
+export function regionLabels(ctx: SceneContext, f: RegionFills, out: SceneItem[]): { placements: (RegionLabelPlacement | null)[]; crowded: string[]; cramped: boolean } {
   const minLabel = Math.max(MIN_FONT_PT, 0.7 * ctx.fs);
   const placements = placeRegionLabels(ctx.layout, regionRequests(ctx, f), ctx.fs, minLabel);
   for (const pl of placements) if (pl) regionLabelItems(ctx, f, pl, out);
   const numbered = new Set(ctx.input.regionNumbers ?? []);
   const crowded = new Set<number>();
   for (const pl of placements) if (pl?.crowded && !numbered.has(ctx.model.regions[Number(pl.key.split(':')[0])]!.species)) crowded.add(Number(pl.key.split(':')[0]));
-  return { placements, crowded: [...crowded].sort((a, b) => a - b).map((i) => ctx.model.regions[i]!.species).filter((s, k, all) => all.indexOf(s) === k) };
+  // Safety net over the placer's own checks: a name whose leader strikes another label or crosses
+  // another leader is numbered in the next pass like a name that found no place.
+  // A number that still strikes or sits over something: the plot needs more room (scene.ts grows it).
+  let cramped = placements.some((pl) => pl?.lastResort === true);
+  for (const i of strayLeaders(placements)) {
+    if (!numbered.has(ctx.model.regions[i]!.species)) crowded.add(i);
+    else cramped = true;
+  }
+  return { placements, crowded: [...crowded].sort((a, b) => a - b).map((i) => ctx.model.regions[i]!.species).filter((s, k, all) => all.indexOf(s) === k), cramped };
+}
+
+/** Regions (by index) whose label's leader strikes another placed label's box or crosses another leader. */
+function strayLeaders(placements: readonly (RegionLabelPlacement | null)[]): number[] {
+  const placed = placements.filter((p): p is RegionLabelPlacement => p !== null);
+  const shrink = (r: Rect): Rect => ({ x: r.x + 0.05, y: r.y + 0.05, w: Math.max(0, r.w - 0.1), h: Math.max(0, r.h - 0.1) });
+  const out: number[] = [];
+  for (const p of placed) {
+    if (!p.leader) continue;
+    const [a, b] = p.leader;
+    const strikes = placed.some((q) => q !== p && segmentHitsRect(a, b, shrink(q.box)));
+    const crosses = placed.some((q) => q !== p && q.leader !== undefined && segmentsIntersect(a, b, q.leader[0], q.leader[1]));
+    if (strikes || crosses) out.push(Number(p.key.split(':')[0]));
+  }
+  return out;
 }
 
 /** One mark's label at the small size, with a knock-out over soft lines and a leader if moved away. */

@@ -37,18 +37,26 @@ const NUMBERING_PASSES = 6;
 export function buildScene(input: FigureInput): Scene {
   let inp = input;
   for (let pass = 1; ; pass++) {
-    const { scene, crowded } = buildOnce(inp);
-    if (!crowded.length || pass === NUMBERING_PASSES) {
-      const n = inp.regionNumbers?.length ?? 0;
-      if (n > (input.regionNumbers?.length ?? 0)) scene.notes.push(`${n} region${n > 1 ? 's' : ''} numbered (names in the legend key) where the names did not fit`);
-      return scene;
+    const { scene, crowded, cramped } = buildOnce(inp);
+    const last = pass === NUMBERING_PASSES;
+    if (!last && crowded.length) {
+      inp = { ...inp, regionNumbers: [...(inp.regionNumbers ?? []), ...crowded] };
+      continue;
     }
-    inp = { ...inp, regionNumbers: [...(inp.regionNumbers ?? []), ...crowded] };
+    if (!last && cramped) {
+      // Even the numbers found no free place: grow the height (a fitting step of its own) and lay out again.
+      inp = { ...inp, options: { ...inp.options, height: Math.round(Math.max(inp.options.height, scene.heightMm) * 1.2) } };
+      continue;
+    }
+    const n = inp.regionNumbers?.length ?? 0;
+    if (n > (input.regionNumbers?.length ?? 0)) scene.notes.push(`${n} region${n > 1 ? 's' : ''} numbered (names in the legend key) where the names did not fit`);
+    if (inp.options.height > input.options.height) scene.notes.push(`height grown from ${input.options.height} to ${inp.options.height} mm to give the numbered regions room`);
+    return scene;
   }
 }
 
 /** One layout of the figure; `crowded`: region names that found no free place (not numbered yet). */
-function buildOnce(input: FigureInput): { scene: Scene; crowded: string[] } {
+function buildOnce(input: FigureInput): { scene: Scene; crowded: string[]; cramped: boolean } {
   // (1)–(2) Sizes, inks and the layout of the bands and the plot, squeezed to fit; (3) the context.
   const { base, bands, notes, droppedCaption } = fitFigure(input);
   const plot = bands.plot;
@@ -70,7 +78,7 @@ function buildOnce(input: FigureInput): { scene: Scene; crowded: string[] } {
   // (6) Labels: regions, marks, then the lines' labels where they still fit.
   const labelItems: SceneItem[] = [];
   registerMarks(ctx, marks.jobs);
-  const { placements, crowded } = regionLabels(ctx, fills, labelItems);
+  const { placements, crowded, cramped } = regionLabels(ctx, fills, labelItems);
   markLabels(ctx, fills, marks.jobs, labelItems);
   waterLabels(ctx, water.hw, water.ow, labelItems);
   overlayLabels(ctx, placements, labelItems);
@@ -104,5 +112,5 @@ function buildOnce(input: FigureInput): { scene: Scene; crowded: string[] } {
     notes,
     ...(droppedCaption !== undefined ? { caption: droppedCaption } : {}),
   };
-  return { scene, crowded };
+  return { scene, crowded, cramped };
 }

@@ -23,6 +23,7 @@ import { KELVIN } from '../thermo/constants.js';
 import type { AlloySpec } from './alloy-spec.js';
 import { type BuiltSystem, buildSystem, collapseCpWarnings, fromLibrary, gAt, groupElements } from './build.js';
 import { InputError } from './errors.js';
+import { UndeterminedError } from '../errors.js';
 import type { SystemSpec } from './spec.js';
 
 export interface BuiltAlloy {
@@ -140,6 +141,12 @@ export function buildAlloySystem(spec: AlloySpec): BuiltAlloy {
   }
   for (const L of ligands) {
     if (L.species.length === 0) throw new InputError(spec.base.file, 'exclude', `at least one species of the ligand ${L.element} left in the system`);
+  }
+  // An assemblage needs every candidate's G at T: a species that cannot be carried there would make
+  // any answer a guess, so the whole alloy diagram is refused (exit 4) naming the species.
+  const undetermined = [...species, ...ligands.flatMap((L) => L.species)].filter((s) => s.temperatureModel === 'undetermined').map((s) => s.formula);
+  if (undetermined.length) {
+    throw new UndeterminedError(`${spec.base.file}: no alloy diagram at ${spec.base.temperature} °C: ${[...new Set(undetermined)].join(', ')} cannot be carried to this temperature (ΔfG° only); exclude them or give their ΔfH° and S°`);
   }
   const first = builds[0];
   return {
