@@ -1,6 +1,7 @@
 /**
  * Verbs draw, probe, lines (issue 2 core) and demo.
  */
+import { textForPeople } from '../chem/present.js';
 import type { Command } from 'commander';
 import { compute, computeAny } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
@@ -31,7 +32,7 @@ interface DrawOptions extends FigureOverrides, SpecOverrides {
 
 
 function warn(ws: string[]): void {
-  for (const w of ws) process.stderr.write(`warning: ${w}\n`);
+  for (const w of ws) process.stderr.write(`warning: ${textForPeople(w)}\n`);
 }
 
 export function registerCore(program: Command): void {

@@ -5,6 +5,7 @@
  * has a `composition` key. Where the solver fails, the output says `status: failed` (verdict
  * unknown) and the command ends with exit status 4 (UndeterminedError, or PartialError for a series).
  */
+import { textForPeople } from '../chem/present.js';
 import { compositionProbe } from '../analysis/composition-probe.js';
 import { compositionPointsAnswerer } from '../analysis/composition-points-answer.js';
 import { toShe } from '../analysis/points.js';
@@ -56,7 +57,7 @@ export async function probeComposition(spec: SystemSpec, opts: CompositionProbeO
   const E0 = num(opts.potential!, '--potential', 'a potential from -5 to 5 V', { min: -5, max: 5 });
   const s = toShe(ref, E0, spec.temperature, pH, 'command line', '--ref');
   const setup = make(spec);
-  for (const w of [...setup.warnings, ...s.warnings]) process.stderr.write(`warning: ${w}\n`);
+  for (const w of [...setup.warnings, ...s.warnings]) process.stderr.write(`warning: ${textForPeople(w)}\n`);
   const r = compositionProbe(spec, setup, pH, s.E, s.ref);
   process.stdout.write(opts.json ? stableJson(r) : compositionProbeText(r));
   if (r.status !== 'ok') throw new UndeterminedError(`probe: the speciation could not be solved at pH ${pH}, E ${s.E} V vs SHE (${r.reason}); verdict unknown`);

@@ -1,6 +1,7 @@
 /**
  * `ephmap window FILE`: the plating pH window of a bath (table, --json, or a figure with -o).
  */
+import { textForPeople } from '../chem/present.js';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { windowFigureInput } from '../figure/compose.js';
@@ -33,13 +34,13 @@ export function registerWindow(program: Command): void {
       if (spec.composition) {
         if (opts.output) throw new InputError('command line', '--output', 'no --output for a composition file yet (draw the bath with `ephmap draw`); the window table and --json work', JSON.stringify(opts.output));
         const { computed, result } = compositionWindow(spec);
-        for (const w of computed.model.warnings) process.stderr.write(`warning: ${w}\n`);
+        for (const w of computed.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
         process.stdout.write(opts.json ? stableJson(result) : windowText(result, compositionWindowHeading(result)));
         return;
       }
       const fig = figureSettings(spec);
       const c = compute(spec);
-      for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
+      for (const w of c.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
       const r = platingWindow(c.model);
       if (opts.output && fmt) {
         await writeOne(opts.output, await renderFigure(windowFigureInput(c, fig, r.windows), fmt));

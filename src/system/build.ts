@@ -4,6 +4,7 @@
  * and attach the activities used.
  */
 import { type Formula, parseFormula, splitPhase } from '../chem/formula.js';
+import { formulaMatches } from '../chem/match.js';
 import { LIGAND_DEFAULTS } from '../data/ligand-sets.js';
 import { type LibrarySpecies, findSpecies, loadLibrary, pickAlternative, speciesFor } from '../data/library.js';
 import type { Phase } from '../model.js';
@@ -88,7 +89,7 @@ function applyExclusions(spec: SystemSpec, list0: ResolvedSpecies[], lib: readon
   for (const ex of spec.exclude) {
     const { formula, phase } = splitPhase(ex);
     const before = list.length;
-    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
+    list = list.filter((s) => !((formulaMatches(formula, s.formula) && (!phase || phase === s.phase)) || s.name === ex));
     if (list.length === before) {
       // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
       // a name that matches nothing anywhere is most likely a typing error.
@@ -162,7 +163,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
   list = applyExclusions(spec, list, lib, warnings);
   // Alternatives from other compilations.
   for (const [formula, id] of Object.entries(spec.pick)) {
-    const k = list.findIndex((s) => s.formula === splitPhase(formula).formula);
+    const k = list.findIndex((s) => formulaMatches(splitPhase(formula).formula, s.formula) && (!splitPhase(formula).phase || splitPhase(formula).phase === s.phase));
     if (k < 0) throw new InputError(spec.file, `pick.${formula}`, 'a formula of a species in the system', JSON.stringify(formula));
     const hit = findSpecies(lib, formula);
     let alt: LibrarySpecies | undefined;
@@ -194,9 +195,9 @@ function keepLigandSpecies(spec: SystemSpec, s: ResolvedSpecies): boolean {
   if (!L) return true;
   const choice = spec.ligandSpecies[L];
   if (choice === 'all') return true;
-  if (Array.isArray(choice)) return choice.some((x) => splitPhase(x).formula === s.formula && (!splitPhase(x).phase || splitPhase(x).phase === s.phase));
+  if (Array.isArray(choice)) return choice.some((x) => formulaMatches(splitPhase(x).formula, s.formula) && (!splitPhase(x).phase || splitPhase(x).phase === s.phase));
   const def = LIGAND_DEFAULTS[L];
-  return def ? s.phase === 'aq' && def.species.includes(s.formula) : true;
+  return def ? s.phase === 'aq' && def.species.some((x) => formulaMatches(x, s.formula)) : true;
 }
 
 /**
