@@ -97,13 +97,22 @@ const FORMULA_WITH_PHASE = /(?<![A-Za-z^.])[A-Z][a-z]?(?:[A-Z][a-z]?|\d+|\((?:[A
  * Free text for people (a warning, a note, advice, a caption line): charged formulas and phase-tagged
  * formulas re-spelled in Unicode (chargesForPeople; "Fe3O4(s)" → "Fe₃O₄(s)"), the electron "e^-" as
  * "e⁻", and the ASCII equilibrium sign " <=> " as " ⇌ ". Plain words and untagged neutral formulas
- * are left as written. Example: "Fe^2+ + 2e^- <=> Fe(s) is slow" → "Fe²⁺ + 2e⁻ ⇌ Fe(s) is slow".
+ * are left as written, and so is anything in double quotes (a user's text quoted in a message, or
+ * what to type). Example: "Fe^2+ + 2e^- <=> Fe(s) is slow" → "Fe²⁺ + 2e⁻ ⇌ Fe(s) is slow".
  */
 export function textForPeople(text: string): string {
-  return chargesForPeople(text)
-    .replace(FORMULA_WITH_PHASE, (whole: string) => respell(whole, 'unicode'))
-    .replace(/(?<![A-Za-z])e\^-(?![\w])/g, ELECTRON_UNICODE)
-    .replace(/ <=> /g, ` ${EQUILIBRIUM_UNICODE} `);
+  // Text in double quotes is the user's own (or what to type) and is kept as written.
+  return text
+    .split(/("[^"]*")/)
+    .map((part, k) =>
+      k % 2 === 1
+        ? part
+        : chargesForPeople(part)
+            .replace(FORMULA_WITH_PHASE, (whole: string) => respell(whole, 'unicode'))
+            .replace(/(?<![A-Za-z])e\^-(?![\w])/g, ELECTRON_UNICODE)
+            .replace(/ <=> /g, ` ${EQUILIBRIUM_UNICODE} `),
+    )
+    .join('');
 }
 
 /**

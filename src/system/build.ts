@@ -3,7 +3,7 @@
  * the library's set for the element and ligands), check their composition, carry their data to T
  * and attach the activities used.
  */
-import { type Formula, parseFormula, splitPhase } from '../chem/formula.js';
+import { type Formula, formulaAscii, parseFormula, splitPhase } from '../chem/formula.js';
 import { formulaMatches } from '../chem/match.js';
 import { LIGAND_DEFAULTS } from '../data/ligand-sets.js';
 import { type LibrarySpecies, findSpecies, loadLibrary, pickAlternative, speciesFor } from '../data/library.js';
@@ -130,7 +130,8 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
       } else {
         r = { ...s, dfG: s.dfG!, f: parseFormula(s.formula) };
       }
-      const key = `${r.formula}|${r.phase}`;
+      // The same species however it is spelled (Fe+2 inline, Fe^2+ from the library).
+      const key = `${formulaAscii(r.f.text)}|${r.phase}`;
       const first = seen.get(key);
       const given = `${s.field} (${s.fromLibrary ? JSON.stringify(s.fromLibrary) : 'inline'})`;
       if (first !== undefined) {

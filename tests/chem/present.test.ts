@@ -64,5 +64,6 @@ describe('textForPeople', () => {
     expect(textForPeople('Fe^2+ + 2e^- <=> Fe(s) is slow')).toBe('Fe²⁺ + 2e⁻ ⇌ Fe(s) is slow');
     expect(textForPeople('no Fe3O4(s) field; H2O(l) and CO2(aq) kept, SH88 cited')).toBe('no Fe₃O₄(s) field; H₂O(l) and CO₂(aq) kept, SH88 cited');
     expect(textForPeople('exclude: HFeO2^- is not in this system')).toBe('exclude: HFeO₂⁻ is not in this system');
+    expect(textForPeople('formula "Fe2+" reads as Fe₂⁺; write "Fe^2+" for Fe^2+')).toBe('formula "Fe2+" reads as Fe₂⁺; write "Fe^2+" for Fe²⁺');
   });
 });
