@@ -36,9 +36,9 @@ describe('lines in composition mode (copper ammonia bath)', () => {
     const c = j.lines.find((l) => [...l.between].sort().join('/') === 'Cu/Cu+2')!;
     expect(c.reaction).toBe('Cu+2 + 2e- = Cu(s)');
     const lib = loadLibrary();
-    const hand = (findSpecies(lib, 'Cu+2')!.dfG * 1000) / (2 * F) + ((R * 298.15 * LN10) / (2 * F)) * Math.log10(0.25);
+    const hand = (findSpecies(lib, 'Cu^2+')!.dfG * 1000) / (2 * F) + ((R * 298.15 * LN10) / (2 * F)) * Math.log10(0.25);
     expect(Math.abs(c.midpoint.E - hand)).toBeLessThan(1e-4);
-    expect(j.lines.some((l) => l.between.includes('Cu(NH3)4+2') && l.between.includes('Cu'))).toBe(false);
+    expect(j.lines.some((l) => l.between.includes('Cu(NH3)4^2+') && l.between.includes('Cu'))).toBe(false);
   });
   test('text says curve and gives the midpoint reaction and spans, no line equations', async () => {
     const r = await runCli(['lines', cu]);

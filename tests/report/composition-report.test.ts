@@ -38,7 +38,7 @@ describe('report on a composition file', () => {
     // Mass balance in tank A's table: solid Ag + dissolved silver = 0.2 mol/kg.
     const a = md.split('**tank A')[1].split('**tank B')[0];
     const row = (sp: string) => a.split('\n').find((l) => l.startsWith(`| ${sp} |`))!.split('|').map((c) => c.trim());
-    const silver = num(row('Ag')[3]) + num(row('Ag(CN)2-')[3]) + num(row('Ag(CN)3-2')[3]);
+    const silver = num(row('Ag')[3]) + num(row('Ag(CN)2^-')[3]) + num(row('Ag(CN)3^2-')[3]);
     expect(Math.abs(silver - 0.2)).toBeLessThan(2e-4); // 4 significant digits printed
     expect(md).toContain('## Plating window');
     expect(md).toContain('`Ag(CN)2-`, `Ag(CN)3-2`');

@@ -41,7 +41,7 @@ describe('iron at 25 °C, dissolved activity 1e-6 (NBS 1982 data, recalled from 
   });
 
   it('Fe+2/Fe: E = ΔfG°(Fe+2)/(2F) + (s/2)·log a, horizontal', () => {
-    const [b] = find('Fe', 'Fe+2');
+    const [b] = find('Fe', 'Fe^2+');
     expect(b).toBeDefined();
     const expected = (-78.9e3) / (2 * F) + (s25 / 2) * -6; // −0.58635 V by hand
     expect(b.line.kind).toBe('E');
@@ -72,7 +72,7 @@ describe('iron at 25 °C, dissolved activity 1e-6 (NBS 1982 data, recalled from 
   });
 
   it('Fe+3/Fe+2 is horizontal at E° + 0 (equal activities), E° = (ΔfG°(Fe+3) − ΔfG°(Fe+2))/F', () => {
-    const bs = find('Fe+2', 'Fe+3');
+    const bs = find('Fe^2+', 'Fe^3+');
     const E0 = (-4.7 - -78.9) * 1000 / F; // 0.769 V
     expect(bs.length).toBeGreaterThan(0);
     expect(bs[0].line.intercept!).toBeCloseTo(E0, 9);
@@ -84,7 +84,7 @@ describe('iron at 25 °C, dissolved activity 1e-6 (NBS 1982 data, recalled from 
   });
 
   it('triple points are exact three-line intersections (Fe, Fe+2, Fe3O4)', () => {
-    const tp = sol.triplePoints.find((t) => ['Fe', 'Fe+2', 'Fe3O4'].every((x) => t.species.includes(x)));
+    const tp = sol.triplePoints.find((t) => ['Fe', 'Fe^2+', 'Fe3O4'].every((x) => t.species.includes(x)));
     expect(tp).toBeDefined();
     const E = -78.9e3 / (2 * F) + (s25 / 2) * -6;
     const E0 = -(4 * -237.129 - -1015.4) * 1000 / (8 * F);

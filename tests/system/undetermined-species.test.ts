@@ -17,13 +17,13 @@ import { UNDETERMINED_FILL } from '../../src/render/palette.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
-const SYSTEM = { element: 'Zn', temperature: 150, species: ['Zn', 'Zn+2', 'ZnO', { formula: 'HZnO2-', phase: 'aq', dfG: -464.0 }] };
+const SYSTEM = { element: 'Zn', temperature: 150, species: ['Zn', 'Zn^2+', 'ZnO', { formula: 'HZnO2^-', phase: 'aq', dfG: -464.0 }] };
 
 function setup() {
   const dir = tmpDir();
   const file = writeTmp(dir, 'zn.json', JSON.stringify(SYSTEM));
   const c = computeFile(file);
-  const region = c.model.regions.find((r) => r.species === 'HZnO2-')!;
+  const region = c.model.regions.find((r) => r.species === 'HZnO2^-')!;
   // A point inside the undetermined field: the mean of its outer ring's vertices (the field is convex).
   const ring = region.polygons[0]![0]!;
   const pH = ring.reduce((s, p) => s + p[0], 0) / ring.length;
@@ -36,7 +36,7 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
     const { c, region } = setup();
     expect(region.undetermined).toBe(true);
     expect(region.verdict).toBeUndefined();
-    expect(c.model.species.find((s) => s.formula === 'HZnO2-')!.temperatureModel).toBe('undetermined');
+    expect(c.model.species.find((s) => s.formula === 'HZnO2^-')!.temperatureModel).toBe('undetermined');
     expect(c.model.warnings[0]).toMatch(/^undetermined away from 25 °C.*HZnO2-/);
     // The other fields keep their verdicts.
     expect(c.model.regions.find((r) => r.species === 'ZnO')!.verdict).toBe('passivation');
@@ -45,14 +45,14 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
   it('probe inside the field says unknown and names the species; a crossing into it is unknown too', () => {
     const { c, pH, E } = setup();
     const r = probe(c, pH, E);
-    expect(r.predominant).toBe('HZnO2-');
+    expect(r.predominant).toBe('HZnO2^-');
     expect(r.verdict).toBe('unknown');
     expect(r.warnings[0]).toMatch(/no verdict here: HZnO2-/);
     const zno = c.model.regions.find((x) => x.species === 'ZnO')!.polygons[0]![0]!;
     const q = probe(c, zno.reduce((s, p) => s + p[0], 0) / zno.length, zno.reduce((s, p) => s + p[1], 0) / zno.length);
     expect(q.verdict).toBe('passivation');
     expect(q.warnings.join(' ')).toMatch(/undetermined.*HZnO2-/);
-    const into = Object.values(q.crossings).filter((x) => x?.to === 'HZnO2-');
+    const into = Object.values(q.crossings).filter((x) => x?.to === 'HZnO2^-');
     expect(into.length).toBeGreaterThan(0);
     for (const x of into) expect(x!.verdict).toBe('unknown');
   });
@@ -102,7 +102,7 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
   it('at 25 °C the same species is an ordinary field with a verdict', () => {
     const dir = tmpDir();
     const c = computeFile(writeTmp(dir, 'z25.json', JSON.stringify({ ...SYSTEM, temperature: 25 })));
-    const r = c.model.regions.find((x) => x.species === 'HZnO2-')!;
+    const r = c.model.regions.find((x) => x.species === 'HZnO2^-')!;
     expect(r.undetermined).toBeUndefined();
     expect(r.verdict).toBe('corrosion');
     expect(platingWindow(c.model).warnings.join(' ')).not.toMatch(/undetermined/);
