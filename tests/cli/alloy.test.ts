@@ -68,7 +68,7 @@ describe.each([['Fe–Cr–Ni', steel], ['Cu–Zn', brass]])('%s', (_n, file) =>
     const rows = JSON.parse(r.stdout).lines;
     expect(rows.length).toBeGreaterThan(4);
     for (const row of rows) {
-      expect(row.reaction).toContain(' = ');
+      expect(row.reaction).toContain(' <=> ');
       expect(row.equation).toMatch(/^(E|pH) = /);
     }
   });

@@ -54,6 +54,6 @@ describe('library use in system files', () => {
 
   it('library species by formula and by name mix with inline ones', () => {
     const c = compute(readSpec({ element: 'Fe', species: ['Fe', 'magnetite', { formula: 'Fe^2+', phase: 'aq', dfG: -78.9 }, 'Fe2O3(s)'] }, 'm.yaml'));
-    expect(c.model.regions.map((r) => r.species).sort()).toEqual(['Fe', 'Fe^2+', 'Fe2O3', 'Fe3O4']);
+    expect(c.model.regions.map((r) => r.species).sort()).toEqual(['Fe', 'Fe2O3', 'Fe3O4', 'Fe^2+']);
   });
 });

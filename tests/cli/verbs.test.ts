@@ -24,7 +24,7 @@ describe('draw', () => {
       expect(Array.isArray(reg.polygons[0][0][0])).toBe(true); // polygon → ring → [pH, E]
     }
     const b = m.boundaries.find((x: { between: string[] }) => x.between.includes('Fe') && x.between.includes('Fe^2+'));
-    expect(b.reaction).toMatch(/Fe\+2 \+ 2e- = Fe/);
+    expect(b.reaction).toMatch(/Fe\^2\+ \+ 2e\^- <=> Fe/);
     expect(b.equation).toMatch(/^E = -0\.\d+ V vs SHE$/);
     expect(m.triplePoints.length).toBeGreaterThan(0);
     expect(m.waterLines.oxygen.points.length).toBe(2);
@@ -61,7 +61,7 @@ describe('lines', () => {
   it('prints every boundary reaction in a table and as JSON', async () => {
     const t = await runCli(['lines', fe]);
     expect(t.code).toBe(0);
-    expect(t.stdout).toContain('Fe3O4(s) + 8H+ + 8e- = 3Fe(s) + 4H2O(l)');
+    expect(t.stdout).toContain('Fe₃O₄(s) + 8H⁺ + 8e⁻ ⇌ 3Fe(s) + 4H₂O(l)');
     const j = JSON.parse((await runCli(['lines', fe, '--json'])).stdout);
     expect(j.lines.length).toBeGreaterThan(5);
     expect(j.lines[0]).toHaveProperty('reaction');

@@ -79,7 +79,7 @@ describe('HTML page', () => {
     expect(d.frame.y1).toBeCloseTo(p.y, 5);
     // The read-out words for the region classes (trade terms, common practice).
     expect(d.regions.find((r) => r.formula === 'Fe')!.reading).toBe('immunity');
-    expect(d.regions.find((r) => r.formula === 'Fe^2+')!.reading).toBe('corrosion');
+    expect(d.regions.find((r) => r.formula === 'Fe+2')!.reading).toBe('corrosion');
     expect(d.regions.find((r) => r.formula === 'Fe2O3')!.reading).toBe('passivation');
   });
 
@@ -87,7 +87,8 @@ describe('HTML page', () => {
     expect(formulaUnicode('Fe^2+')).toBe('Fe\u00b2\u207a');
     expect(formulaUnicode('HFeO2^-')).toBe('HFeO\u2082\u207b');
     expect(formulaUnicode('Fe3O4')).toBe('Fe\u2083O\u2084');
-    expect(reactionUnicode('Fe2O3(s) + 6H+ + 2e- = 2Fe+2 + 3H2O(l)')).toBe('Fe\u2082O\u2083(s) + 6H\u207a + 2e\u207b = 2Fe\u00b2\u207a + 3H\u2082O(l)');
+    expect(reactionUnicode('Fe2O3(s) + 6H+ + 2e- = 2Fe+2 + 3H2O(l)')).toBe('Fe\u2082O\u2083(s) + 6H\u207a + 2e\u207b \u21cc 2Fe\u00b2\u207a + 3H\u2082O(l)');
+    expect(reactionUnicode('Fe2O3(s) + 6H^+ + 2e^- <=> 2Fe^2+ + 3H2O(l)')).toBe('Fe\u2082O\u2083(s) + 6H\u207a + 2e\u207b \u21cc 2Fe\u00b2\u207a + 3H\u2082O(l)');
     expect(signMinus('E = -0.0867 - 0.0592 pH V vs SHE')).toBe('E = \u22120.0867 \u2212 0.0592 pH V vs SHE');
   });
 

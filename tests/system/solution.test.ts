@@ -48,7 +48,7 @@ describe('activity coefficients at 250 °C, I = 0.1 mol/kg (Davies)', () => {
     const f = writeTmp(dir, 'fe250.yaml', 'element: Fe\ntemperature: 250\nionicStrength: 0.1\n');
     const r = await runCli(['lines', f]);
     expect(r.stdout).toMatch(/Activities used/);
-    expect(r.stdout).toMatch(/Fe\+2\s+1\.000e-6\s+-0\.8\d+/);
+    expect(r.stdout).toMatch(/Fe²⁺\s+1\.000e-6\s+-0\.8\d+/);
     const j = JSON.parse((await runCli(['lines', f, '--json'])).stdout);
     const row = j.activities.find((a: { formula: string }) => a.formula === 'Fe^2+');
     expect(row.logGamma).toBeCloseTo(davies(2), 3);
