@@ -13,7 +13,7 @@ const PHASE_PREFERENCE: readonly Phase[] = ['s', 'l', 'aq', 'g'];
 
 /**
  * All species matching `key`: by formula, with or without phase tag (`Fe2O3`, `Fe2O3(s)`,
- * `Fe+2(aq)`; exact text first, else same composition and charge), otherwise by name or alias
+ * `Fe^2+(aq)`, `Fe²⁺`, the older `Fe+2`; exact text first, else same composition and charge), otherwise by name or alias
  * (case-insensitive, surrounding whitespace ignored; an alias that is a formula, such as `Fe(OH)3^-`,
  * also matches in any notation: `Fe(OH)₃⁻`, `Fe(OH)3-`). Formula matches are ordered by phase
  * preference solid, liquid, aqueous, gas.
