@@ -12,6 +12,16 @@ import type { ReportData } from './report-data.js';
 const pair = (b: [string, string]): [string, string] => [fp(b[0]), fp(b[1])];
 const crossing = (c: Crossing | null): Crossing | null => (c ? { ...c, to: fp(c.to), between: pair(c.between), reaction: rp(c.reaction) } : null);
 
+/**
+ * The probe's advice for people: the species it names ("… reaches Fe3O4 (passivation)", a crossing's
+ * `to`) re-spelled exactly ("Fe₃O₄"), then any charged formula in the rest (textForPeople).
+ */
+export function adviceForPeople(r: ProbeResult): string {
+  let a = r.advice;
+  for (const x of Object.values(r.crossings)) if (x) a = a.replace(`reaches ${x.to} (`, `reaches ${fp(x.to)} (`);
+  return tp(a);
+}
+
 /** A probe answer with its formulas, reactions, advice and warnings for people. */
 export function probeForPeople(r: ProbeResult): ProbeResult {
   const c = r.crossings;
@@ -21,7 +31,7 @@ export function probeForPeople(r: ProbeResult): ProbeResult {
     runnerUp: r.runnerUp === null ? null : fp(r.runnerUp),
     crossings: { raiseE: crossing(c.raiseE), lowerE: crossing(c.lowerE), lowerPH: crossing(c.lowerPH), raisePH: crossing(c.raisePH) },
     nearestBoundary: r.nearestBoundary ? { ...r.nearestBoundary, between: pair(r.nearestBoundary.between), reaction: rp(r.nearestBoundary.reaction) } : null,
-    advice: tp(r.advice),
+    advice: adviceForPeople(r),
     warnings: r.warnings.map(tp),
   };
 }

@@ -4,6 +4,7 @@
  */
 import type { Crossing, ProbeResult } from '../analysis/probe.js';
 import { formulaForPeople as fp, reactionForPeople, textForPeople } from '../chem/present.js';
+import { adviceForPeople } from './people.js';
 import { amountLabel } from './format.js';
 
 const mv = (v: number) => `${v >= 0 ? '+' : ''}${(v * 1000).toFixed(1)} mV`;
@@ -48,7 +49,7 @@ export function probeText(r: ProbeResult): string {
   ] as const) {
     if (x) lines.push(`  ${name.padEnd(8)} ${unit === 'V' ? mv(x.shift) : ph(x.shift)} → ${fp(x.to)} (${x.verdict}), across ${pair(x)}: ${reactionForPeople(x.reaction)}`);
   }
-  lines.push(textForPeople(r.advice));
+  lines.push(adviceForPeople(r));
   const nb = r.nearestBoundary;
   if (nb) {
     lines.push(

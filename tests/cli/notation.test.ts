@@ -89,9 +89,12 @@ describe('predominant echoes a file’s own spelling', () => {
     const r = await runCli(['probe', f, '--points', pts]);
     expect(r.code, r.stderr).toBe(0);
     expect(r.stdout.split('\n')[1]).toContain(',Fe+2,');
-    // The text for people prints it in Unicode.
+    // The text for people prints it in Unicode, the advice's species too.
     const t = await runCli(['probe', f, '--ph', '4', '--potential', '-0.3']);
     expect(t.stdout).toContain('Fe²⁺ predominates');
+    const s = await runCli(['probe', f, '--ph', '8.5', '--potential', '-0.5']);
+    expect(s.stdout).toMatch(/Nearest change: .* reaches (Fe₃O₄|Fe₂O₃|Fe²⁺|Fe) \(/);
+    expect(s.stdout).not.toMatch(/reaches Fe[23]O[34] /);
   });
 });
 
