@@ -1,6 +1,7 @@
 /**
  * The one-way pipeline: file → spec → species at T → solution → diagram model.
  */
+import { formulaMatches } from './chem/match.js';
 import { buildModel } from './diagram/build.js';
 import { type ComputedComposition, computeComposition } from './diagram/composition.js';
 import type { BoundaryModel, DiagramModel } from './model.js';
@@ -65,7 +66,7 @@ function withOperating(spec: SystemSpec, model: DiagramModel): void {
     model.warnings.push(...r.warnings);
   }
   for (const k of Object.keys(spec.operating.classes)) {
-    if (!model.species.some((x) => x.formula === k)) throw new InputError(spec.file, `classes.${k}`, 'a formula of a species in the system', JSON.stringify(k));
+    if (!model.species.some((x) => formulaMatches(k, x.formula))) throw new InputError(spec.file, `classes.${k}`, 'a formula of a species in the system', JSON.stringify(k));
   }
 }
 

@@ -28,3 +28,5 @@ export {
 export type { EquationTerm, Notation, SpeciesTerm } from './reaction-text.js';
 export { hydroxoName } from './hydroxo-names.js';
 export type { HydroxoName } from './hydroxo-names.js';
+export { formulaMatches } from './match.js';
+export { chargesForPeople, formulaForJson, formulaForPeople, reactionForJson, reactionForPeople, textForPeople, labelForPeople } from './present.js';

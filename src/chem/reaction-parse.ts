@@ -1,11 +1,15 @@
 /**
- * Reaction text for the `cell` calculator: "2H2O(l) = 2H2(g) + O2(g)" or "Cu+2 + 2e- = Cu(s)".
+ * Reaction text for the `cell` calculator: "2H2O(l) <=> 2H2(g) + O2(g)" or "Cu^2+ + 2e^- <=> Cu(s)"
+ * (also with Unicode, "Cu²⁺ + 2e⁻ ⇌ Cu(s)", and in the older form "Cu+2 + 2e- = Cu(s)").
  * Terms are separated by " + " (spaces around the plus, since "+" also writes charges), sides by
- * "=" (also "->", "→", "⇌"); a term is an optional coefficient (2, 0.5, 1/2) then a formula with an
- * optional phase tag; "e-" is the electron. Parsing checks element and charge balance.
+ * "<=>", "⇌" or "=" (also "->", "→"); a term is an optional coefficient (2, 0.5, 1/2) then a formula
+ * with an optional phase tag; "e^-", "e⁻" or "e-" is the electron. Parsing checks element and
+ * charge balance. The parsed text is returned in the canonical ASCII notation.
  */
 import { EXIT, EphmapError, type ExitStatus } from '../errors.js';
 import { formulaWarnings, parseFormula, splitPhase, FormulaError, type Phase } from './formula.js';
+import { ELECTRON_ASCII, EQUILIBRIUM_ASCII, isElectron } from './reaction-text.js';
+import { formulaAscii } from './write.js';
 
 /** What a ReactionError is about: the reaction text, the electron count, or the reference electrode. */
 export type ReactionSubject = 'reaction' | 'electrons' | 'reference' | 'activity';
@@ -63,7 +67,7 @@ export function parseReaction(text: string): ParsedReaction {
   const src = text.trim();
   const sides = src.split(ARROW);
   if (sides.length !== 2 || sides.some((s) => s.trim() === '')) {
-    throw new ReactionError(src, 'two sides separated by "=" (e.g. "Cu+2 + 2e- = Cu(s)")', JSON.stringify(text));
+    throw new ReactionError(src, 'two sides separated by "<=>", "⇌" or "=" (e.g. "Cu^2+ + 2e^- <=> Cu(s)")', JSON.stringify(text));
   }
   const terms: Term[] = [];
   const warnings: string[] = [];
@@ -78,7 +82,7 @@ export function parseReaction(text: string): ParsedReaction {
       }
       const body = m[2]!.trim().replace(/\u2212/g, '-');
       const side = k === 0 ? -1 : 1;
-      if (/^e-?$/.test(body)) {
+      if (body === 'e' || isElectron(body)) {
         terms.push({ side, coefficient, coefficientText, electron: true, formula: 'e-', elements: {}, charge: -1 });
         continue;
       }
@@ -126,11 +130,12 @@ function checkBalance(src: string, terms: Term[], warnings: string[]): void {
   }
 }
 
+/** The parsed reaction in the canonical ASCII notation (JSON's form): "Cu^2+ + 2e^- <=> Cu(s)". */
 function formatReaction(terms: Term[]): string {
   const side = (s: -1 | 1) =>
     terms
       .filter((t) => t.side === s)
-      .map((t) => `${t.coefficientText === '1' ? '' : t.coefficientText}${t.electron ? 'e-' : t.formula + (t.phase ? `(${t.phase})` : '')}`)
+      .map((t) => `${t.coefficientText === '1' ? '' : t.coefficientText}${t.electron ? ELECTRON_ASCII : formulaAscii(t.formula) + (t.phase ? `(${t.phase})` : '')}`)
       .join(' + ');
-  return `${side(-1)} = ${side(1)}`;
+  return `${side(-1)} ${EQUILIBRIUM_ASCII} ${side(1)}`;
 }

@@ -11,8 +11,8 @@
  *   4. warn only when the digit run has two or more digits (SO42- would mean O₄₂) or the formula
  *      holds a single element (Fe2+ would mean Fe₂ with charge 1+). HFeO2-, Fe(OH)2+, MnO4-, NH4+
  *      give no warning. Text with a caret or superscript-digit charge is never ambiguous.
- * The advice names the reading, then the new notation (`Fe^2+`), and the older notation (`Fe+2`),
- * which is still read.
+ * The advice names the reading, then the notation to write (`Fe^2+`); the older form (`Fe+2`), still
+ * read, is no longer suggested.
  */
 import { type Formula, parseFormula, splitPhase } from './parse.js';
 import { formulaUnicode } from './write.js';
@@ -52,6 +52,6 @@ export function formulaWarnings(text: string): string[] {
   return [
     `formula "${formula}" reads as ${formulaUnicode(f)} (${head}${digits} with charge ${spoken(f.charge)}); ` +
       `if ${formulaUnicode(alt)} with charge ${spoken(alt.charge)} is meant, write "${newForm}" ` +
-      `(the charge after a caret, number before the sign) or write "${oldForm}" in the older notation`,
+      '(the charge after a caret, number before the sign)',
   ];
 }

@@ -44,7 +44,7 @@ function activityOption(value: string, prev: Record<string, number> = {}): Recor
   const k = value.lastIndexOf('=');
   const key = k > 0 ? value.slice(0, k).trim() : '';
   const v = k > 0 ? Number(value.slice(k + 1)) : Number.NaN;
-  if (!key || !(v > 0) || !Number.isFinite(v)) throw new InputError(CLI, '--activity', 'SPECIES=VALUE with a positive value, e.g. Fe+2=1e-6 or O2(g)=0.21', JSON.stringify(value));
+  if (!key || !(v > 0) || !Number.isFinite(v)) throw new InputError(CLI, '--activity', 'SPECIES=VALUE with a positive value, e.g. Fe^2+=1e-6 or O2(g)=0.21', JSON.stringify(value));
   return { ...prev, [key]: v };
 }
 
@@ -57,14 +57,14 @@ export function registerCell(program: Command, deps: CellDeps): void {
     .command('cell')
     .description(
       'ΔrG, ΔrH, ΔrS, ΔrCp, log K and, for redox reactions, equilibrium and thermoneutral potentials of a reaction, ' +
-        'e.g. "2H2O(l) = 2H2(g) + O2(g)", "Cu+2 + 2e- = Cu(s)" or "H2O(l) = H+ + OH-" (terms separated by " + ", "e-" is the electron)',
+        'e.g. "2H2O(l) <=> 2H2(g) + O2(g)", "Cu^2+ + 2e^- <=> Cu(s)" or "H2O(l) <=> H^+ + OH^-" (terms separated by " + "; "e^-" is the electron; Unicode such as "Cu²⁺ + 2e⁻ ⇌ Cu(s)" is read too)',
     )
     .argument('<reaction>', 'balanced reaction, quoted')
     .option('--temperature <C>', 'temperature, °C', '25')
     .option('--range <from:to:step>', 'table over temperatures, °C (e.g. 25:100:25)')
     .option('--electrons <N>', 'electrons transferred (for full reactions whose oxidation states are not decided)')
     .option('--extrapolation <mode>', "best (each species' own model: IAPWS water, HKF for aqueous species, Cp polynomials), cp (constant Cp°) or constant-h-s (ΔH − TΔS)", 'best')
-    .option('--activity <species=value>', 'activity of a species as written (gases: pressure in bar), e.g. Fe+2=1e-6; repeatable; others at 1', activityOption)
+    .option('--activity <species=value>', 'activity of a species (any notation; gases: pressure in bar), e.g. Fe^2+=1e-6; repeatable; others at 1', activityOption)
     .option('--ref <name>', 'also give half-reaction potentials against a reference electrode')
     .addOption(new Option('--reference <name>', 'same as --ref').hideHelp())
     .option('--ph <pH>', 'pH, for --ref rhe')

@@ -2,6 +2,7 @@
  * Verbs draw, probe, lines (issue 2 core) and demo.
  */
 import { writeWarnings } from './notes.js';
+import { textForPeople } from '../chem/present.js';
 import type { Command } from 'commander';
 import { compute, computeAny } from '../pipeline.js';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
@@ -32,7 +33,7 @@ interface DrawOptions extends FigureOverrides, SpecOverrides {
 
 
 function warn(ws: string[]): void {
-  for (const w of ws) process.stderr.write(`warning: ${w}\n`);
+  for (const w of ws) process.stderr.write(`warning: ${textForPeople(w)}\n`);
 }
 
 export function registerCore(program: Command): void {

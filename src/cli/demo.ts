@@ -7,6 +7,7 @@
  * directory, and it says so on standard output) and commit all files as one set
  * (src/io/safe-write.ts), so a failure leaves the folder's files as they were.
  */
+import { textForPeople } from '../chem/present.js';
 import { existsSync, statSync } from 'node:fs';
 import { OutputError } from '../errors.js';
 import { join } from 'node:path';
@@ -42,7 +43,7 @@ export function registerDemo(program: Command): void {
       for (const d of DEMO_SYSTEMS) {
         const spec = readSpec(d.data, `demo ${d.name}`);
         const c = compute(spec);
-        for (const w of c.model.warnings) process.stderr.write(`warning (${d.name}): ${w}\n`);
+        for (const w of c.model.warnings) process.stderr.write(`warning (${d.name}): ${textForPeople(w)}\n`);
         const input = figureInput(c, figureSettings(spec));
         const mine: OutputFile[] = [];
         for (const fmt of ['svg', 'pdf'] as const) mine.push({ path: join(opts.out, `${d.name}.${fmt}`), data: await renderFigure(input, fmt) });

@@ -1,4 +1,5 @@
 /** Reporting what the figure layout did to fit the requested size, on stderr. */
+import { textForPeople } from '../chem/present.js';
 import type { DiagramModel } from '../model.js';
 
 /** Writes each figure note of the model as `note: figure: …` on stderr. */
@@ -13,6 +14,6 @@ export function reportFigureNotes(model: DiagramModel, prefix = ''): void {
  */
 export function writeWarnings(...lists: readonly (readonly string[])[]): string[] {
   const once = [...new Set(lists.flat())];
-  for (const w of once) process.stderr.write(`warning: ${w}\n`);
+  for (const w of once) process.stderr.write(`warning: ${textForPeople(w)}\n`);
   return once;
 }

@@ -2,6 +2,7 @@
  * `ephmap overlay FILE... -o out.svg|pdf|png|html [--temperatures 25,90,150] [--activities 1e-6,1e-4]`:
  * several diagrams in one frame (one system at several temperatures/activities, or several systems).
  */
+import { textForPeople } from '../chem/present.js';
 import type { Command } from 'commander';
 import type { FigureOverrides } from '../figure/options.js';
 import { type FigureFormat, renderFigure } from '../figure/output.js';
@@ -66,7 +67,7 @@ export function registerOverlay(program: Command): void {
         const r = displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), specs[0].temperature, 'command line', '--ref');
         withSecondAxis(layers[0], fig, r);
       }
-      for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${w}\n`);
+      for (const w of layerWarnings(layers)) process.stderr.write(`warning: ${textForPeople(w)}\n`);
       const { input } = overlayFigure(layers, fig, ext === 'pdf', specs[0]);
       await writeOne(opts.output, await renderFigure(input, ext as FigureFormat));
       reportFigureNotes(input.model);

@@ -3,6 +3,7 @@
  * figure, boundaries as curves, the speciation at the file's operating points, the plating window.
  * Everything is computed before anything is written. Called by cli/report.ts.
  */
+import { textForPeople } from '../chem/present.js';
 import { basename, dirname, extname, join } from 'node:path';
 import { compositionWindow } from '../analysis/composition-window.js';
 import type { FigureSettings } from '../figure/options.js';
@@ -25,7 +26,7 @@ function caption(data: ReportData, totals: Record<string, number>): string[] {
 
 export async function reportComposition(spec: SystemSpec, fig: FigureSettings, output: string, fmt: 'md' | 'html' | 'pdf'): Promise<void> {
   const { computed, result: win } = compositionWindow(spec);
-  for (const w of computed.model.warnings) process.stderr.write(`warning: ${w}\n`);
+  for (const w of computed.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
   const data = compositionReportData(spec, computed, win, speciesSources({ spec, model: computed.model, built: computed.setup.built }));
   const cap = caption(data, computed.setup.totals);
   const input: FigureInput = { model: computed.model, options: fig.options, caption: cap };

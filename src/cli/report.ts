@@ -4,6 +4,7 @@
  * the data sources, warnings and cautions. Markdown writes the figure next to it as `<name>.svg`.
  * Everything is computed before anything is written; bad input writes nothing (exit 2).
  */
+import { textForPeople } from '../chem/present.js';
 import { basename, dirname, extname, join } from 'node:path';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
@@ -56,7 +57,7 @@ export function registerReport(program: Command): void {
       if (opts.ref !== undefined) {
         withSecondAxis(c, fig, displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), spec.temperature, 'command line', '--ref'));
       }
-      for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
+      for (const w of c.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
       const data = reportData(c);
       // The document prints the caption under the figure once; the figure itself carries none.
       const withCap = figureInput(c, fig);

@@ -3,6 +3,7 @@
  * fixed potential (--potential) or against E at a fixed pH (--ph), as a figure (.svg, .pdf, .png)
  * or its data (.json).
  */
+import { textForPeople } from '../chem/present.js';
 import type { Command } from 'commander';
 import { sharesData } from '../analysis/shares.js';
 import { figureSettings, type FigureOverrides } from '../figure/options.js';
@@ -50,7 +51,7 @@ export function registerShares(program: Command): void {
       const spec = loadSpecWith(file, opts);
       const fig = figureSettings(spec, opts);
       const data = sharesData(spec, along, at, points === undefined ? {} : { points });
-      for (const w of data.warnings) process.stderr.write(`warning: ${w}\n`);
+      for (const w of data.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
       const out = ext === 'json' ? stableJson(data) : await renderShares({ data, options: fig.options, caption: sharesCaption(data, spec) }, ext as SharesFormat);
       await writeOne(opts.output, out);
       process.stdout.write(`wrote ${opts.output}\n`);

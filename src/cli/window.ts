@@ -1,6 +1,7 @@
 /**
  * `ephmap window FILE`: the plating pH window of a bath (table, --json, or a figure with -o).
  */
+import { textForPeople } from '../chem/present.js';
 import type { Command } from 'commander';
 import { loadSpecWith, type SpecOverrides, withSpecOptions } from './spec-options.js';
 import { windowFigureInput } from '../figure/compose.js';
@@ -55,7 +56,7 @@ export function registerWindow(program: Command): void {
       if (spec.composition) {
         if (opts.output) throw new InputError('command line', '--output', 'no --output for a composition file yet (draw the bath with `ephmap draw`); the window table and --json work', JSON.stringify(opts.output));
         const { computed, result } = compositionWindow(spec);
-        for (const w of computed.model.warnings) process.stderr.write(`warning: ${w}\n`);
+        for (const w of computed.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
         const scaled = onScale(result, spec, opts.ref, computed.model.warnings);
         process.stdout.write(opts.json ? stableJson(scaled) : windowText(scaled, compositionWindowHeading(result, 'reference' in scaled ? scaled.reference : undefined)));
         return;
@@ -67,7 +68,7 @@ export function registerWindow(program: Command): void {
         // The figure's second axis follows --ref (the RHE, pH-dependent, has none).
         withSecondAxis(c, fig, displayReference(cliRef, spec.temperature, 'command line', '--ref'));
       }
-      for (const w of c.model.warnings) process.stderr.write(`warning: ${w}\n`);
+      for (const w of c.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
       const r = onScale(platingWindow(c.model), spec, opts.ref, c.model.warnings);
       if (opts.output && fmt) {
         await writeOne(opts.output, await renderFigure(windowFigureInput(c, fig, r.windows), fmt));

@@ -9,7 +9,7 @@ import { type LibrarySpecies, speciesFor, type SpeciesForOptions } from './libra
  * one-element set (speciesFor, ligand species once) plus the compounds of the "mixed" file whose
  * elements all lie within {main elements, ligands, H, O} and which hold at least two main elements.
  * Order: each element's set in the order given, then the mixed compounds in library order.
- * Example: speciesForElements(lib, ['Fe', 'Cr']) → Fe, Fe+2, …, Cr, Cr+3, …, FeCr2O4.
+ * Example: speciesForElements(lib, ['Fe', 'Cr']) → Fe, Fe^2+, …, Cr, Cr^3+, …, FeCr2O4.
  */
 export function speciesForElements(
   lib: readonly LibrarySpecies[],

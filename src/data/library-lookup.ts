@@ -4,6 +4,7 @@
  * and the citations a species rests on. Reads the library only; computes no thermodynamics.
  */
 import { parseFormula, splitPhase, sameFormula } from '../chem/formula.js';
+import { formulaMatches } from '../chem/match.js';
 import type { Phase } from '../model.js';
 import type { LibrarySpecies } from './library-types.js';
 
@@ -12,8 +13,9 @@ const PHASE_PREFERENCE: readonly Phase[] = ['s', 'l', 'aq', 'g'];
 
 /**
  * All species matching `key`: by formula, with or without phase tag (`Fe2O3`, `Fe2O3(s)`,
- * `Fe+2(aq)`; exact text first, else same composition and charge), otherwise by name or alias
- * (case-insensitive, surrounding whitespace ignored). Formula matches are ordered by phase
+ * `Fe^2+(aq)`, `Fe²⁺`, the older `Fe+2`; exact text first, else same composition and charge), otherwise by name or alias
+ * (case-insensitive, surrounding whitespace ignored; an alias that is a formula, such as `Fe(OH)3^-`,
+ * also matches in any notation: `Fe(OH)₃⁻`, `Fe(OH)3-`). Formula matches are ordered by phase
  * preference solid, liquid, aqueous, gas.
  */
 export function findAllSpecies(lib: readonly LibrarySpecies[], key: string): LibrarySpecies[] {
@@ -38,7 +40,7 @@ export function findAllSpecies(lib: readonly LibrarySpecies[], key: string): Lib
   if (hits.length > 0) return [...hits].sort(byPhase);
   const lower = text.toLowerCase();
   return lib.filter(
-    (s) => s.name.toLowerCase() === lower || (s.aliases ?? []).some((a) => a.trim().toLowerCase() === lower),
+    (s) => s.name.toLowerCase() === lower || (s.aliases ?? []).some((a) => a.trim().toLowerCase() === lower || formulaMatches(text, a.trim())),
   );
 }
 

@@ -36,7 +36,7 @@ export interface SpeciesAlternative extends SpeciesValues {
 
 /** One species entry exactly as written in a species file. */
 export interface SpeciesRecord extends SpeciesValues {
-  /** Formula in ephmap notation without phase tag, e.g. `Fe+2`, `Fe(OH)2+`, `HFeO2-`. */
+  /** Formula in the canonical ASCII notation without phase tag, e.g. `Fe^2+`, `Fe(OH)2^+`, `HFeO2^-`. */
   formula: string;
   phase: Phase;
   name: string;

@@ -102,7 +102,7 @@ function checkEntry(file: string, i: number, raw: unknown, sourceMap: Readonly<R
   const o = raw as Record<string, unknown>;
   if (typeof o.formula === 'string') at = `species[${i}] (${o.formula})`;
   for (const k of Object.keys(o)) if (!SPECIES_KEYS.has(k)) fail(`${at}.${k}`, 'unknown field');
-  if (!isText(o.formula)) fail(`${at}.formula`, 'required, a formula such as "Fe+2"');
+  if (!isText(o.formula)) fail(`${at}.formula`, 'required, a formula such as "Fe^2+"');
   const formula = o.formula as string;
   if (splitPhase(formula).phase !== undefined) fail(`${at}.formula`, 'must not carry a phase tag; put it in "phase"');
   let parsed;

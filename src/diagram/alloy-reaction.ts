@@ -14,7 +14,7 @@
  *     evaluations 1e-3 apart at the boundary point: E = −(g + p·pH)/e, or pH = −g/p when e = 0;
  *     E° (or log K) from g less RT ln10 Σ ν log10 a (every activity 1).
  * Reference: DEVELOPERS.md ("The alloy kind"); the same balancing as the single-element boundaries (src/solve/reaction.ts).
- * Worked example (tested): Fe (alone) between Fe and Fe+2 → "Fe+2 + 2e- = Fe(s)", E = const.
+ * Worked example (tested): Fe (alone) between Fe and Fe^2+ → "Fe^2+ + 2e^- <=> Fe(s)", E = const.
  */
 import type { LineCoefficients } from '../model.js';
 import { speciesPotentialsAt } from '../solve/alloy/psi.js';

@@ -2,6 +2,7 @@
  * Compose the renderer's FigureInput from a computed diagram: caption lines, activity families
  * (the same system re-solved at other activities), and the neutral-pH line at T.
  */
+import { formulaForPeople } from '../chem/present.js';
 import type { Computed, ComputedAny } from '../pipeline.js';
 import type { DiagramModel } from '../model.js';
 import { InputError } from '../system/errors.js';
@@ -60,8 +61,8 @@ function someNames(names: readonly string[], budget: number): string {
  * warnings name them all). Nothing at 25 °C.
  */
 export function temperatureCaveats(m: DiagramModel): string[] {
-  const und = [...new Set(m.species.filter((s) => s.temperatureModel === 'undetermined').map((s) => s.formula))];
-  const est = m.temperature.celsius === 25 ? [] : [...new Set(m.species.filter((s) => s.estimated).map((s) => s.formula))];
+  const und = [...new Set(m.species.filter((s) => s.temperatureModel === 'undetermined').map((s) => formulaForPeople(s.formula)))];
+  const est = m.temperature.celsius === 25 ? [] : [...new Set(m.species.filter((s) => s.estimated).map((s) => formulaForPeople(s.formula)))];
   const out: string[] = [];
   if (und.length) out.push(`Undetermined, no verdict (ΔfG° only): ${und.join(', ')}.`);
   if (est.length) out.push(`Estimated T data: ${someNames(est, 30)}.`);

@@ -11,6 +11,7 @@
  * Content-Security-Policy with hashes allows only this page's own script and style.
  */
 import { createHash } from 'node:crypto';
+import { formulaForPeople, reactionForPeople } from '../chem/present.js';
 import { lineEquationText } from '../diagram/line-text.js';
 import { verdictOf } from '../diagram/verdict.js';
 import type { ShareGrid } from './share-grid.js';
@@ -19,24 +20,15 @@ import type { FigureOptions } from './options.js';
 import type { Scene } from './scene-types.js';
 import { undeterminedCause } from './scene-iso.js';
 import { esc, sceneToSvg } from './svg.js';
-import { formulaRuns, runsUnicode } from './typeset.js';
 
-/** "Fe+2" → "Fe²⁺", "Fe3O4(s)" → "Fe₃O₄(s)", "e-" → "e⁻". */
+/** A formula for people (chem/present.ts): "Fe^2+" or "Fe+2" → "Fe²⁺", "Fe3O4(s)" → "Fe₃O₄(s)", "e-" → "e⁻". */
 export function formulaUnicode(formula: string): string {
-  if (formula === 'e-') return 'e\u207b';
-  return runsUnicode(formulaRuns(formula));
+  return formulaForPeople(formula);
 }
 
-/** A reaction in file notation with typeset species: "Fe+2 + 2e- = Fe(s)" → "Fe²⁺ + 2e⁻ = Fe(s)". */
+/** A reaction for people (chem/present.ts): "Fe^2+ + 2e^- <=> Fe(s)" → "Fe²⁺ + 2e⁻ ⇌ Fe(s)". */
 export function reactionUnicode(reaction: string): string {
-  return reaction
-    .split(' ')
-    .map((tok) => {
-      if (tok === '+' || tok === '=' || tok === '') return tok;
-      const m = /^(\d+(?:\.\d+)?)?(.+)$/.exec(tok);
-      return m ? `${m[1] ?? ''}${formulaUnicode(m[2]!)}` : tok;
-    })
-    .join(' ');
+  return reactionForPeople(reaction);
 }
 
 /** Hyphen-minus used as a sign or operator → U+2212 minus ("E = -0.08 - 0.06 pH" → "E = −0.08 − 0.06 pH"). */

@@ -37,7 +37,7 @@ export interface ScenePath {
   dash: number[] | null;
   lineCap?: 'butt' | 'round' | 'square';
   lineJoin?: 'miter' | 'round' | 'bevel';
-  /** Extra attributes for SVG (data-*), e.g. { species: 'Fe+2' }. */
+  /** Extra attributes for SVG (data-*), e.g. { species: 'Fe^2+' }. */
   data?: Record<string, string>;
 }
 

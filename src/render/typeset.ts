@@ -14,7 +14,7 @@ function push(runs: TextRun[], text: string, shift: TextRun['shift'], italic = f
 }
 
 /**
- * Runs for a formula in ephmap notation: "Fe+2" → Fe, ²⁺; "Fe3O4" → Fe, ₃, O, ₄; "HFeO2-" → HFeO, ₂, ⁻;
+ * Runs for a formula in any accepted notation: "Fe^2+" (or "Fe²⁺", "Fe+2") → Fe, ²⁺; "Fe3O4" → Fe, ₃, O, ₄; "HFeO2^-" → HFeO, ₂, ⁻;
  * "Fe(OH)2+" → Fe(OH), ₂, ⁺; "CuSO4·5H2O" keeps the hydrate coefficient at normal size.
  * A trailing phase tag "(s)", "(aq)" is set at normal size after the formula. Text that is not a
  * valid formula is returned as one plain run.

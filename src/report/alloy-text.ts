@@ -1,9 +1,11 @@
 /**
  * Text of the alloy outputs (issue 18): the probe read-out and the report (Markdown; HTML wraps the
- * same sections). Formulas are printed as elsewhere today (plain ASCII charges, e.g. Fe+2).
+ * same sections). Formulas are printed for people in Unicode (Fe²⁺, Fe₃O₄; chem/present.ts); an
+ * assemblage label is a list of formulas joined by " + ".
  */
 import type { AlloyProbe } from '../analysis/alloy-probe.js';
 import type { DiagramModel } from '../model.js';
+import { labelForPeople as fp, reactionForPeople, textForPeople } from '../chem/present.js';
 import { fmtCelsius, fmtNum, mdCode, mdEsc, mdTable } from './format.js';
 import { type LineRow, lineRows } from './lines.js';
 
@@ -22,7 +24,7 @@ export function verdictText(verdict: AlloyProbe['verdict'], dissolving: readonly
 
 /** "Cu 0.65, Zn(OH)2 (dissolved) 0.35": each member of a region's assemblage with its amount. */
 export function memberAmounts(r: Pick<DiagramModel['regions'][number], 'assemblage'>): string {
-  return (r.assemblage ?? []).map((p) => `${p.species}${p.dissolved ? ' (dissolved)' : ''} ${fmtNum(p.amount)}`).join(', ');
+  return (r.assemblage ?? []).map((p) => `${fp(p.species)}${p.dissolved ? ' (dissolved)' : ''} ${fmtNum(p.amount)}`).join(', ');
 }
 
 /** The sentence naming the reference electrode potentials are also given against. */
@@ -41,12 +43,12 @@ const DIR: Record<string, string> = { 'E+': 'more oxidising (E up)', 'E-': 'more
 export function alloyProbeText(r: AlloyProbe): string {
   const out = [
     r.reference ? `pH ${fmtNum(r.pH)}, E ${fmtNum(r.reference.E)} V vs ${r.reference.label} (= ${r.E.toFixed(4)} V vs SHE)` : `pH ${fmtNum(r.pH)}, E ${fmtNum(r.E)} V vs SHE`,
-    `assemblage: ${r.label}${r.ties.length ? ` (on a boundary: ${r.ties.join(', ')} could replace part of it)` : ''}`,
+    `assemblage: ${fp(r.label)}${r.ties.length ? ` (on a boundary: ${r.ties.map(fp).join(', ')} could replace part of it)` : ''}`,
     `verdict: ${verdictText(r.verdict, r.dissolving)}`,
     'amounts (mol per mol of alloy atoms):',
-    ...r.assemblage.map((p) => `  ${p.name.padEnd(14)} ${p.amount.toFixed(6)}   ${p.dissolved ? 'dissolved, ' : ''}holds ${Object.entries(p.share).filter(([, v]) => v > 0).map(([e, v]) => `${(100 * v).toFixed(1)} % of ${e}`).join(', ')}`),
+    ...r.assemblage.map((p) => `  ${fp(p.name).padEnd(14)} ${p.amount.toFixed(6)}   ${p.dissolved ? 'dissolved, ' : ''}holds ${Object.entries(p.share).filter(([, v]) => v > 0).map(([e, v]) => `${(100 * v).toFixed(1)} % of ${e}`).join(', ')}`),
     'margins to the neighbouring assemblages:',
-    ...r.margins.map((m) => `  ${DIR[m.direction].padEnd(24)} ${m.distance === null ? 'none within the diagram' : `${m.distance.toFixed(4)} ${m.direction.startsWith('E') ? 'V' : 'pH'} to ${m.to}`}`),
+    ...r.margins.map((m) => `  ${DIR[m.direction].padEnd(24)} ${m.distance === null ? 'none within the diagram' : `${m.distance.toFixed(4)} ${m.direction.startsWith('E') ? 'V' : 'pH'} to ${fp(m.to ?? "")}`}`),
     'Equilibrium only: pure phases (no solid-solution activities), no kinetics or film quality.',
   ];
   return `${out.join('\n')}\n`;
@@ -61,15 +63,15 @@ export function alloyReportMarkdown(model: DiagramModel, svgName: string | null,
   parts.push('## Composition', '', mdTable(['element', 'mole fraction', 'threshold activity of its dissolved species'], Object.keys(a.composition).map((e) => [e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '');
   if (model.reference) parts.push(mdEsc(referenceNote(model)), '');
   parts.push('## Assemblages', '', mdTable(['assemblage', 'verdict', 'amounts (mol per mol of alloy atoms)', 'area (pH·V)'], model.regions.map((r) => [
-    mdCode(r.species),
+    mdCode(fp(r.species)),
     mdEsc(verdictText(r.alloyVerdict!, r.dissolving ?? [])),
     mdEsc(memberAmounts(r)),
     fmtNum(r.area, 3),
   ])), '');
-  parts.push('## Reactions between neighbouring assemblages', '', mdTable(['between', 'reaction', 'line'], lineRows(model, model.reference).map((r) => [mdEsc(r.between.join(' | ')), mdCode(r.reaction), mdCode(lineText(r))])), '');
-  if (model.warnings.length) parts.push('## Warnings', '', ...model.warnings.map((w) => `- ${mdEsc(w)}`), '');
+  parts.push('## Reactions between neighbouring assemblages', '', mdTable(['between', 'reaction', 'line'], lineRows(model, model.reference).map((r) => [mdEsc(r.between.map(fp).join(' | ')), mdCode(reactionForPeople(r.reaction)), mdCode(lineText(r))])), '');
+  if (model.warnings.length) parts.push('## Warnings', '', ...model.warnings.map((w) => `- ${mdEsc(textForPeople(w))}`), '');
   parts.push('## What this diagram does not say', '',
-    '- Phases are pure compounds: no solid-solution activities (a chromium-rich spinel film is not an ideal mixture of FeCr2O4 and Fe3O4), no alloy-metal activities below one.',
+    '- Phases are pure compounds: no solid-solution activities (a chromium-rich spinel film is not an ideal mixture of FeCr₂O₄ and Fe₃O₄), no alloy-metal activities below one.',
     '- Equilibrium only: no kinetics, film quality, breakdown or localized attack; a passive assemblage is a thermodynamic possibility, not a guarantee.',
     '', '## Sources', '', ...model.sources.map((s) => `- ${mdEsc(s)}`), '');
   return parts.join('\n');
@@ -85,9 +87,9 @@ export function alloyReportHtml(model: DiagramModel, svg: string, caption: strin
     '<style>body{font-family:sans-serif;max-width:60em;margin:auto}td{border-bottom:1px solid #ccc;padding:2px 6px}code{font-size:95%}</style></head><body>',
     `<h1>Alloy ${esc(model.element)} at ${fmtCelsius(model.temperature.celsius)} °C</h1>`, svg, ...caption.map((c) => `<p>${esc(c)}</p>`),
     '<h2>Composition</h2><table>', ...Object.keys(a.composition).map((e) => row([e, fmtNum(a.composition[e]), fmtNum(a.activities[e])])), '</table>', ...(model.reference ? [`<p>${esc(referenceNote(model))}</p>`] : []),
-    '<h2>Assemblages</h2><table>', ...model.regions.map((r) => row([r.species, verdictText(r.alloyVerdict!, r.dissolving ?? []), memberAmounts(r)])), '</table>',
-    '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model, model.reference).map((r) => row([r.between.join(' | '), r.reaction, lineText(r)])), '</table>',
-    ...(model.warnings.length ? ['<h2>Warnings</h2><ul>', ...model.warnings.map((w) => `<li>${esc(w)}</li>`), '</ul>'] : []),
+    '<h2>Assemblages</h2><table>', ...model.regions.map((r) => row([fp(r.species), verdictText(r.alloyVerdict!, r.dissolving ?? []), memberAmounts(r)])), '</table>',
+    '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model, model.reference).map((r) => row([r.between.map(fp).join(' | '), reactionForPeople(r.reaction), lineText(r)])), '</table>',
+    ...(model.warnings.length ? ['<h2>Warnings</h2><ul>', ...model.warnings.map((w) => `<li>${esc(textForPeople(w))}</li>`), '</ul>'] : []),
     '<h2>What this diagram does not say</h2><ul><li>Phases are pure compounds: no solid-solution activities.</li><li>Equilibrium only: no kinetics, film quality or localized attack.</li></ul>',
     '<h2>Sources</h2><ul>', ...model.sources.map((s) => `<li>${esc(s)}</li>`), '</ul></body></html>', '',
   ].join('\n');

@@ -1,6 +1,7 @@
 /**
  * The `catalog` report: the built-in species with their data and sources.
  */
+import { formulaForPeople } from '../chem/present.js';
 import type { LibrarySpecies } from '../data/library.js';
 import { libraryTemperatureModel } from '../system/carry.js';
 import { table } from './table.js';
@@ -76,7 +77,7 @@ export function catalogEntries(lib: readonly LibrarySpecies[], element?: string)
 export function catalogText(entries: CatalogEntry[]): string {
   const n = (v: number | null, d: number) => (v === null ? '—' : v.toFixed(d));
   const rows = entries.map((e) => [
-    e.formula,
+    formulaForPeople(e.formula),
     e.phase,
     e.name,
     n(e.dfG, 2),

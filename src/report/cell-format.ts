@@ -3,6 +3,7 @@
  * convention), an aligned table with one row per temperature (units in the headers), the data
  * sources and the warnings. Draws nothing and computes nothing.
  */
+import { formulaForPeople, reactionForPeople, textForPeople } from '../chem/present.js';
 import type { CellResult } from '../thermo/cell.js';
 import { table } from './table.js';
 
@@ -36,14 +37,14 @@ export function cellText(rows: readonly CellResult[]): string {
     : half
     ? `half-reaction, n = ${first.n} (${nFrom}), written as ${first.direction === 'reduction' ? 'a reduction' : 'an oxidation'}`
     : `full reaction, n = ${first.n} (${nFrom}), ${first.direction}${first.direction === 'electrolytic' ? ' (must be driven)' : ' (delivers work)'}`;
-  const lines = [`reaction: ${first.reaction}`, what, `convention: ${first.convention}`];
+  const lines = [`reaction: ${reactionForPeople(first.reaction)}`, what, `convention: ${first.convention}`];
   if (ref) lines.push(`reference: ${ref.label}, ${fix(ref.offset, 4, true)} V vs SHE at ${first.temperature.celsius} °C`);
-  if (cond) lines.push(`at: ${Object.entries(cond.activities).map(([k, v]) => `${k} = ${v}`).join(', ')} (others at unit activity, gases 1 bar); log Q = ${cond.logQ.toFixed(4)}`);
+  if (cond) lines.push(`at: ${Object.entries(cond.activities).map(([k, v]) => `${formulaForPeople(k)} = ${v}`).join(', ')} (others at unit activity, gases 1 bar); log Q = ${cond.logQ.toFixed(4)}`);
   lines.push('', table(header, body, header.map((_, k) => k >= 0)), '', 'data:');
   for (const s of first.species) {
-    lines.push(`  ${s.coefficient > 0 ? '+' : ''}${Number(s.coefficient.toPrecision(10))} ${s.formula}${s.phase ? `(${s.phase})` : ''}: ${s.source}`);
+    lines.push(`  ${s.coefficient > 0 ? '+' : ''}${Number(s.coefficient.toPrecision(10))} ${formulaForPeople(s.formula + (s.phase ? `(${s.phase})` : ''))}: ${s.source}`);
   }
   const warnings = [...new Set(rows.flatMap((r) => r.warnings))];
-  if (warnings.length > 0) lines.push('', 'warnings:', ...warnings.map((w) => `  ${w}`));
+  if (warnings.length > 0) lines.push('', 'warnings:', ...warnings.map((w) => `  ${textForPeople(w)}`));
   return `${lines.join('\n')}\n`;
 }

@@ -4,6 +4,7 @@
  * exchange reaction at its midpoint (actual activities there) and its pH and E span — never a
  * straight-line equation. Computes nothing beyond the spans.
  */
+import { formulaForPeople, reactionForPeople } from '../chem/present.js';
 import type { DiagramModel } from '../model.js';
 import type { DisplayReference } from './lines.js';
 import { table } from './table.js';
@@ -53,15 +54,15 @@ export function compositionLinesText(model: DiagramModel, ref?: DisplayReference
   const body = table(
     ['boundary', 'shape', 'reaction at midpoint', 'midpoint (pH, E)', 'pH span', 'E span / V', ...(ref ? [`E span vs ${ref.label}`] : [])],
     rows.map((r) => [
-      r.between.join(' / '),
+      r.between.map(formulaForPeople).join(' / '),
       r.shape,
-      r.reaction,
+      reactionForPeople(r.reaction),
       `${f(r.midpoint.pH, 2)}, ${f(r.midpoint.E, 3)}`,
       `${f(r.pHRange[0], 2)}–${f(r.pHRange[1], 2)}`,
       `${f(r.ERange[0], 3)} … ${f(r.ERange[1], 3)}`,
       ...(ref ? [`${f(r.ERangeRef![0], 3)} … ${f(r.ERangeRef![1], 3)}`] : []),
     ]),
   );
-  const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${w.reaction}: ${w.equation}`).join('\n');
-  return `${head}\n\n${body}\n\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n`;
+  const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${reactionForPeople(w.reaction)}: ${w.equation}`).join('\n');
+  return `${head}\n\n${body}\n\nWater lines (H₂ ${model.waterLines.pressures.H2} bar, O₂ ${model.waterLines.pressures.O2} bar):\n${water}\n`;
 }

@@ -1,6 +1,7 @@
 /**
  * The `lines` report: every boundary's balanced reaction and its line equation at T.
  */
+import { formulaForPeople, reactionForPeople, textForPeople } from '../chem/present.js';
 import { lineEquationText } from '../diagram/line-text.js';
 import type { BoundaryModel, DiagramModel } from '../model.js';
 import { elementAmountText, ligandAmountTexts } from './format.js';
@@ -95,8 +96,8 @@ export function linesText(model: DiagramModel, ref?: DisplayReference): string {
   const body = table(
     ['boundary', 'reaction', 'E°/V or log K', 'line', ...(ref ? [`line vs ${ref.label}`] : []), 'pH range'],
     rows.map((r) => [
-      r.between.join(' / '),
-      r.reaction,
+      r.between.map(formulaForPeople).join(' / '),
+      reactionForPeople(r.reaction),
       r.line.kind === 'E' ? `E° = ${r.line.E0!.toFixed(4)}` : `log K = ${r.line.logK!.toFixed(3)}`,
       r.equation,
       ...(ref ? [r.equationRef!] : []),
@@ -108,13 +109,13 @@ export function linesText(model: DiagramModel, ref?: DisplayReference): string {
     ? `\nActivities used (a = γ·m where a concentration m was given${model.water ? `; ionic strength ${fmtNum(Number(model.water.ionicStrength))} mol/kg, ${model.water.activityModel} model at ${model.temperature.celsius} °C` : ''}):\n` +
       table(
         ['species', 'm / (mol/kg)', 'log γ', 'γ', 'activity a'],
-        acts.map((r) => [r.formula, r.molality === undefined ? 'as given' : fmtNum(r.molality), r.logGamma === undefined ? '0' : r.logGamma.toFixed(4), r.logGamma === undefined ? '1' : (10 ** r.logGamma).toFixed(4), fmtNum(r.activity)]),
+        acts.map((r) => [formulaForPeople(r.formula), r.molality === undefined ? 'as given' : fmtNum(r.molality), r.logGamma === undefined ? '0' : r.logGamma.toFixed(4), r.logGamma === undefined ? '1' : (10 ** r.logGamma).toFixed(4), fmtNum(r.activity)]),
         [false, true, true, true, true],
       ) + '\n'
     : '';
-  const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${w.reaction}: ${w.equation}`).join('\n');
-  const warn = model.warnings.length ? `\nWarnings:\n${model.warnings.map((w) => `  ${w}`).join('\n')}\n` : '';
-  return `${head}\n\n${body}\n${actText}\nWater lines (H2 ${model.waterLines.pressures.H2} bar, O2 ${model.waterLines.pressures.O2} bar):\n${water}\n${warn}`;
+  const water = [model.waterLines.hydrogen, model.waterLines.oxygen].map((w) => `  ${reactionForPeople(w.reaction)}: ${w.equation}`).join('\n');
+  const warn = model.warnings.length ? `\nWarnings:\n${model.warnings.map((w) => `  ${textForPeople(w)}`).join('\n')}\n` : '';
+  return `${head}\n\n${body}\n${actText}\nWater lines (H₂ ${model.waterLines.pressures.H2} bar, O₂ ${model.waterLines.pressures.O2} bar):\n${water}\n${warn}`;
 }
 
 export interface ActivityRow {

@@ -3,11 +3,13 @@
  * the distances (each with its definition) and each crossing. Computes nothing.
  */
 import type { Crossing, ProbeResult } from '../analysis/probe.js';
+import { formulaForPeople as fp, reactionForPeople, textForPeople } from '../chem/present.js';
+import { adviceForPeople } from './people.js';
 import { amountLabel } from './format.js';
 
 const mv = (v: number) => `${v >= 0 ? '+' : ''}${(v * 1000).toFixed(1)} mV`;
 const ph = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(3)} pH`;
-const pair = (x: { between: [string, string] }) => x.between.join(' / ');
+const pair = (x: { between: [string, string] }) => x.between.map(fp).join(' / ');
 
 /** The runner-up line: margin, and the shift of E and of pH that closes it (or why there is none). */
 function runnerUpLine(r: ProbeResult): string {
@@ -17,7 +19,7 @@ function runnerUpLine(r: ProbeResult): string {
   if (m.potentialV !== null) parts.push(`${mv(m.potentialV)} at this pH`);
   if (m.pH !== null) parts.push(`${ph(m.pH)} at this potential`);
   if (m.note) parts.push(m.note);
-  return `runner-up: ${r.runnerUp} (${parts.join('; ')})`;
+  return `runner-up: ${fp(r.runnerUp)} (${parts.map(textForPeople).join('; ')})`;
 }
 
 /** The nearer of two crossings in one direction, named by its boundary. */
@@ -34,7 +36,7 @@ export function probeText(r: ProbeResult): string {
   const c = r.crossings;
   const lines = [
     `point: ${where}`,
-    `verdict: ${r.verdict.toUpperCase()} — ${r.predominant} predominates (${r.class}; dissolved-species threshold ${amountLabel(r.amount, r.threshold, { ascii: true })})`,
+    `verdict: ${r.verdict.toUpperCase()} — ${fp(r.predominant)} predominates (${r.class}; dissolved-species threshold ${amountLabel(r.amount, r.threshold, { ascii: true })})`,
     runnerUpLine(r),
     `vertical distance (change of E at this pH): ${nearer(c.raiseE, c.lowerE, mv, 'above', 'below')}`,
     `horizontal distance (change of pH at this potential): ${nearer(c.lowerPH, c.raisePH, ph, 'at lower pH', 'at higher pH')}`,
@@ -45,16 +47,16 @@ export function probeText(r: ProbeResult): string {
     ['lower pH', c.lowerPH, 'pH'],
     ['raise pH', c.raisePH, 'pH'],
   ] as const) {
-    if (x) lines.push(`  ${name.padEnd(8)} ${unit === 'V' ? mv(x.shift) : ph(x.shift)} → ${x.to} (${x.verdict}), across ${pair(x)}: ${x.reaction}`);
+    if (x) lines.push(`  ${name.padEnd(8)} ${unit === 'V' ? mv(x.shift) : ph(x.shift)} → ${fp(x.to)} (${x.verdict}), across ${pair(x)}: ${reactionForPeople(x.reaction)}`);
   }
-  lines.push(r.advice);
+  lines.push(adviceForPeople(r));
   const nb = r.nearestBoundary;
   if (nb) {
     lines.push(
-      `nearest boundary in the plane: ${pair(nb)}, ${nb.distance.value.toFixed(1)} mV away at pH ${nb.at.pH.toFixed(3)}, E ${nb.at.E.toFixed(4)} V vs SHE (${nb.distance.metric}): ${nb.reaction} [${nb.equation}]`,
+      `nearest boundary in the plane: ${pair(nb)}, ${nb.distance.value.toFixed(1)} mV away at pH ${nb.at.pH.toFixed(3)}, E ${nb.at.E.toFixed(4)} V vs SHE (${nb.distance.metric}): ${reactionForPeople(nb.reaction)} [${nb.equation}]`,
     );
   }
-  if (r.warnings.length) lines.push('warnings:', ...r.warnings.map((w) => `  ${w}`));
+  if (r.warnings.length) lines.push('warnings:', ...r.warnings.map((w) => `  ${textForPeople(w)}`));
   lines.push('Equilibrium thermodynamics only — not kinetics; follow the applicable codes and a qualified corrosion professional.');
   return `${lines.join('\n')}\n`;
 }

@@ -2,6 +2,7 @@
  * The report as one self-contained HTML file: the SVG figure inlined, styles inline, no scripts and
  * no external resources (a Content-Security-Policy forbids loading any). All text is escaped.
  */
+import { reportForPeople } from './people.js';
 import { esc } from '../render/svg.js';
 import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
@@ -34,7 +35,8 @@ export function inlineSvg(svg: string): string {
   return svg.replace(/^<\?xml[^>]*>\s*/, '').replace(/ xmlns="http:\/\/www\.w3\.org\/2000\/svg"/, '').trim();
 }
 
-export function reportHtml(d: ReportData, svg: string, caption: string[]): string {
+export function reportHtml(data: ReportData, svg: string, caption: string[]): string {
+  const d = reportForPeople(data);
   const o: string[] = [];
   o.push('<!DOCTYPE html>');
   o.push('<html lang="en">');

@@ -2,12 +2,14 @@
  * The report as Markdown (GitHub-flavoured tables). The figure is a separate SVG file written next
  * to the document and linked by its bare file name. All user text is escaped.
  */
+import { reportForPeople } from './people.js';
 import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
 import { fmtCelsius, fmtNum, fmtSigned, mdCode, mdEsc, mdTable } from './format.js';
 
-export function reportMarkdown(d: ReportData, figureFile: string, caption: string[]): string {
+export function reportMarkdown(data: ReportData, figureFile: string, caption: string[]): string {
+  const d = reportForPeople(data);
   const out: string[] = [];
   const para = (s: string) => out.push(s, '');
   para(`# ${mdEsc(d.title)}`);

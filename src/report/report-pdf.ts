@@ -4,6 +4,7 @@
  * accepted in its place. Reproducible: the creation date is fixed, so the same input gives the
  * same bytes.
  */
+import { reportForPeople } from './people.js';
 import { shortSource } from './format.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
 import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
@@ -107,7 +108,8 @@ export function isScene(f: Scene | Uint8Array): f is Scene {
  * Renders the report. `figure` is the figure's scene (drawn as vectors; preferred) or a PNG of it;
  * `figureMm` its physical size. The figure is scaled down only when wider than the text column.
  */
-export async function reportPdf(d: ReportData, figure: Scene | Uint8Array, figureMm: { width: number; height: number }, caption: string[]): Promise<Buffer> {
+export async function reportPdf(data: ReportData, figure: Scene | Uint8Array, figureMm: { width: number; height: number }, caption: string[]): Promise<Buffer> {
+  const d = reportForPeople(data);
   const { default: PDFDocument } = await import('pdfkit');
   const doc = new PDFDocument({
     size: 'A4',

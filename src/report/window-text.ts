@@ -4,6 +4,7 @@
  */
 import type { WindowResult } from '../analysis/window.js';
 import type { ScaledWindowResult } from '../analysis/window-scale.js';
+import { formulaForPeople as fp, textForPeople } from '../chem/present.js';
 import type { DiagramModel } from '../model.js';
 import { elementAmountText, ligandAmountTexts } from './format.js';
 import { table } from './table.js';
@@ -28,21 +29,21 @@ export function windowText(r: WindowResult | ScaledWindowResult, head: string): 
   const v = (x: number) => `${x >= 0 ? '+' : ''}${x.toFixed(3)}`;
   const scale = 'reference' in r ? r.reference.label : 'SHE';
   const onScale = (p: { E: number; Eref?: number }) => p.Eref ?? p.E;
-  const warn = r.warnings.length ? `warnings:\n${r.warnings.map((w) => `  ${w}`).join('\n')}\n` : '';
+  const warn = r.warnings.length ? `warnings:\n${r.warnings.map((w) => `  ${textForPeople(w)}`).join('\n')}\n` : '';
   if (!r.windows.length) {
-    const why = r.notes.filter((n) => n.startsWith('No window')).join('\n');
+    const why = r.notes.filter((n) => n.startsWith('No window')).map(textForPeople).join('\n');
     return `${head}\nNo pH range in the diagram where a dissolved form of ${r.element} lies directly above the metal.\n${why.replace(/^No window: /, 'Why: ')}\n${warn}`;
   }
   const rows = r.windows.map((w) => [
     `${w.pH[0].toFixed(2)}–${w.pH[1].toFixed(2)}`,
-    w.dissolved.join(', '),
+    w.dissolved.map(fp).join(', '),
     `${v(onScale(w.deposition[0]))} … ${v(onScale(w.deposition[w.deposition.length - 1]))}`,
     // The margin's range over the window (its least value may lie inside it, e.g. at a ligand's
     // pKa where E_dep turns), not its values at the ends: the same figures as the margin note.
     `${v(w.marginToHydrogen.min)} … ${v(w.marginToHydrogen.max)}`,
-    `${w.boundedBy.low ?? 'edge'} / ${w.boundedBy.high ?? 'edge'}`,
+    `${w.boundedBy.low == null ? 'edge' : fp(w.boundedBy.low)} / ${w.boundedBy.high == null ? 'edge' : fp(w.boundedBy.high)}`,
   ]);
-  const t = table(['pH range', 'dissolved form', `E_dep at ends / V vs ${scale}`, 'E_dep − E(H2) min … max / V', 'bounded by (low / high pH)'], rows);
-  const fs = r.firstSolid ? `First solid above the window: ${r.firstSolid.species} from pH ${r.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.';
-  return `${head}\n\n${t}\n\n${fs}\n${r.notes.map((n) => `Note: ${n}`).join('\n')}\nEquilibrium thermodynamics only — not kinetics; check against the bath supplier's data and a qualified plating professional.\n${warn}`;
+  const t = table(['pH range', 'dissolved form', `E_dep at ends / V vs ${scale}`, 'E_dep − E(H₂) min … max / V', 'bounded by (low / high pH)'], rows);
+  const fs = r.firstSolid ? `First solid above the window: ${fp(r.firstSolid.species)} from pH ${r.firstSolid.pH.toFixed(2)}.` : 'No solid appears above the window within the diagram.';
+  return `${head}\n\n${t}\n\n${fs}\n${r.notes.map((n) => `Note: ${textForPeople(n)}`).join('\n')}\nEquilibrium thermodynamics only — not kinetics; check against the bath supplier's data and a qualified plating professional.\n${warn}`;
 }

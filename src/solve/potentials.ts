@@ -8,9 +8,9 @@
  *   Φ_i(pH, E) = μ_i − o·μ(H2O) + (2o − h)·μ(H+) + (2o − h + z)·μ(e−)        [J/mol]
  * a plane in (pH, E); ψ_i = (Φ_i − Σ_L k_L·μ_L)/x. Units: J/mol of species (Φ), J per mol of
  * M atoms (ψ). Valid wherever the species data are (0–300 °C for the built-in library).
- * Worked example: Fe+2 at a = 1e-6, 25 °C, ΔfG° = −78.90 kJ/mol: Φ = −78900 + RT ln 1e-6
- * + 2·(−F·E) = −113148 − 192971·E J/mol; Fe(s) has Φ = 0, so Φ(Fe+2) = Φ(Fe) at
- * E = −0.58635 V, the Fe+2/Fe line at 1e-6.
+ * Worked example: Fe²⁺ at a = 1e-6, 25 °C, ΔfG° = −78.90 kJ/mol: Φ = −78900 + RT ln 1e-6
+ * + 2·(−F·E) = −113148 − 192971·E J/mol; Fe(s) has Φ = 0, so Φ(Fe²⁺) = Φ(Fe) at
+ * E = −0.58635 V, the Fe²⁺/Fe line at 1e-6.
  */
 import { F, LN10, R } from '../thermo/constants.js';
 import type { Plane } from './plane.js';

@@ -12,6 +12,7 @@
  * H2O, H+ and e− cancel by the balances. E = E° − (m/n)·s·pH + (s/n)·Σν log a, s = ln10·RT/F;
  * a no-electron line is pH = const.
  */
+import { reactionAscii } from '../chem/reaction-text.js';
 import { lineEquationText } from '../diagram/line-text.js';
 import type { LineCoefficients } from '../model.js';
 import { LN10, R } from '../thermo/constants.js';
@@ -110,29 +111,17 @@ export function lineFrom(phi: Plane, phi0: Plane, n: number, m: number, kelvin: 
   return { kind: 'pH', value: -phi.g / phi.p || 0, logK: -phi0.g / (R * kelvin * LN10) || 0, n, m };
 }
 
-function phaseTag(formula: string, phase: string): string {
-  if (phase === 's' || phase === 'l' || phase === 'g') return `${formula}(${phase})`;
-  return /[+-]\d*$/.test(formula) ? formula : `${formula}(aq)`;
-}
-
+/**
+ * The reaction as text in the canonical ASCII notation (JSON's form, chem/reaction-text.ts):
+ * "Fe^2+ + 2e^- <=> Fe(s)"; text for people re-spells it with reactionForPeople ("Fe²⁺ + 2e⁻ ⇌ Fe(s)").
+ */
 export function reactionText(
   terms: { formula: string; phase: string; nu: number }[],
   water: number,
   protons: number,
   electrons: number,
 ): string {
-  const left: string[] = [];
-  const right: string[] = [];
-  const put = (nu: number, name: string) => {
-    if (nu === 0) return;
-    const c = Math.abs(nu) === 1 ? '' : String(Math.abs(nu));
-    (nu < 0 ? left : right).push(c + name);
-  };
-  for (const t of terms) put(t.nu, phaseTag(t.formula, t.phase));
-  put(protons, 'H+');
-  put(electrons, 'e-');
-  put(water, 'H2O(l)');
-  return `${left.join(' + ')} = ${right.join(' + ')}`;
+  return reactionAscii(terms, water, protons, electrons);
 }
 
 function sum(a: number[]): number {

@@ -257,8 +257,8 @@ export function waterLines(input: SolverInput): { hydrogen: WaterLine; oxygen: W
     return { reaction, equation: lineEquationText(line), line, points: pts };
   };
   return {
-    hydrogen: mk(h, h0, 2, 2, '2H+ + 2e- = H2(g)'),
-    oxygen: mk(o, o0, 4, 4, 'O2(g) + 4H+ + 4e- = 2H2O(l)'),
+    hydrogen: mk(h, h0, 2, 2, '2H^+ + 2e^- <=> H2(g)'),
+    oxygen: mk(o, o0, 4, 4, 'O2(g) + 4H^+ + 4e^- <=> 2H2O(l)'),
   };
 }
 

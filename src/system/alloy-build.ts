@@ -19,6 +19,7 @@ import { findSpecies, type LibrarySpecies, loadLibrary, pickAlternative } from '
 import type { AlloyInput } from '../solve/alloy/types.js';
 import type { SolverSpecies } from '../solve/types.js';
 import { splitPhase } from '../chem/formula.js';
+import { formulaMatches } from '../chem/match.js';
 import { KELVIN } from '../thermo/constants.js';
 import type { AlloySpec } from './alloy-spec.js';
 import { type BuiltSystem, buildSystem, collapseCpWarnings, fromLibrary, gAt, groupElements } from './build.js';
@@ -109,7 +110,7 @@ function mixedSpecies(spec: AlloySpec, water: BuiltSystem['solution']['water'], 
 /** Step 3: does an `exclude` entry name this species? */
 function excluded(ex: string, s: SolverSpecies): boolean {
   const { formula, phase } = splitPhase(ex);
-  return (s.formula === formula && (!phase || phase === s.phase)) || s.name === ex;
+  return (formulaMatches(formula, s.formula) && (!phase || phase === s.phase)) || s.name === ex;
 }
 
 export function buildAlloySystem(spec: AlloySpec): BuiltAlloy {

@@ -3,7 +3,8 @@
  * the library's set for the element and ligands), check their composition, carry their data to T
  * and attach the activities used.
  */
-import { type Formula, parseFormula, splitPhase } from '../chem/formula.js';
+import { type Formula, formulaAscii, parseFormula, splitPhase } from '../chem/formula.js';
+import { formulaMatches } from '../chem/match.js';
 import { LIGAND_DEFAULTS } from '../data/ligand-sets.js';
 import { type LibrarySpecies, findSpecies, loadLibrary, pickAlternative, speciesFor } from '../data/library.js';
 import type { Phase } from '../model.js';
@@ -88,7 +89,7 @@ function applyExclusions(spec: SystemSpec, list0: ResolvedSpecies[], lib: readon
   for (const ex of spec.exclude) {
     const { formula, phase } = splitPhase(ex);
     const before = list.length;
-    list = list.filter((s) => !((s.formula === formula && (!phase || phase === s.phase)) || s.name === ex));
+    list = list.filter((s) => !((formulaMatches(formula, s.formula) && (!phase || phase === s.phase)) || s.name === ex));
     if (list.length === before) {
       // A known species that is simply not in this system (e.g. a metastable phase) is harmless;
       // a name that matches nothing anywhere is most likely a typing error.
@@ -129,7 +130,8 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
       } else {
         r = { ...s, dfG: s.dfG!, f: parseFormula(s.formula) };
       }
-      const key = `${r.formula}|${r.phase}`;
+      // The same species however it is spelled (Fe+2 inline, Fe^2+ from the library).
+      const key = `${formulaAscii(r.f.text)}|${r.phase}`;
       const first = seen.get(key);
       const given = `${s.field} (${s.fromLibrary ? JSON.stringify(s.fromLibrary) : 'inline'})`;
       if (first !== undefined) {
@@ -162,7 +164,7 @@ export function resolveSpecies(spec: SystemSpec, warnings: string[] = []): { mai
   list = applyExclusions(spec, list, lib, warnings);
   // Alternatives from other compilations.
   for (const [formula, id] of Object.entries(spec.pick)) {
-    const k = list.findIndex((s) => s.formula === splitPhase(formula).formula);
+    const k = list.findIndex((s) => formulaMatches(splitPhase(formula).formula, s.formula) && (!splitPhase(formula).phase || splitPhase(formula).phase === s.phase));
     if (k < 0) throw new InputError(spec.file, `pick.${formula}`, 'a formula of a species in the system', JSON.stringify(formula));
     const hit = findSpecies(lib, formula);
     let alt: LibrarySpecies | undefined;
@@ -194,9 +196,9 @@ function keepLigandSpecies(spec: SystemSpec, s: ResolvedSpecies): boolean {
   if (!L) return true;
   const choice = spec.ligandSpecies[L];
   if (choice === 'all') return true;
-  if (Array.isArray(choice)) return choice.some((x) => splitPhase(x).formula === s.formula && (!splitPhase(x).phase || splitPhase(x).phase === s.phase));
+  if (Array.isArray(choice)) return choice.some((x) => formulaMatches(splitPhase(x).formula, s.formula) && (!splitPhase(x).phase || splitPhase(x).phase === s.phase));
   const def = LIGAND_DEFAULTS[L];
-  return def ? s.phase === 'aq' && def.species.includes(s.formula) : true;
+  return def ? s.phase === 'aq' && def.species.some((x) => formulaMatches(x, s.formula)) : true;
 }
 
 /**

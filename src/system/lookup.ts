@@ -3,6 +3,7 @@
  * system file's inline species (with data) in front of it.
  */
 import { parseFormula, type Phase } from '../chem/formula.js';
+import { formulaMatches } from '../chem/match.js';
 import { findAllSpecies, loadLibrary } from '../data/library.js';
 import type { SpeciesLookup } from '../thermo/cell.js';
 import type { SpeciesAtT } from '../thermo/cell-energies.js';
@@ -64,7 +65,7 @@ export function fileLookup(path: string, fallback: SpeciesLookup): SpeciesLookup
   const spec = readSpec(readSystemFile(path), path);
   const inline = (spec.species ?? []).filter((x) => !x.fromLibrary && x.dfG !== undefined);
   return (formula, phase) => {
-    const hit = inline.find((x) => x.formula === formula && (phase === undefined || x.phase === phase));
+    const hit = inline.find((x) => formulaMatches(formula, x.formula) && (phase === undefined || x.phase === phase));
     if (!hit) return fallback(formula, phase);
     const f = parseFormula(hit.formula);
     return {

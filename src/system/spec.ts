@@ -269,7 +269,7 @@ function readSpecies(f: Fields, raw: unknown, field: string, warnings: string[])
     return { formula: name, phase: 'aq', field, fromLibrary: name };
   }
   const o = f.object(raw, field, SPECIES_KEYS);
-  const formula = f.string(o.formula, `${field}.formula`, 'a formula such as "Fe+2" or "Fe2O3"', 100);
+  const formula = f.string(o.formula, `${field}.formula`, 'a formula such as "Fe^2+" or "Fe2O3"', 100);
   try {
     parseFormula(formula);
   } catch (e) {

@@ -67,7 +67,7 @@ export interface CellOptions {
   electrons?: number;
   /** 'best' (default: each species' own model), 'cp' or 'constant-h-s' (cell-energies.ts). */
   extrapolation?: CellExtrapolation;
-  /** Activities (gases: pressures in bar) by species as written, e.g. {"Fe+2": 1e-6}; others at 1. */
+  /** Activities (gases: pressures in bar) by species as written, e.g. {"Fe^2+": 1e-6} (any notation); others at 1. */
   activities?: Record<string, number>;
   /** Also give the half-reaction potentials against this reference electrode. */
   reference?: string | CustomReference;

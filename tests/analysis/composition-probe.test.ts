@@ -49,10 +49,10 @@ describe('copper ammonia bath: 0.5 mol/kg Cu, 1 mol/kg NH3', () => {
     expect(j.predominant).toBe('CuO');
     expect(j.verdict).toBe('passivation');
     expect(j.solids.map((s) => s.species)).toEqual(['CuO']);
-    expect(m(j, 'Cu(NH3)4+2')).toBeLessThanOrEqual(0.25);
+    expect(m(j, 'Cu(NH3)4^2+')).toBeLessThanOrEqual(0.25);
     // Mass balances: copper in solution and solid = 0.5, nitrogen = 1 (stoichiometry).
     const cuIn = (f: string) => (f.includes('Cu') ? 1 : 0); // one Cu atom in every dissolved form
-    const nIn = (f: string) => (f === 'NH3' || f === 'NH4+' ? 1 : Number(/\(NH3\)(\d?)/.exec(f)?.[1] || (f.includes('NH3') ? 1 : 0)));
+    const nIn = (f: string) => (f === 'NH3' || f === 'NH4^+' ? 1 : Number(/\(NH3\)(\d?)/.exec(f)?.[1] || (f.includes('NH3') ? 1 : 0)));
     const cuTotal = j.speciation.reduce((a, s) => a + cuIn(s.species) * s.molality, 0) + j.solids[0].amount;
     const nTotal = j.speciation.reduce((a, s) => a + nIn(s.species) * s.molality, 0);
     expect(cuTotal).toBeCloseTo(0.5, 9);
@@ -67,10 +67,10 @@ describe('copper ammonia bath: 0.5 mol/kg Cu, 1 mol/kg NH3', () => {
     expect(r.stdout).toMatch(/verdict: PASSIVATION — CuO holds the largest share/);
     expect(r.stdout).toMatch(/total dissolved 0\.07\d+ mol\/kg, above the corrosion threshold 1\.000e-6 mol\/kg/);
     expect(r.stdout).toContain('the bath as made up');
-    for (const sp of ['Cu(NH3)4+2', 'NH3', 'NH4+', 'CuO (solid)']) expect(r.stdout).toContain(sp);
+    for (const sp of ['Cu(NH₃)₄²⁺', 'NH₃', 'NH₄⁺', 'CuO (solid)']) expect(r.stdout).toContain(sp);
     expect(r.stdout).toMatch(/share of Cu\s+share of N/);
     expect(r.stdout).toMatch(/free N \(not bound to the element\): /);
-    expect(r.stdout).toMatch(/saturation indices of solids not formed .*Cu2O\(s\) -/);
+    expect(r.stdout).toMatch(/saturation indices of solids not formed .*Cu₂O\(s\) -/);
   });
 });
 
@@ -79,24 +79,24 @@ describe('silver cyanide bath: 0.2 mol/kg Ag, 0.6 mol/kg CN', () => {
   const G = (f: string) => findSpecies(lib, f)!.dfG * 1000;
   const rt = R * 298.15 * LN10;
   const rows: Row[] = [
-    { system: 'Ag-CN', complex: 'HCN', metal: 'H+', ligand: 'CN-', n: 1, j: 0, logbeta: (G('CN-') - G('HCN')) / rt },
-    { system: 'Ag-CN', complex: 'Ag(CN)2-', metal: 'Ag+', ligand: 'CN-', n: 2, j: 0, logbeta: (G('Ag+') + 2 * G('CN-') - G('Ag(CN)2-')) / rt },
-    { system: 'Ag-CN', complex: 'Ag(CN)3-2', metal: 'Ag+', ligand: 'CN-', n: 3, j: 0, logbeta: (G('Ag+') + 3 * G('CN-') - G('Ag(CN)3-2')) / rt },
+    { system: 'Ag-CN', complex: 'HCN', metal: 'H^+', ligand: 'CN^-', n: 1, j: 0, logbeta: (G('CN^-') - G('HCN')) / rt },
+    { system: 'Ag-CN', complex: 'Ag(CN)2^-', metal: 'Ag^+', ligand: 'CN^-', n: 2, j: 0, logbeta: (G('Ag^+') + 2 * G('CN^-') - G('Ag(CN)2^-')) / rt },
+    { system: 'Ag-CN', complex: 'Ag(CN)3^2-', metal: 'Ag^+', ligand: 'CN^-', n: 3, j: 0, logbeta: (G('Ag^+') + 3 * G('CN^-') - G('Ag(CN)3^2-')) / rt },
   ];
   test('pH 12, E = 0: JSON speciation equals the bisection solver (free CN-, both complexes); no solids; corrosion', async () => {
     const j = await probeJson(ag, 12, 0);
     const ref = bisectionSpeciation(rows, 0.2, 0.6, 12);
-    expect(j.predominant).toBe('Ag(CN)2-');
+    expect(j.predominant).toBe('Ag(CN)2^-');
     expect(j.verdict).toBe('corrosion');
     expect(j.solids).toEqual([]);
-    expect(Math.abs(m(j, 'CN-') / ref.L - 1)).toBeLessThan(1e-6);
-    expect(Math.abs(m(j, 'Ag(CN)2-') / (0.2 * ref.shares['Ag(CN)2-']) - 1)).toBeLessThan(1e-6);
-    expect(Math.abs(m(j, 'Ag(CN)3-2') / (0.2 * ref.shares['Ag(CN)3-2']) - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(m(j, 'CN^-') / ref.L - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(m(j, 'Ag(CN)2^-') / (0.2 * ref.shares['Ag(CN)2^-']) - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(m(j, 'Ag(CN)3^2-') / (0.2 * ref.shares['Ag(CN)3^2-']) - 1)).toBeLessThan(1e-6);
     expect(j.dissolved).toBeCloseTo(0.2, 12);
     // Ideal solution (the default): activity = molality for every species.
     for (const s of j.speciation) expect(s.activity).toBe(s.molality);
     // Every dissolved species of the problem is listed.
-    expect(j.speciation.map((s) => s.species).sort()).toEqual(['Ag(CN)2-', 'Ag(CN)3-2', 'Ag(OH)2-', 'Ag+', 'AgOH', 'CN-', 'HCN']);
+    expect(j.speciation.map((s) => s.species).sort()).toEqual(['Ag(CN)2^-', 'Ag(CN)3^2-', 'Ag(OH)2^-', 'Ag^+', 'AgOH', 'CN^-', 'HCN'].sort());
   });
   test('pH 12, −0.5 V: the metal holds most of the silver (immunity) and is listed as a solid with its amount', async () => {
     const j = await probeJson(ag, 12, -0.5);
@@ -138,7 +138,7 @@ describe('probe --points in composition mode', () => {
     // The carried column first (neutralised), then ours, the error column last.
     expect(lines[0]).toBe('time,line,pH,potential,scale,E_SHE_V,temperature_C,status,predominant,verdict,dissolved_mol_per_kg,threshold_mol_per_kg,reason,warnings,error');
     // All 0.2 mol/kg Ag dissolved as Ag(CN)2- at pH 12, 0 V (the mass balance); the default threshold 1e-6.
-    expect(lines[1]).toMatch(/^'=cmd,2,12,0,SHE,0,25,ok,Ag\(CN\)2-,corrosion,0\.2,0\.000001,,[^,]*,$/);
+    expect(lines[1]).toMatch(/^'=cmd,2,12,0,SHE,0,25,ok,Ag\(CN\)2\^-,corrosion,0\.2,0\.000001,,[^,]*,$/);
     expect(lines[2]).toMatch(/^t2,3,12,-0\.5,SHE,-0\.5,25,ok,Ag,immunity,0\.035\d*,0\.000001,,[^,]*,$/);
     expect(lines).toHaveLength(4);
   });

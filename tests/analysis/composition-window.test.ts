@@ -31,7 +31,7 @@ describe('silver cyanide bath (0.2 mol/kg Ag, 0.6 mol/kg CN)', () => {
     expect(r.basis).toBe('the bath as made up');
     expect(r.windows).toHaveLength(1);
     const w = r.windows[0];
-    expect(w.dissolved).toEqual(['Ag(CN)2-', 'Ag(CN)3-2']);
+    expect(w.dissolved).toEqual(['Ag(CN)2^-', 'Ag(CN)3^2-']);
     expect(w.boundedBy.low).toBe('AgCN');
     expect(w.pH[0]).toBeGreaterThan(4);
     expect(w.pH[0]).toBeLessThan(4.6);
@@ -39,20 +39,20 @@ describe('silver cyanide bath (0.2 mol/kg Ag, 0.6 mol/kg CN)', () => {
   });
   test('E_dep at pH 12 is the hand Nernst of Ag(CN)3-2/Ag with the free cyanide of the mass balance, within 0.5 mV', () => {
     const rows: Row[] = [
-      { system: 'Ag-CN', complex: 'HCN', metal: 'H+', ligand: 'CN-', n: 1, j: 0, logbeta: (G('CN-') - G('HCN')) / rt },
-      { system: 'Ag-CN', complex: 'Ag(CN)2-', metal: 'Ag+', ligand: 'CN-', n: 2, j: 0, logbeta: (G('Ag+') + 2 * G('CN-') - G('Ag(CN)2-')) / rt },
-      { system: 'Ag-CN', complex: 'Ag(CN)3-2', metal: 'Ag+', ligand: 'CN-', n: 3, j: 0, logbeta: (G('Ag+') + 3 * G('CN-') - G('Ag(CN)3-2')) / rt },
+      { system: 'Ag-CN', complex: 'HCN', metal: 'H^+', ligand: 'CN^-', n: 1, j: 0, logbeta: (G('CN^-') - G('HCN')) / rt },
+      { system: 'Ag-CN', complex: 'Ag(CN)2^-', metal: 'Ag^+', ligand: 'CN^-', n: 2, j: 0, logbeta: (G('Ag^+') + 2 * G('CN^-') - G('Ag(CN)2^-')) / rt },
+      { system: 'Ag-CN', complex: 'Ag(CN)3^2-', metal: 'Ag^+', ligand: 'CN^-', n: 3, j: 0, logbeta: (G('Ag^+') + 3 * G('CN^-') - G('Ag(CN)3^2-')) / rt },
     ];
     // Equal shares of metal and Ag(CN)3-2: dissolved D with D·(1 + s3(D)) = 0.2.
     let lo = 0.1;
     let hi = 0.2;
     for (let k = 0; k < 100; k++) {
       const D = 0.5 * (lo + hi);
-      if (D * (1 + bisectionSpeciation(rows, D, 0.6, 12).shares['Ag(CN)3-2']) > 0.2) hi = D;
+      if (D * (1 + bisectionSpeciation(rows, D, 0.6, 12).shares['Ag(CN)3^2-']) > 0.2) hi = D;
       else lo = D;
     }
     const ref = bisectionSpeciation(rows, lo, 0.6, 12);
-    const hand = -(3 * G('CN-') - G('Ag(CN)3-2')) / F + s * Math.log10((lo * ref.shares['Ag(CN)3-2']) / ref.L ** 3);
+    const hand = -(3 * G('CN^-') - G('Ag(CN)3^2-')) / F + s * Math.log10((lo * ref.shares['Ag(CN)3^2-']) / ref.L ** 3);
     expect(Math.abs(depAt(r.windows[0].deposition, 12) - hand)).toBeLessThan(5e-4);
   });
 });
@@ -60,13 +60,13 @@ describe('silver cyanide bath (0.2 mol/kg Ag, 0.6 mol/kg CN)', () => {
 describe('copper ammonia bath (0.5 mol/kg Cu, 1 mol/kg NH3)', () => {
   const { result: r } = compositionWindow(readSpec({ element: 'Cu', composition: { Cu: 0.5, N: 1 } }, 'cu.yaml'));
   test('Cu(NH3)4+2 is in no window: it cannot hold the copper (1 mol/kg NH3 binds at most 0.25 mol/kg of it)', () => {
-    for (const w of r.windows) expect(w.dissolved).not.toContain('Cu(NH3)4+2');
+    for (const w of r.windows) expect(w.dissolved).not.toContain('Cu(NH3)4^2+');
   });
   test('acid window: E_dep = E°(Cu+2/Cu) + (RT ln10 / 2F) log10 0.25 (half the copper dissolved), within 0.5 mV', () => {
     const w = r.windows[0];
-    expect(w.dissolved).toEqual(['Cu+2']);
+    expect(w.dissolved).toEqual(['Cu^2+']);
     expect(w.pH[0]).toBe(0);
-    const hand = G('Cu+2') / (2 * F) + (s / 2) * Math.log10(0.25);
+    const hand = G('Cu^2+') / (2 * F) + (s / 2) * Math.log10(0.25);
     expect(Math.abs(depAt(w.deposition, 1) - hand)).toBeLessThan(5e-4);
   });
 });
@@ -78,7 +78,7 @@ describe('CLI', () => {
     const t = await runCli(['window', ag]);
     expect(t.code, t.stderr).toBe(0);
     expect(t.stdout).toMatch(/^Plating window for Ag at 25 °C, the bath as made up \(totals Ag 0\.2, CN 0\.6 mol\/kg\)/);
-    expect(t.stdout).toContain('Ag(CN)2-, Ag(CN)3-2');
+    expect(t.stdout).toContain('Ag(CN)₂⁻, Ag(CN)₃²⁻');
     const j = JSON.parse((await runCli(['window', ag, '--json'])).stdout);
     expect(j.basis).toBe('the bath as made up');
     expect(j.totals).toEqual({ Ag: 0.2, CN: 0.6 });

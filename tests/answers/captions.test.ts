@@ -16,7 +16,7 @@ import { layerLabel } from '../../src/figure/overlay.js';
 describe('the element amount as computed', () => {
   const c = compute(readSpec({ element: 'Ni', concentration: 1.3 }, 'ni.yaml'));
   it('uses 1.3 mol/kg and says so everywhere (not the default 1e-6)', () => {
-    expect(c.model.species.find((s) => s.formula === 'Ni+2')!.molality).toBe(1.3);
+    expect(c.model.species.find((s) => s.formula === 'Ni^2+')!.molality).toBe(1.3);
     expect(c.model.activity).toBe(1.3);
     expect(captionLines(c)[0]).toContain('dissolved Ni 1.3 mol/kg');
     expect(captionLines(c).join(' ')).not.toMatch(/10⁻⁶|1e-6/);

@@ -10,7 +10,7 @@ import { lineRows, linesText } from '../../src/report/lines.js';
 
 describe('lines: disjoint segments', () => {
   const c = compute(readSpec({ element: 'Cu', ligands: { N: 1e-2 }, pH: [6, 13] }, 'cu.yaml'));
-  const complex = c.model.regions.find((r) => r.species === 'Cu(NH3)2+')!;
+  const complex = c.model.regions.find((r) => r.species === 'Cu(NH3)2^+')!;
   const xs = complex.polygons.flat(2).map((p) => p[0]);
   const [lo, hi] = [Math.min(...xs), Math.max(...xs)];
   it('gives Cu/Cu2O as separate rows that skip the pH span where Cu(NH3)2+ borders Cu', () => {
@@ -24,7 +24,7 @@ describe('lines: disjoint segments', () => {
     expect(rows[rows.length - 1].pHRange[1]).toBeCloseTo(13, 6);
   });
   it('prints one line per segment', () => {
-    const t = linesText(c.model).split('\n').filter((l) => /^Cu \/ Cu2O /.test(l));
+    const t = linesText(c.model).split('\n').filter((l) => /^Cu \/ Cu₂O /.test(l));
     expect(t.length).toBeGreaterThan(1);
     expect(t.join('\n')).not.toContain('6.00–13.00');
   });

@@ -32,13 +32,13 @@ describe('carbonate plus ammonia is not cyanide', () => {
 
   it('keeps the cyanide complexes when the file declares the CN group', () => {
     const c = compute(readSpec({ element: 'Fe', ligands: { CN: 1.0e-4 } }, 'fe.yaml'));
-    expect(c.built.input.species.some((s) => s.formula === 'Fe(CN)6-4')).toBe(true);
+    expect(c.built.input.species.some((s) => s.formula === 'Fe(CN)6^4-')).toBe(true);
   });
 
   it('keeps them when every ligand they hold has ligandSpecies: all', () => {
     const { c } = at('Fe', { ligandSpecies: { C: 'all', N: 'all' } });
-    expect(c.built.input.species.some((s) => s.formula === 'Fe(CN)6-4')).toBe(true);
+    expect(c.built.input.species.some((s) => s.formula === 'Fe(CN)6^4-')).toBe(true);
     const half = at('Fe', { ligandSpecies: { C: 'all' } });
-    expect(half.c.built.input.species.some((s) => s.formula === 'Fe(CN)6-4')).toBe(false);
+    expect(half.c.built.input.species.some((s) => s.formula === 'Fe(CN)6^4-')).toBe(false);
   });
 });

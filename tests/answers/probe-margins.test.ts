@@ -34,7 +34,7 @@ describe('probe distances: one definition per name', () => {
   it('nearest boundary: plane distance on the Nernst scale, with the point reached, not mislabelled', () => {
     const nb = r.nearestBoundary!;
     expect(nb).not.toHaveProperty('distanceMV');
-    expect(nb.between.slice().sort()).toEqual(['Cu+2', 'CuO']);
+    expect(nb.between.slice().sort()).toEqual(['CuO', 'Cu^2+']);
     expect(nb.at.pH).toBeCloseTo(6.674, 1);
     // Horizontal offset 0.674 pH × 59.16 mV per pH (the Nernst slope at 25 °C).
     expect(nb.distance.value).toBeCloseTo((nb.at.pH - 6) * 59.16, 0);
@@ -42,10 +42,10 @@ describe('probe distances: one definition per name', () => {
   });
   it('names the same boundary the same way in the distance lines, the crossings and the nearest boundary', () => {
     const t = probeText(r);
-    expect(t).toMatch(/horizontal distance \(change of pH at this potential\): \+0\.674 pH to the boundary at higher pH \(Cu\+2 \/ CuO\)/);
-    expect(t).toMatch(/raise pH .* across Cu\+2 \/ CuO/);
-    expect(t).toMatch(/nearest boundary in the plane: Cu\+2 \/ CuO/);
-    expect(r.crossings.raisePH!.between.slice().sort()).toEqual(['Cu+2', 'CuO']);
+    expect(t).toMatch(/horizontal distance \(change of pH at this potential\): \+0\.674 pH to the boundary at higher pH \(Cu²⁺ \/ CuO\)/);
+    expect(t).toMatch(/raise pH .* across Cu²⁺ \/ CuO/);
+    expect(t).toMatch(/nearest boundary in the plane: Cu²⁺ \/ CuO/);
+    expect(r.crossings.raisePH!.between.slice().sort()).toEqual(['CuO', 'Cu^2+']);
   });
   it('the vertical distance is the nearer of the boundaries above and below', () => {
     const fe = probe(compute(readSpec({ element: 'Fe' }, 'fe.yaml')), 8, 0.016);

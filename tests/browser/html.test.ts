@@ -80,7 +80,7 @@ describe.skipIf(!haveChromium)('interactive HTML in Chromium', () => {
     expect(t).toContain('pH 2.00, E = \u22120.900 V vs SHE');
     expect(t).toMatch(/Fe \(iron[^)]*\)\): immunity|Fe: immunity/);
     expect(t).toContain('Nearest boundary Fe / Fe\u00b2\u207a');
-    expect(t).toContain('Fe\u00b2\u207a + 2e\u207b = Fe(s)');
+    expect(t).toContain('Fe\u00b2\u207a + 2e\u207b \u21cc Fe(s)');
   });
 
   it('reads Fe²⁺, corrosion, at pH 4 and 0 V', async () => {

@@ -143,12 +143,12 @@ describe('splitPhase', () => {
 
 describe('formulaWarnings', () => {
   it.each([
-    ['Fe2+', 'Fe+2'],
-    ['Fe3+', 'Fe+3'],
-    ['Cu2+', 'Cu+2'],
-    ['SO42-', 'SO4-2'],
-    ['Cu(NH3)42+', 'Cu(NH3)4+2'],
-    ['Fe2+(aq)', 'Fe+2'],
+    ['Fe2+', 'Fe^2+'],
+    ['Fe3+', 'Fe^3+'],
+    ['Cu2+', 'Cu^2+'],
+    ['SO42-', 'SO4^2-'],
+    ['Cu(NH3)42+', 'Cu(NH3)4^2+'],
+    ['Fe2+(aq)', 'Fe^2+'],
   ])('%s suggests %s', (text, suggestion) => {
     const w = formulaWarnings(text);
     expect(w).toHaveLength(1);

@@ -69,9 +69,9 @@ describe('hydroxoName: worked examples', () => {
 
 describe('hydroxoName over the species library', () => {
   const root = fileURLToPath(new URL('../../', import.meta.url));
-  const rows: { formula: string; name: string }[] = [];
+  const rows: { formula: string; name: string; aliases?: string[] }[] = [];
   for (const file of readdirSync(join(root, 'species')).filter((f) => f.endsWith('.json')).sort()) {
-    const data = JSON.parse(readFileSync(join(root, 'species', file), 'utf8')) as { species: { formula: string; phase: string; name: string }[] };
+    const data = JSON.parse(readFileSync(join(root, 'species', file), 'utf8')) as { species: { formula: string; phase: string; name: string; aliases?: string[] }[] };
     for (const s of data.species) if (s.phase === 'aq') rows.push(s);
   }
   const ROMAN: Record<string, number> = { I: 1, II: 2, III: 3, IV: 4, V: 5, VI: 6, VII: 7, VIII: 8 };
@@ -88,11 +88,22 @@ describe('hydroxoName over the species library', () => {
     expect(checked).toBeGreaterThan(15);
   });
 
-  it('names every library hydroxo anion that carries an old name (-ite, cuprite, dihypo, zincate)', () => {
-    // Metal "-ite"/"-ate" anion names (non-metal oxoanions such as chlorite keep their accepted names).
-    const OLD = /^(?:hydrogen )?(?:dihypo)?(?:cobalt|cupr|mangan|nickel|plumb|stann|ferr)ite\b|^(?:hydrogen )?(?:zincate|stannate)\b/;
-    const old = rows.filter((s) => OLD.test(s.name));
-    expect(old.length).toBeGreaterThanOrEqual(10);
-    for (const s of old) expect(hydroxoName(s.formula, { hydrated: true }), s.formula).toBeDefined();
+  it('gives every library hydroxo species carrying an old name its IUPAC hydroxido name, the old name kept as an alias', () => {
+    // Metal "-ite"/"-ate" anion names and "hydroxo complex" names (non-metal oxoanions such as
+    // chlorite, and accepted oxoanion names such as chromate or permanganate, keep their names).
+    const OLD = /^(?:hydrogen )?(?:dihypo)?(?:cobalt|cupr|mangan|nickel|plumb|stann|ferr)ite\b|^(?:hydrogen )?(?:zincate|stannate)\b|hydroxo/;
+    const old = rows.filter((s) => (s.aliases ?? []).some((a) => OLD.test(a)));
+    expect(old.length).toBeGreaterThanOrEqual(20);
+    for (const s of old) {
+      expect(OLD.test(s.name), `${s.formula} "${s.name}"`).toBe(false);
+      expect(s.name, s.formula).toBe(hydroxoName(s.formula, { hydrated: true })!.name);
+    }
+    // By hand (IUPAC 2005, IR-9.2; the species is named as its fully hydroxylated form in water):
+    const named = (f: string) => rows.find((s) => s.formula === f)?.name;
+    expect(named('HFeO2^-')).toBe('trihydroxidoferrate(II)');
+    expect(named('ZnO2^2-')).toBe('tetrahydroxidozincate(II)');
+    expect(named('CuO2^2-')).toBe('tetrahydroxidocuprate(II)');
+    expect(named('FeOH^+')).toBe('hydroxidoiron(II)');
+    expect(rows.some((s) => /ite ion|hydroxo\b/.test(s.name) && /^[A-Z][a-z]?O/.test(s.formula) && !/^(Cl|N|S|C)/.test(s.formula))).toBe(false);
   });
 });

@@ -68,7 +68,7 @@ describe.each([['Fe–Cr–Ni', steel], ['Cu–Zn', brass]])('%s', (_n, file) =>
     const rows = JSON.parse(r.stdout).lines;
     expect(rows.length).toBeGreaterThan(4);
     for (const row of rows) {
-      expect(row.reaction).toContain(' = ');
+      expect(row.reaction).toContain(' <=> ');
       expect(row.equation).toMatch(/^(E|pH) = /);
     }
   });
@@ -89,7 +89,7 @@ describe.each([['Fe–Cr–Ni', steel], ['Cu–Zn', brass]])('%s', (_n, file) =>
 it('Cu–Zn probe in mildly reducing acid: Cu + Zn+2, zinc dissolves (dezincification; common practice)', async () => {
   const r = await runCli(['probe', brass, '--ph', '5', '--potential', '-0.5', '--json']);
   const p = JSON.parse(r.stdout);
-  expect(p.assemblage.map((a: { species: string }) => a.species)).toEqual(['Cu', 'Zn+2']);
+  expect(p.assemblage.map((a: { species: string }) => a.species)).toEqual(['Cu', 'Zn^2+']);
   expect(p.verdict).toBe('partly-corroding');
   expect(p.dissolving).toEqual(['Zn']);
   expect(p.assemblage[1].amount).toBeCloseTo(0.35, 12);

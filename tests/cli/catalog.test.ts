@@ -42,18 +42,18 @@ describe('library use in system files', () => {
 
   it('picking another compilation for Fe+2 moves the Fe+2/Fe line (alternatives keep their source)', async () => {
     const list = JSON.parse((await runCli(['catalog', 'Fe', '--json'])).stdout).species;
-    const fe2 = list.find((e: { formula: string }) => e.formula === 'Fe+2');
+    const fe2 = list.find((e: { formula: string }) => e.formula === 'Fe^2+');
     expect(fe2.alternatives.length).toBeGreaterThan(0);
     const alt = fe2.alternatives[0];
     const a = compute(readSpec({ element: 'Fe' }, 'a.yaml'));
-    const b = compute(readSpec({ element: 'Fe', pick: { 'Fe+2': alt.id } }, 'b.yaml'));
-    const line = (m: typeof a.model) => m.boundaries.find((x) => x.between.includes('Fe') && x.between.includes('Fe+2'))!.line.intercept!;
+    const b = compute(readSpec({ element: 'Fe', pick: { 'Fe^2+': alt.id } }, 'b.yaml'));
+    const line = (m: typeof a.model) => m.boundaries.find((x) => x.between.includes('Fe') && x.between.includes('Fe^2+'))!.line.intercept!;
     // E shift = ΔΔfG°/(2F), F = 96485.33212 C/mol (CODATA 2018).
     expect(line(b.model) - line(a.model)).toBeCloseTo(((alt.dfG - fe2.dfG) * 1000) / (2 * 96485.33212), 6);
   });
 
   it('library species by formula and by name mix with inline ones', () => {
-    const c = compute(readSpec({ element: 'Fe', species: ['Fe', 'magnetite', { formula: 'Fe+2', phase: 'aq', dfG: -78.9 }, 'Fe2O3(s)'] }, 'm.yaml'));
-    expect(c.model.regions.map((r) => r.species).sort()).toEqual(['Fe', 'Fe+2', 'Fe2O3', 'Fe3O4']);
+    const c = compute(readSpec({ element: 'Fe', species: ['Fe', 'magnetite', { formula: 'Fe^2+', phase: 'aq', dfG: -78.9 }, 'Fe2O3(s)'] }, 'm.yaml'));
+    expect(c.model.regions.map((r) => r.species).sort()).toEqual(['Fe', 'Fe2O3', 'Fe3O4', 'Fe^2+']);
   });
 });

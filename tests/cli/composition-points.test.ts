@@ -31,7 +31,7 @@ describe('probe --points on a composition file', () => {
     expect(r.stderr).toMatch(/2 of 4 rows/);
     const rows = parse(r.stdout);
     expect(rows).toHaveLength(4);
-    expect(rows[0]).toMatchObject({ tag: 'a', line: '2', status: 'ok', predominant: 'Ag(CN)2-', verdict: 'corrosion', dissolved_mol_per_kg: '0.2', error: '' });
+    expect(rows[0]).toMatchObject({ tag: 'a', line: '2', status: 'ok', predominant: 'Ag(CN)2^-', verdict: 'corrosion', dissolved_mol_per_kg: '0.2', error: '' });
     expect(rows[1]).toMatchObject({ tag: 'b', line: '3', status: '', verdict: '' });
     expect(rows[1].error).toMatch(/line 3, column 1 \(pH\): expected a decimal number, got "abc"/);
     expect(rows[2]).toMatchObject({ line: '4', status: '' });
@@ -64,7 +64,7 @@ describe('probe --points on a composition file', () => {
     expect(r.code, r.stderr).toBe(0);
     const [row] = parse(r.stdout);
     expect(r.stdout.split('\n')[0]).toMatch(/^time,operator,in_status,line,pH,potential,/);
-    expect(row).toMatchObject({ time: '08:00', operator: "'=SUM(A1)", in_status: 'on', status: 'ok', predominant: 'Ag(CN)2-' });
+    expect(row).toMatchObject({ time: '08:00', operator: "'=SUM(A1)", in_status: 'on', status: 'ok', predominant: 'Ag(CN)2^-' });
   });
 
   test('each row equals probe --ph --potential --json at the same point; mV and temperature columns', async () => {

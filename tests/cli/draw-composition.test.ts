@@ -51,7 +51,7 @@ describe('draw, composition mode', () => {
     expect(readFileSync(b, 'utf8')).toBe(text);
     const m = JSON.parse(text);
     expect(m.kind).toBe('composition');
-    expect(m.regions.map((r: { species: string }) => r.species)).toEqual(expect.arrayContaining(['Ag', 'AgCN', 'Ag(CN)2-']));
+    expect(m.regions.map((r: { species: string }) => r.species)).toEqual(expect.arrayContaining(['Ag', 'AgCN', 'Ag(CN)2^-']));
     for (const bd of m.boundaries) expect(bd.reaction).toContain('=');
     expect(m.isoSolubility.map((l: { level: number }) => l.level)).toContain(3e-5);
     expect(m.composition.totals).toEqual({ Ag: 0.2, CN: 0.6 });

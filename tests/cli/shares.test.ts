@@ -50,7 +50,7 @@ describe('shares verb', () => {
     const svg = readFileSync(a, 'utf8');
     expect(readFileSync(b, 'utf8')).toBe(svg);
     const lines = [...svg.matchAll(/class="share"[^>]*data-species="([^"]+)"/g)].map((m) => m[1]);
-    expect(lines).toEqual(expect.arrayContaining(['Ag', 'Ag(CN)2-']));
+    expect(lines).toEqual(expect.arrayContaining(['Ag', 'Ag(CN)2^-']));
     expect(svg).toMatch(/pH \(at E = \u22120\.20 V vs SHE\)/);
     expect(svg).toContain('share of Ag (mol/mol)');
     expect(captionText(svg)).toContain('composition: full speciation; Ag 0.2 mol/kg, CN 0.6 mol/kg total');

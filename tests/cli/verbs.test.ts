@@ -19,12 +19,12 @@ describe('draw', () => {
     expect(r.stdout).toContain(out);
     const m = JSON.parse(readFileSync(out, 'utf8'));
     expect(m.element).toBe('Fe');
-    expect(m.regions.map((x: { species: string }) => x.species)).toEqual(expect.arrayContaining(['Fe', 'Fe+2', 'Fe2O3', 'Fe3O4']));
+    expect(m.regions.map((x: { species: string }) => x.species)).toEqual(expect.arrayContaining(['Fe', 'Fe^2+', 'Fe2O3', 'Fe3O4']));
     for (const reg of m.regions) {
       expect(Array.isArray(reg.polygons[0][0][0])).toBe(true); // polygon → ring → [pH, E]
     }
-    const b = m.boundaries.find((x: { between: string[] }) => x.between.includes('Fe') && x.between.includes('Fe+2'));
-    expect(b.reaction).toMatch(/Fe\+2 \+ 2e- = Fe/);
+    const b = m.boundaries.find((x: { between: string[] }) => x.between.includes('Fe') && x.between.includes('Fe^2+'));
+    expect(b.reaction).toMatch(/Fe\^2\+ \+ 2e\^- <=> Fe/);
     expect(b.equation).toMatch(/^E = -0\.\d+ V vs SHE$/);
     expect(m.triplePoints.length).toBeGreaterThan(0);
     expect(m.waterLines.oxygen.points.length).toBe(2);
@@ -44,7 +44,7 @@ describe('probe', () => {
     const r = await runCli(['probe', fe, '--ph', '4', '--potential', '-0.3', '--json']);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.stdout);
-    expect(j.predominant).toBe('Fe+2');
+    expect(j.predominant).toBe('Fe^2+');
     expect(j.runnerUp).toBeTruthy();
     expect(j.margin.kJPerMol).toBeGreaterThan(0);
     expect(j.nearestBoundary.reaction).toContain('=');
@@ -61,7 +61,7 @@ describe('lines', () => {
   it('prints every boundary reaction in a table and as JSON', async () => {
     const t = await runCli(['lines', fe]);
     expect(t.code).toBe(0);
-    expect(t.stdout).toContain('Fe3O4(s) + 8H+ + 8e- = 3Fe(s) + 4H2O(l)');
+    expect(t.stdout).toContain('Fe₃O₄(s) + 8H⁺ + 8e⁻ ⇌ 3Fe(s) + 4H₂O(l)');
     const j = JSON.parse((await runCli(['lines', fe, '--json'])).stdout);
     expect(j.lines.length).toBeGreaterThan(5);
     expect(j.lines[0]).toHaveProperty('reaction');
@@ -115,7 +115,7 @@ describe('draw figure options on the command line', () => {
 describe('reference electrodes in outputs', () => {
   it('lines --ref sce shifts every E line by −0.241 V (SCE vs SHE at 25 °C, reference-electrodes table)', async () => {
     const j = JSON.parse((await runCli(['lines', fe, '--ref', 'sce', '--json'])).stdout);
-    const row = j.lines.find((r: { between: string[] }) => r.between.includes('Fe') && r.between.includes('Fe+2'));
+    const row = j.lines.find((r: { between: string[] }) => r.between.includes('Fe') && r.between.includes('Fe^2+'));
     const sce = Number(/E = (-?[\d.]+) V vs SCE/.exec(row.equationRef)![1]);
     expect(sce - row.line.intercept).toBeCloseTo(-0.241, 2);
   });
@@ -133,7 +133,7 @@ describe('what-if options on the command line', () => {
   it('--temperature and --activity override the file; out-of-range values name the option', async () => {
     const a = JSON.parse((await runCli(['lines', fe, '--json', '--activity', '1e-4'])).stdout);
     const b = JSON.parse((await runCli(['lines', fe, '--json'])).stdout);
-    const line = (j: { lines: { between: string[]; line: { intercept: number } }[] }) => j.lines.find((r) => r.between.includes('Fe') && r.between.includes('Fe+2'))!.line.intercept;
+    const line = (j: { lines: { between: string[]; line: { intercept: number } }[] }) => j.lines.find((r) => r.between.includes('Fe') && r.between.includes('Fe^2+'))!.line.intercept;
     // Nernst, n = 2: two decades of activity move the Fe+2/Fe line by 59.16 mV at 25 °C.
     expect((line(a) - line(b)) * 1000).toBeCloseTo(59.16, 1);
     const hot = JSON.parse((await runCli(['probe', fe, '--ph', '7', '--potential', '0', '--json', '--temperature', '150'])).stdout);

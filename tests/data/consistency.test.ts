@@ -20,8 +20,8 @@ const DOCUMENTED: Record<string, { maxGap: number; why: string }> = {
   // NBS 1982 (Wagman et al.) Co3O4 as recalled: ΔfH° −891.0, ΔfG° −774.0, S° 102.5 → ΔfH° − TΔfS° = −772.4,
   // 1.6 kJ/mol off. One of the three is misremembered or misprinted; kept until the printed table is checked.
   'Co3O4(s)': { maxGap: 1.8, why: 'NBS82 triple as recalled is inconsistent by 1.6 kJ/mol' },
-  // NBS 1982 Au(CN)2-: ΔfH° 242.3, ΔfG° 285.8, S° 172 → ΔfH° − TΔfS° = 285.2, 0.6 kJ/mol off (rounded S°).
-  'Au(CN)2-(aq)': { maxGap: 0.75, why: 'NBS82 S° rounded; 0.6 kJ/mol' },
+  // NBS 1982 Au(CN)₂⁻: ΔfH° 242.3, ΔfG° 285.8, S° 172 → ΔfH° − TΔfS° = 285.2, 0.6 kJ/mol off (rounded S°).
+  'Au(CN)2^-(aq)': { maxGap: 0.75, why: 'NBS82 S° rounded; 0.6 kJ/mol' },
 };
 
 function formationEntropy(elements: Record<string, number>, charge: number, S: number): number {

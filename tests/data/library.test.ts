@@ -15,12 +15,12 @@ describe('loadLibrary', () => {
     for (const f of ['water.json', 'Fe.json', 'Cu.json', 'Zn.json', 'Ni.json', 'S.json', 'C.json', 'Cl.json', 'N.json']) {
       expect(files, f).toContain(f);
     }
-    const fe2 = find('Fe+2')!;
+    const fe2 = find('Fe^2+')!;
     expect(fe2.file).toBe('Fe.json');
     expect(fe2.elements).toEqual({ Fe: 1 });
     expect(fe2.charge).toBe(2);
     expect(fe2.sourceText).toMatch(/Wagman.*1982.*NBS tables/);
-    expect(find('Fe(OH)2+')!.elements).toEqual({ Fe: 1, O: 2, H: 2 });
+    expect(find('Fe(OH)2^+')!.elements).toEqual({ Fe: 1, O: 2, H: 2 });
   });
 
   it('part A holds at least 90 species', () => {
@@ -45,13 +45,13 @@ describe('loadLibrary', () => {
       const file = (el: string) => ({
         element: el,
         sources: { K: 'citation' },
-        species: [{ formula: 'Fe+2', phase: 'aq', name: 'x', dfG: -1, source: 'K' }],
+        species: [{ formula: 'Fe^2+', phase: 'aq', name: 'x', dfG: -1, source: 'K' }],
       });
       writeFileSync(join(dir, 'A.json'), JSON.stringify(file('Fe')));
       writeFileSync(join(dir, 'B.json'), JSON.stringify(file('Fe')));
       clearLibraryCache();
       expect(() => loadLibrary(dir)).toThrow(LibraryError);
-      expect(() => loadLibrary(dir)).toThrow(/B\.json.*Fe\+2\(aq\).*A\.json/);
+      expect(() => loadLibrary(dir)).toThrow(/B\.json.*Fe\^2\+\(aq\).*A\.json/);
       writeFileSync(join(dir, 'B.json'), '{ not json');
       expect(() => loadLibrary(dir)).toThrow(/B\.json.*not valid JSON/);
     } finally {
@@ -65,7 +65,7 @@ describe('findSpecies', () => {
   it('matches formulas with or without phase tag', () => {
     expect(find('Fe2O3')!.name).toBe('hematite');
     expect(find('Fe2O3(s)')!.formula).toBe('Fe2O3');
-    expect(find('Fe+2(aq)')!.formula).toBe('Fe+2');
+    expect(find('Fe^2+(aq)')!.formula).toBe('Fe^2+');
     expect(find('Fe2O3(aq)')).toBeUndefined();
   });
 
@@ -80,8 +80,18 @@ describe('findSpecies', () => {
     expect(find('magnetite')!.formula).toBe('Fe3O4');
     expect(find('Magnetite')!.formula).toBe('Fe3O4');
     expect(find('  PYRITE ')!.formula).toBe('FeS2');
-    expect(find('iron(II) ion')!.formula).toBe('Fe+2');
-    expect(find('ferrocyanide')!.formula).toBe('Fe(CN)6-4');
+    expect(find('iron(II) ion')!.formula).toBe('Fe^2+');
+    expect(find('ferrocyanide')!.formula).toBe('Fe(CN)6^4-');
+  });
+
+  it('finds a species written in the canonical, Unicode or older notation, and old names kept as aliases', () => {
+    for (const key of ['Fe^2+', 'Fe²⁺', 'Fe+2', 'Fe^2+(aq)', 'Fe²⁺(aq)', 'Fe+2(aq)']) expect(find(key)!.formula, key).toBe('Fe^2+');
+    for (const key of ['HFeO2^-', 'HFeO₂⁻', 'HFeO2-']) expect(find(key)!.name, key).toBe('trihydroxidoferrate(II)');
+    // The old names, and the hydrated formula, still find it.
+    for (const key of ['dihypoferrite ion', 'Fe(OH)3-', 'Fe(OH)₃⁻', 'Fe(OH)3^-']) expect(find(key)!.formula, key).toBe('HFeO2^-');
+    expect(find('cuprite ion')!.formula).toBe('CuO2^2-');
+    expect(find('cuprite')!.formula).toBe('Cu2O'); // the mineral, no longer shadowed by an ion's name
+    expect(find('zincate')!.formula).toBe('ZnO2^2-');
   });
 
   it('matches an equivalent way of writing the formula', () => {
@@ -94,7 +104,7 @@ describe('speciesFor', () => {
   it('returns the main element with H and O, no water species, no metastable ones', () => {
     const fe = speciesFor(lib, 'Fe', []);
     const f = fe.map((s) => s.formula);
-    expect(f).toEqual(expect.arrayContaining(['Fe', 'Fe+2', 'Fe+3', 'Fe3O4', 'Fe2O3', 'FeOH+2', 'HFeO2-']));
+    expect(f).toEqual(expect.arrayContaining(['Fe', 'Fe^2+', 'Fe^3+', 'Fe3O4', 'Fe2O3', 'FeOH^2+', 'HFeO2^-']));
     expect(f).not.toContain('H2O');
     expect(f).not.toContain('Fe(OH)3');
     expect(f).not.toContain('FeS2');
@@ -108,7 +118,7 @@ describe('speciesFor', () => {
 
   it('adds ligand species and mixed species', () => {
     const f = speciesFor(lib, 'Cu', ['S']).map((s) => s.formula);
-    expect(f).toEqual(expect.arrayContaining(['Cu', 'CuO', 'Cu2S', 'CuS', 'S', 'H2S', 'HS-', 'SO4-2']));
+    expect(f).toEqual(expect.arrayContaining(['Cu', 'CuO', 'Cu2S', 'CuS', 'S', 'H2S', 'HS^-', 'SO4^2-']));
     expect(f).not.toContain('CuCl');
     expect(f).not.toContain('FeS');
   });
@@ -116,7 +126,7 @@ describe('speciesFor', () => {
 
 describe('pickAlternative', () => {
   it('returns a copy with the alternative values and source, without mixing in default values', () => {
-    const fe2 = find('Fe+2')!;
+    const fe2 = find('Fe^2+')!;
     const alt = pickAlternative(fe2, 'BR89');
     expect(alt.dfG).toBe(-86.26);
     expect(alt.dfH).toBeUndefined();
@@ -130,7 +140,7 @@ describe('pickAlternative', () => {
   });
 
   it('throws naming the species and the available ids', () => {
-    expect(() => pickAlternative(find('Fe+2')!, 'XX')).toThrow(/Fe\+2\(aq\).*Fe\.json.*BR89, PB66/);
+    expect(() => pickAlternative(find('Fe^2+')!, 'XX')).toThrow(/Fe\^2\+\(aq\).*Fe\.json.*BR89, PB66/);
     expect(() => pickAlternative(find('Fe')!, 'XX')).toThrow(/no alternatives/);
   });
 });

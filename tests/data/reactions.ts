@@ -3,6 +3,8 @@
  * their standard Gibbs energy from the species library. Not a test file itself.
  */
 import { parseFormula, splitPhase } from '../../src/chem/formula.js';
+import { formulaMatches } from '../../src/chem/match.js';
+import { isElectron } from '../../src/chem/reaction-text.js';
 import type { LibrarySpecies } from '../../src/data/library.js';
 import type { Phase } from '../../src/model.js';
 
@@ -28,7 +30,7 @@ function parseSide(side: string): Term[] {
       if (!m) throw new Error(`bad term "${raw}"`);
       const coef = m[1] ? Number(m[1]) : 1;
       const body = m[2]!;
-      if (body === 'e-') return { coef, formula: 'e-' };
+      if (isElectron(body)) return { coef, formula: 'e-' };
       const { formula, phase } = splitPhase(body);
       return { coef, formula, ...(phase ? { phase } : {}) };
     });
@@ -61,10 +63,10 @@ export function imbalance(r: Reaction): Record<string, number> {
   return out;
 }
 
-/** The library entry of a term: exact formula, its phase (aq when untagged), or undefined. */
+/** The library entry of a term: same formula in any notation, its phase (aq when untagged), or undefined. */
 export function lookup(lib: readonly LibrarySpecies[], t: Term): LibrarySpecies | undefined {
   const phase = t.phase ?? 'aq';
-  return lib.find((s) => s.formula === t.formula && s.phase === phase);
+  return lib.find((s) => formulaMatches(t.formula, s.formula) && s.phase === phase);
 }
 
 /** Terms of the reaction that the library lacks (electrons excluded). */

@@ -109,34 +109,34 @@ type PCase = [string, number, number, number, string, string];
 
 const POINTS: PCase[] = [
   // Tin: Sn2+ up to pH ≈ 3.4 (log*β1 = −3.40), no SnOH+ at pH 2 (NBS82 SnOH+ drew one from pH 1.7)
-  ['Sn', 1e-6, 2, -0.25, 'Sn+2', 'Baes & Mesmer 1976 (log*β1 = −3.40)'],
-  ['Sn', 1e-6, 1, -0.2, 'Sn+2', 'common practice'],
+  ['Sn', 1e-6, 2, -0.25, 'Sn^2+', 'Baes & Mesmer 1976 (log*β1 = −3.40)'],
+  ['Sn', 1e-6, 1, -0.2, 'Sn^2+', 'common practice'],
   ['Sn', 1e-6, 7, 0, 'SnO2', 'common practice (tin passive in neutral water)'],
   // Zinc: the minimum solubility of zincite is about 2·10^-6 (log K(ZnO + H2O = Zn(OH)2(aq)) = −5.71 from
   // Baes & Mesmer's log*Ks10 and log*β2), so ZnO predominates at 10^-4 but not at 10^-6 at pH 10
   ['Zn', 1e-4, 10, 0, 'ZnO', 'Baes & Mesmer 1976 (zincite solubility)'],
   ['Zn', 1e-6, 10, 0, 'Zn(OH)2(aq)', 'Baes & Mesmer 1976 (log*β2 = −16.9; zincite solubility 10^-5.7 at pH 9–11)'],
-  ['Zn', 1e-6, 5, 0, 'Zn+2', 'common practice'],
-  ['Zn', 1e-6, 14, -1, 'ZnO2-2', 'Baes & Mesmer 1976 (log*β4 = −41.2)'],
+  ['Zn', 1e-6, 5, 0, 'Zn^2+', 'common practice'],
+  ['Zn', 1e-6, 14, -1, 'ZnO2^2-', 'Baes & Mesmer 1976 (log*β4 = −41.2)'],
   // Lead: litharge dissolves as Pb(OH)2(aq) to about 4·10^-5 (PbO + H2O = Pb(OH)2(aq), log K −4.4)
   ['Pb', 1e-6, 10, 0, 'Pb(OH)2(aq)', 'Baes & Mesmer 1976 (log*β2 = −17.12, litharge log*Ks10 = 12.72)'],
   ['Pb', 1e-3, 10, 0, 'PbO', 'Baes & Mesmer 1976 (litharge solubility)'],
-  ['Pb', 1e-6, 4, 0, 'Pb+2', 'common practice'],
+  ['Pb', 1e-6, 4, 0, 'Pb^2+', 'common practice'],
   ['Pb', 1e-6, 7, 1.8, 'PbO2', 'common practice (PbO2 above the oxygen line)'],
   // Cobalt: Co(III) hydroxide (heterogenite, CoOOH·H2O) in oxidising alkaline water, Co3O4 between
   ['Co', 1e-6, 14, 0.5, 'Co(OH)3', 'common practice (CoOOH on cobalt in oxidising alkaline water)'],
   ['Co', 1e-6, 11, 0, 'Co3O4', 'common practice'],
   ['Co', 1e-6, 11, -0.4, 'Co(OH)2', 'common practice'],
-  ['Co', 1e-6, 3, 0, 'Co+2', 'common practice'],
+  ['Co', 1e-6, 3, 0, 'Co^2+', 'common practice'],
   // Iron, the textbook diagram at 10^-6 (no dissolved hydroxo field inside pH 0–14 at 25 °C)
-  ['Fe', 1e-6, 4, 0, 'Fe+2', 'common practice'],
-  ['Fe', 1e-6, 0.5, 1.0, 'Fe+3', 'common practice'],
+  ['Fe', 1e-6, 4, 0, 'Fe^2+', 'common practice'],
+  ['Fe', 1e-6, 0.5, 1.0, 'Fe^3+', 'common practice'],
   ['Fe', 1e-6, 12, -0.7, 'Fe3O4', 'common practice'],
   ['Fe', 1e-6, 13.9, -0.85, 'Fe3O4', 'Baes & Mesmer 1976 (HFeO2- stays below 10^-6 over magnetite at pH 14)'],
   ['Fe', 1e-6, 10, 0.5, 'Fe2O3', 'common practice'],
   // Molybdenum: MoO3 is soluble (log K(MoO3 + H2O = H2MoO4) ≈ −3.8), so acid oxidising water at 10^-6 is molybdic acid
   ['Mo', 1e-6, 2, 1.0, 'H2MoO4(aq)', 'Martell & Smith (molybdate protonation) with NBS82 MoO3'],
-  ['Mo', 1e-6, 8, 0.5, 'MoO4-2', 'common practice'],
+  ['Mo', 1e-6, 8, 0.5, 'MoO4^2-', 'common practice'],
 ];
 
 describe('predominance at named points, library data, 25 °C', () => {

@@ -29,14 +29,17 @@ describe('the schema itself', () => {
     const good = {
       element: 'Fe',
       sources: { NBS82: 'citation' },
-      species: [{ formula: 'Fe+2', phase: 'aq', name: 'iron(II) ion', dfG: -78.9, source: 'NBS82' }],
+      species: [{ formula: 'Fe^2+', phase: 'aq', name: 'iron(II) ion', dfG: -78.9, source: 'NBS82' }],
     };
     expect(validate(good, schema, '$', schema)).toEqual([]);
     const bad = (patch: Record<string, unknown>) =>
       validate({ ...good, species: [{ ...good.species[0], ...patch }] }, schema, '$', schema);
     expect(bad({ dfG: '−78.9' })).not.toEqual([]);
     expect(bad({ phase: 'solid' })).not.toEqual([]);
-    expect(bad({ formula: 'Fe+2(aq)' })).not.toEqual([]);
+    expect(bad({ formula: 'Fe^2+(aq)' })).not.toEqual([]);
+    // The library writes the canonical caret form only (the reader still takes the older Fe+2).
+    expect(bad({ formula: 'Fe+2' })).not.toEqual([]);
+    expect(bad({ formula: 'Fe²⁺' })).not.toEqual([]);
     expect(bad({ formula: 'Fe 2+' })).not.toEqual([]);
     expect(bad({ dG: 1 })).not.toEqual([]);
     expect(bad({ uncertainty: { dfG: -1 } })).not.toEqual([]);
@@ -86,11 +89,11 @@ describe('loader validation errors name the file and the field', () => {
   const base = {
     element: 'Fe',
     sources: { NBS82: 'citation' },
-    species: [{ formula: 'Fe+2', phase: 'aq', name: 'iron(II) ion', dfG: -78.9, source: 'NBS82' }],
+    species: [{ formula: 'Fe^2+', phase: 'aq', name: 'iron(II) ion', dfG: -78.9, source: 'NBS82' }],
   };
   const withSpecies = (patch: Record<string, unknown>) => ({ ...base, species: [{ ...base.species[0], ...patch }] });
   const cases: [string, unknown, RegExp][] = [
-    ['missing dfG', withSpecies({ dfG: undefined }), /x\.json.*species\[0\] \(Fe\+2\)\.dfG/],
+    ['missing dfG', withSpecies({ dfG: undefined }), /x\.json.*species\[0\] \(Fe\^2\+\)\.dfG/],
     ['unknown source key', withSpecies({ source: 'CRC' }), /x\.json.*\.source.*"CRC"/],
     ['bad formula', withSpecies({ formula: 'Fe2+x' }), /x\.json.*\.formula/],
     ['phase tag in formula', withSpecies({ formula: 'Fe+2(aq)' }), /x\.json.*\.formula.*phase/],

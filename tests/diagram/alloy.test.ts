@@ -30,14 +30,14 @@ function lineE(b: DiagramModel['boundaries'][number], pH: number): number {
   return b.line.intercept! + b.line.slope! * pH;
 }
 
-/** Element and charge totals of one side of a reaction text such as "Cr2O3(s) + 6H+ + 6e-". */
+/** Element and charge totals of one side of a reaction text such as "Cr2O3(s) + 6H^+ + 6e^-". */
 function side(text: string): Record<string, number> {
   const tot: Record<string, number> = {};
   for (const term of text.trim().split(' + ')) {
     const m = /^(\d+(?:\.\d+)?)?(.+)$/.exec(term)!;
     const k = m[1] ? Number(m[1]) : 1;
     const f = m[2].replace(/\((s|l|g|aq)\)$/, '');
-    if (f === 'e-') {
+    if (f === 'e^-') {
       tot.charge = (tot.charge ?? 0) - k;
       continue;
     }
@@ -49,7 +49,7 @@ function side(text: string): Record<string, number> {
 }
 
 function expectBalanced(reaction: string): void {
-  const [l, r] = reaction.split(' = ');
+  const [l, r] = reaction.split(' <=> ');
   const L = side(l);
   const R = side(r);
   for (const e of new Set([...Object.keys(L), ...Object.keys(R)])) expect(Math.abs((L[e] ?? 0) - (R[e] ?? 0)), `${e} in ${reaction}`).toBeLessThan(1e-5);
@@ -186,7 +186,7 @@ function segDist(a: [number, number], b: [number, number], q: [number, number]):
 it('Cu–Zn brass in mildly reducing acid: copper stays metal while zinc dissolves (dezincification; common practice)', () => {
   const input = buildAlloySystem(readAlloySpec({ elements: { Cu: 0.65, Zn: 0.35 } }, 'brass.yaml')).input;
   const a = assemblageAt(input, 5, -0.5);
-  expect(a.label).toBe('Cu + Zn+2');
+  expect(a.label).toBe('Cu + Zn^2+');
   expect(a.verdict).toBe('partly-corroding');
   expect(a.dissolving).toEqual(['Zn']);
 });

@@ -205,7 +205,7 @@ describe('ok/: valid input that looks suspicious', () => {
     const target = join(out, 'fe2plus.svg');
     const r = await runCli(['draw', join(OK, 'charge-typo-warning.json'), '-o', target]);
     expect(r.code).toBe(0);
-    expect(r.stderr).toMatch(/^warning: .*Fe\+2/m);
+    expect(r.stderr).toMatch(/^warning: .*"Fe\^2\+"/m);
   });
 
   it('a BOM alone is no error, and a BOM file gives the same diagram as without it', async () => {

@@ -31,9 +31,9 @@ describe('copper with total dissolved sulfur 1e-3 at 25 °C', () => {
   //   Cu2S + 2H+ + 2e- = 2Cu + H2S(aq):  E = [G(Cu2S) − G(H2S)]/(2F) − s·pH − (s/2)·log a
   //   Cu2S + H+ + 2e- = 2Cu + HS-:        E = [G(Cu2S) − G(HS-)]/(2F) − (s/2)·pH − (s/2)·log a
   const eH2S = (pH: number) => (G('Cu2S(s)') - G('H2S(aq)')) / (2 * F) - s * pH - (s / 2) * Math.log10(aS);
-  const eHS = (pH: number) => (G('Cu2S(s)') - G('HS-')) / (2 * F) - (s / 2) * pH - (s / 2) * Math.log10(aS);
+  const eHS = (pH: number) => (G('Cu2S(s)') - G('HS^-')) / (2 * F) - (s / 2) * pH - (s / 2) * Math.log10(aS);
   // Kink where H2S = HS- + H+ at equal activities: pH = pKa = [G(HS-) − G(H2S)]/(RT ln10).
-  const pKa = (G('HS-') - G('H2S(aq)')) / (R * T * Math.LN10);
+  const pKa = (G('HS^-') - G('H2S(aq)')) / (R * T * Math.LN10);
 
   it('Cu2S is present', () => {
     expect(c.model.regions.map((r) => r.species)).toContain('Cu2S');
@@ -42,7 +42,7 @@ describe('copper with total dissolved sulfur 1e-3 at 25 °C', () => {
   it('the Cu/Cu2S boundary is written with H2S on one side of the kink and HS- on the other', () => {
     const bs = c.model.boundaries.filter((b) => b.between.includes('Cu') && b.between.includes('Cu2S'));
     const lig = bs.map((b) => b.ligandSpecies.join());
-    expect(lig).toEqual(expect.arrayContaining(['H2S', 'HS-']));
+    expect(lig).toEqual(expect.arrayContaining(['H2S', 'HS^-']));
     const h2s = bs.find((b) => b.ligandSpecies[0] === 'H2S')!;
     for (const [pH, E] of h2s.points) expect(Math.abs(E - eH2S(pH))).toBeLessThan(1e-4);
     // The kink vertex: on both hand lines within 0.1 mV, at pH = pKa (H2S) within 0.002.
@@ -64,14 +64,14 @@ describe('copper with total dissolved sulfur 1e-3 at 25 °C', () => {
   });
 
   it('another boundary switches to sulfate at high potential (S(VI) segment with SO4-2 or HSO4-)', () => {
-    const sulfate = c.model.boundaries.filter((b) => b.ligandSpecies.some((x) => x === 'SO4-2' || x === 'HSO4-'));
+    const sulfate = c.model.boundaries.filter((b) => b.ligandSpecies.some((x) => x === 'SO4^2-' || x === 'HSO4^-'));
     expect(sulfate.length).toBeGreaterThan(0);
   });
 });
 
 describe('ammonia, zincate', () => {
   it('ammonia at 1 mol/kg moves dissolved copper into pH 8–10 (log β4 of Cu(NH3)4+2 ≈ 13, recalled from memory)', () => {
-    const logB4 = -(G('Cu(NH3)4+2') - G('Cu+2') - 4 * G('NH3(aq)')) / (R * T * Math.LN10);
+    const logB4 = -(G('Cu(NH3)4^2+') - G('Cu^2+') - 4 * G('NH3(aq)')) / (R * T * Math.LN10);
     expect(Math.abs(logB4 - 13)).toBeLessThan(0.7);
     const plain = compute(readSpec({ element: 'Cu', E: [-1, 1.2] }, 'cu.yaml'));
     const amm = compute(readSpec({ element: 'Cu', ligands: { N: 1 }, E: [-1, 1.2] }, 'cunh3.yaml'));
@@ -86,18 +86,18 @@ describe('ammonia, zincate', () => {
   it('zincate predominates for zinc at high pH (pH 13.8, E −0.5 V vs SHE)', () => {
     const zn = compute(readSpec({ element: 'Zn', E: [-1.8, 1.4] }, 'zn.yaml'));
     const w = winner(zn, 13.8, -0.5);
-    expect(['ZnO2-2', 'Zn(OH)4-2', 'HZnO2-']).toContain(w);
+    expect(['ZnO2^2-', 'Zn(OH)4^2-', 'HZnO2^-']).toContain(w);
   });
 });
 
 describe('plating window of an acid copper bath (Cu activity 0.5, sulfate only)', () => {
   it('agrees with a hand calculation: E_dep = E°(Cu+2/Cu) + (s/2)·log a, up to the pH where Cu2O meets the metal', () => {
     const spec = readSpec(
-      { element: 'Cu', activity: 0.5, ligands: { S: 1 }, ligandSpecies: { S: ['SO4-2', 'HSO4-'] }, exclude: ['CuS', 'Cu2S'], E: [-1, 1.2] },
+      { element: 'Cu', activity: 0.5, ligands: { S: 1 }, ligandSpecies: { S: ['SO4^2-', 'HSO4^-'] }, exclude: ['CuS', 'Cu2S'], E: [-1, 1.2] },
       'acid-copper.yaml',
     );
     const w = platingWindow(compute(spec).model);
-    const Edep = G('Cu+2') / (2 * F) + (s / 2) * Math.log10(0.5);
+    const Edep = G('Cu^2+') / (2 * F) + (s / 2) * Math.log10(0.5);
     // Cu2O + 2H+ + 2e- = 2Cu + H2O: E = [G(Cu2O) − G(H2O)]/(2F) − s·pH
     const eCu2O = (G('Cu2O(s)') - G('H2O(l)')) / (2 * F);
     const pHmax = (eCu2O - Edep) / s;

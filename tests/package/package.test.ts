@@ -78,7 +78,7 @@ describe('the packed package', () => {
     );
     const out = JSON.parse(execFileSync(process.execPath, ['use.mjs'], { cwd: proj, encoding: 'utf8' })) as { version: string; species: string[]; verdict: string; lines: number; svg: string };
     expect(out.version).toBe(VERSION);
-    expect(out.species).toEqual(expect.arrayContaining(['Fe', 'Fe+2', 'Fe2O3', 'Fe3O4']));
+    expect(out.species).toEqual(expect.arrayContaining(['Fe', 'Fe^2+', 'Fe2O3', 'Fe3O4']));
     // pH 7, −0.8 V vs SHE lies below the Fe²⁺/Fe line (about −0.62 V at 10⁻⁶): immunity.
     expect(out.verdict).toBe('immunity');
     expect(out.lines).toBeGreaterThan(3);

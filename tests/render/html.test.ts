@@ -84,10 +84,11 @@ describe('HTML page', () => {
   });
 
   it('typesets formulas and reactions in Unicode for the read-out', () => {
-    expect(formulaUnicode('Fe+2')).toBe('Fe\u00b2\u207a');
-    expect(formulaUnicode('HFeO2-')).toBe('HFeO\u2082\u207b');
+    expect(formulaUnicode('Fe^2+')).toBe('Fe\u00b2\u207a');
+    expect(formulaUnicode('HFeO2^-')).toBe('HFeO\u2082\u207b');
     expect(formulaUnicode('Fe3O4')).toBe('Fe\u2083O\u2084');
-    expect(reactionUnicode('Fe2O3(s) + 6H+ + 2e- = 2Fe+2 + 3H2O(l)')).toBe('Fe\u2082O\u2083(s) + 6H\u207a + 2e\u207b = 2Fe\u00b2\u207a + 3H\u2082O(l)');
+    expect(reactionUnicode('Fe2O3(s) + 6H+ + 2e- = 2Fe+2 + 3H2O(l)')).toBe('Fe\u2082O\u2083(s) + 6H\u207a + 2e\u207b \u21cc 2Fe\u00b2\u207a + 3H\u2082O(l)');
+    expect(reactionUnicode('Fe2O3(s) + 6H^+ + 2e^- <=> 2Fe^2+ + 3H2O(l)')).toBe('Fe\u2082O\u2083(s) + 6H\u207a + 2e\u207b \u21cc 2Fe\u00b2\u207a + 3H\u2082O(l)');
     expect(signMinus('E = -0.0867 - 0.0592 pH V vs SHE')).toBe('E = \u22120.0867 \u2212 0.0592 pH V vs SHE');
   });
 

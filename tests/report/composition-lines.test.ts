@@ -33,19 +33,19 @@ describe('lines in composition mode (copper ammonia bath)', () => {
       expect(l.midpoint.E).toBeLessThanOrEqual(l.ERange[1]);
       expect(l.ERangeRef![0]).toBeLessThan(l.ERange[0]); // SCE lies above SHE
     }
-    const c = j.lines.find((l) => [...l.between].sort().join('/') === 'Cu/Cu+2')!;
-    expect(c.reaction).toBe('Cu+2 + 2e- = Cu(s)');
+    const c = j.lines.find((l) => [...l.between].sort().join('/') === 'Cu/Cu^2+')!;
+    expect(c.reaction).toBe('Cu^2+ + 2e^- <=> Cu(s)');
     const lib = loadLibrary();
-    const hand = (findSpecies(lib, 'Cu+2')!.dfG * 1000) / (2 * F) + ((R * 298.15 * LN10) / (2 * F)) * Math.log10(0.25);
+    const hand = (findSpecies(lib, 'Cu^2+')!.dfG * 1000) / (2 * F) + ((R * 298.15 * LN10) / (2 * F)) * Math.log10(0.25);
     expect(Math.abs(c.midpoint.E - hand)).toBeLessThan(1e-4);
-    expect(j.lines.some((l) => l.between.includes('Cu(NH3)4+2') && l.between.includes('Cu'))).toBe(false);
+    expect(j.lines.some((l) => l.between.includes('Cu(NH3)4^2+') && l.between.includes('Cu'))).toBe(false);
   });
   test('text says curve and gives the midpoint reaction and spans, no line equations', async () => {
     const r = await runCli(['lines', cu]);
     expect(r.code).toBe(0);
     expect(r.stdout).toContain('the bath as made up (totals Cu 0.5, N 1 mol/kg)');
     expect(r.stdout).toMatch(/Boundaries are curves/);
-    expect(r.stdout).toMatch(/Cu\+2 \/ Cu\s+curve\s+Cu\+2 \+ 2e- = Cu\(s\)/);
+    expect(r.stdout).toMatch(/Cu²⁺ \/ Cu\s+curve\s+Cu²⁺ \+ 2e⁻ ⇌ Cu\(s\)/);
     const table = r.stdout.split('Water lines')[0];
     expect(table).not.toMatch(/E = [-\d.]+ [+-] [\d.]+ pH/);
   });

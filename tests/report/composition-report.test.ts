@@ -32,16 +32,16 @@ describe('report on a composition file', () => {
     expect(existsSync(join(dir, 'r.svg'))).toBe(true);
     const md = readFileSync(out, 'utf8');
     expect(md).toContain('the bath as made up');
-    expect(md).toMatch(/\| `Ag\(CN\)3-2 \/ Ag` \| `Ag\(CN\)3-2 \+ e- = Ag\(s\) \+ 3CN-` \| E° = -?\d\.\d{4} \| curve \(reaction at its midpoint/);
+    expect(md).toMatch(/\| `Ag\(CN\)₃²⁻ \/ Ag` \| `Ag\(CN\)₃²⁻ \+ e⁻ ⇌ Ag\(s\) \+ 3CN⁻` \| E° = -?\d\.\d{4} \| curve \(reaction at its midpoint/);
     expect(md).toMatch(/\| tank A \| 12 \| -0\.5 V vs SHE \| -0\.5000 \| Ag \| immunity \| 0\.035\d* \| above 1\.000e-6 \|/);
-    expect(md).toMatch(/\| tank B \| 12 \| 0 V vs SHE \| 0\.0000 \| Ag\(CN\)2- \| corrosion \| 0\.2000 \| above 1\.000e-6 \|/);
+    expect(md).toMatch(/\| tank B \| 12 \| 0 V vs SHE \| 0\.0000 \| Ag\(CN\)₂⁻ \| corrosion \| 0\.2000 \| above 1\.000e-6 \|/);
     // Mass balance in tank A's table: solid Ag + dissolved silver = 0.2 mol/kg.
     const a = md.split('**tank A')[1].split('**tank B')[0];
     const row = (sp: string) => a.split('\n').find((l) => l.startsWith(`| ${sp} |`))!.split('|').map((c) => c.trim());
-    const silver = num(row('Ag')[3]) + num(row('Ag(CN)2-')[3]) + num(row('Ag(CN)3-2')[3]);
+    const silver = num(row('Ag')[3]) + num(row('Ag(CN)₂⁻')[3]) + num(row('Ag(CN)₃²⁻')[3]);
     expect(Math.abs(silver - 0.2)).toBeLessThan(2e-4); // 4 significant digits printed
     expect(md).toContain('## Plating window');
-    expect(md).toContain('`Ag(CN)2-`, `Ag(CN)3-2`');
+    expect(md).toContain('`Ag(CN)₂⁻`, `Ag(CN)₃²⁻`');
     expect(md).not.toContain('The system file names no operating points');
   });
   test('HTML: self-contained with the figure and the speciation tables', async () => {

@@ -82,7 +82,7 @@ describe('overlay: one system at several temperatures', () => {
       }
       return ys;
     };
-    const yBase = horizontals(/<path class="boundary" d="([^"]*)"[^>]*data-between="Fe\|Fe\+2"/.exec(svg)![1])[0];
+    const yBase = horizontals(/<path class="boundary" d="([^"]*)"[^>]*data-between="Fe\|Fe\^2\+"/.exec(svg)![1])[0];
     const expected = yBase - 0.05916 * perV;
     expect(horizontals(/<path class="overlay" d="([^"]*)"/.exec(svg)![1]).some((y) => Math.abs(y - expected) < 0.1)).toBe(true);
   });

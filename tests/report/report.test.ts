@@ -3,6 +3,7 @@
  * boundary reaction, every operating point with its verdict, the data sources and the cautions;
  * deterministic output; bad input writes nothing (exit 2).
  */
+import { reactionForPeople } from '../../src/chem/present.js';
 import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -38,7 +39,8 @@ const fe = writeTmp(
   ].join('\n'),
 );
 const model = computeFile(fe).model;
-const reactions = [...new Set(model.boundaries.map((b) => b.reaction))];
+// The report is for people: each reaction as the Unicode text (Fe₃O₄(s) + 8H⁺ + 8e⁻ ⇌ 3Fe(s) + 4H₂O(l)).
+const reactions = [...new Set(model.boundaries.map((b) => reactionForPeople(b.reaction)))];
 
 // The caution every report carries, word for word (the same text as REPORT_CAUTIONS).
 const CAUTION_6 =
@@ -73,7 +75,7 @@ describe('report (Markdown)', () => {
       expect(row).toContain(`**${verdict}**`);
     }
     expect(md).toContain(NBS); // full citation
-    expect(md).toContain('| `Fe+2` | aq | iron(II) ion | main | library | yes |'); // the library marks NBS82 Fe+2 as recalled
+    expect(md).toContain('| `Fe²⁺` | aq | iron(II) ion | main | library | yes |'); // the library marks NBS82 Fe²⁺ as recalled
     expect(md).toContain(CAUTION_6);
     expect(md).toMatch(/screening aid\. Decisions follow the applicable codes and standards/);
     // Conditions: neutral pH of water at 25 °C is 7.00 (pKw 13.99, IAPWS R11-07, recalled from memory).

@@ -16,7 +16,7 @@ function side(text: string): { counts: Map<string, number>; coefs: number[]; ele
     const m = /^(\d*)(.+)$/.exec(term.trim())!;
     const k = m[1] ? Number(m[1]) : 1;
     coefs.push(k);
-    if (m[2] === 'e-') {
+    if (m[2] === 'e^-') {
       electrons += k;
       counts.set('charge', (counts.get('charge') ?? 0) - k);
       continue;
@@ -45,7 +45,7 @@ describe.each(SYSTEMS)('reactions of %o', (sys) => {
   it('are balanced, reduced to smallest integers, and written as reductions', () => {
     expect(c.model.boundaries.length).toBeGreaterThan(2);
     for (const b of c.model.boundaries) {
-      const [l, r] = b.reaction.split(' = ');
+      const [l, r] = b.reaction.split(' <=> ');
       const L = side(l);
       const Rt = side(r);
       const keys = new Set([...L.counts.keys(), ...Rt.counts.keys()]);

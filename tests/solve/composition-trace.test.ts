@@ -27,8 +27,8 @@ function shareDiff(pH: number, E: number, i: number, j: number): number {
 describe('refined boundaries (silver cyanide bath)', () => {
   test('the expected boundaries are there', () => {
     const pairs = bath.model.boundaries.map((b) => b.between.join('/'));
-    expect(pairs).toContain('Ag(CN)2-/Ag');
-    expect(pairs).toContain('Ag(CN)2-/AgCN');
+    expect(pairs).toContain('Ag(CN)2^-/Ag');
+    expect(pairs).toContain('Ag(CN)2^-/AgCN');
     expect(bath.model.kind).toBe('composition');
   });
   test('at up to 200 vertices per boundary the two neighbours hold equal shares within 1e-6', () => {
@@ -150,7 +150,7 @@ describe('limits: the fixed-activity diagram recovered', () => {
     // dissolved silver (10^0.92 · 1e-4 = 8e-4: 0.02 mV); at 0.1 mol/kg it would hold 45 %.
     const comp = computeComposition(readSpec({ element: 'Ag', composition: { Ag: 1e-9, CN: 1e-4 }, pH: [11, 14] }, 'c.yaml'), { grid: 40 }).model;
     const fixed = compute(readSpec({ element: 'Ag', activity: 0.5e-9, ligands: { CN: 1e-4 }, pH: [11, 14] }, 'f.yaml')).model;
-    const b = comp.boundaries.find((x) => [...x.between].sort().join('/') === 'Ag/Ag(CN)2-')!;
+    const b = comp.boundaries.find((x) => [...x.between].sort().join('/') === 'Ag/Ag(CN)2^-')!;
     expect(onFixedLine(b, fixed, (p) => p[0] > 12.5)).toBeGreaterThan(5);
   });
 });

@@ -28,7 +28,7 @@ describe('familyBoundaries', () => {
 
   it('changes the lines it should: Fe²⁺/Fe moves by s/2 per decade (Nernst)', () => {
     const c = compute(readSpec({ element: 'Fe' }, 'fe.yaml'));
-    const at = (a: number) => familyBoundaries(c, a).find((b) => b.between.includes('Fe') && b.between.includes('Fe+2'))!.points[0][1];
+    const at = (a: number) => familyBoundaries(c, a).find((b) => b.between.includes('Fe') && b.between.includes('Fe^2+'))!.points[0][1];
     // 0.05916/2 V per decade of a(Fe²⁺) at 25 °C (Nernst slope ln10·RT/F, CODATA 2018 constants).
     expect(at(1e-4) - at(1e-6)).toBeCloseTo(2 * 0.0591593 / 2, 4);
   });

@@ -95,19 +95,19 @@ describe('building an alloy system', () => {
   });
 
   it('metastable and pick names go to the element whose species they are (Cr(OH)3 and FeO; Ni+2 BR89)', () => {
-    const a = buildAlloySystem(readAlloySpec({ elements: { Fe: 0.7, Cr: 0.2, Ni: 0.1 }, metastable: ['Cr(OH)3', 'FeO'], pick: { 'Ni+2': 'BR89' } }, 'a.yaml'));
+    const a = buildAlloySystem(readAlloySpec({ elements: { Fe: 0.7, Cr: 0.2, Ni: 0.1 }, metastable: ['Cr(OH)3', 'FeO'], pick: { 'Ni^2+': 'BR89' } }, 'a.yaml'));
     const f = a.input.species.map((s) => s.formula);
     expect(f).toEqual(expect.arrayContaining(['Cr(OH)3', 'FeO', 'FeCr2O4', 'NiFe2O4']));
-    const ni = buildSystem(readSpec({ element: 'Ni', pick: { 'Ni+2': 'BR89' } }, 'n.yaml')).input.species.find((s) => s.formula === 'Ni+2')!;
-    expect(a.input.species.find((s) => s.formula === 'Ni+2')!.G).toBe(ni.G);
+    const ni = buildSystem(readSpec({ element: 'Ni', pick: { 'Ni^2+': 'BR89' } }, 'n.yaml')).input.species.find((s) => s.formula === 'Ni^2+')!;
+    expect(a.input.species.find((s) => s.formula === 'Ni^2+')!.G).toBe(ni.G);
     expect(() => buildAlloySystem(readAlloySpec({ elements: { Fe: 0.7, Cr: 0.3 }, pick: { FeCr2O4: 'XX' } }, 'a.yaml'))).toThrow(/pick\.FeCr2O4/);
     expect(() => buildAlloySystem(readAlloySpec({ elements: { Fe: 0.7, Cr: 0.3 }, metastable: ['Unobtainium'] }, 'a.yaml'))).toThrow(InputError);
   });
 
   it('an activity per element reaches that element\'s dissolved species only', () => {
     const a = buildAlloySystem(readAlloySpec({ elements: { Fe: 0.8, Cr: 0.2 }, activity: { Fe: 1e-6, Cr: 1e-8 } }, 'a.yaml'));
-    expect(a.input.species.find((s) => s.formula === 'Fe+2')!.logActivity).toBeCloseTo(-6, 12);
-    expect(a.input.species.find((s) => s.formula === 'Cr+3')!.logActivity).toBeCloseTo(-8, 12);
+    expect(a.input.species.find((s) => s.formula === 'Fe^2+')!.logActivity).toBeCloseTo(-6, 12);
+    expect(a.input.species.find((s) => s.formula === 'Cr^3+')!.logActivity).toBeCloseTo(-8, 12);
   });
 });
 

@@ -11,7 +11,7 @@ import { readSpec } from '../../src/system/spec.js';
 describe('group ligands and the S° estimate', () => {
   it('Ag(CN)3^2- in Ag–CN at 60 °C is carried with estimated data, not undetermined', () => {
     const b = buildSystem(readSpec({ element: 'Ag', temperature: 60, ligands: { CN: 1e-2 } }, 'agcn.yaml'));
-    const sp = b.input.species.find((s) => s.formula === 'Ag(CN)3-2');
+    const sp = b.input.species.find((s) => s.formula === 'Ag(CN)3^2-');
     expect(sp).toBeDefined();
     expect(sp!.temperatureModel).not.toBe('undetermined');
     expect(sp!.estimated).toBe(true);

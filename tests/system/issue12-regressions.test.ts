@@ -22,8 +22,8 @@ function winner(element: string, t: number, pH: number, E: number): string {
 
 describe('issue 12 regressions', () => {
   it('zinc at pH 13, −0.5 V stays zincate (corrosion) from 25 to 26 °C', () => {
-    expect(winner('Zn', 25, 13, -0.5)).toBe('ZnO2-2');
-    expect(winner('Zn', 26, 13, -0.5)).toBe('ZnO2-2');
+    expect(winner('Zn', 25, 13, -0.5)).toBe('ZnO2^2-');
+    expect(winner('Zn', 26, 13, -0.5)).toBe('ZnO2^2-');
   });
   it('chromium at pH 1, −0.3 V keeps its 25 °C species at 26 °C', () => {
     expect(winner('Cr', 26, 1, -0.3)).toBe(winner('Cr', 25, 1, -0.3));

@@ -31,14 +31,14 @@ describe('activity coefficients at 250 °C, I = 0.1 mol/kg (Davies)', () => {
   const salty = compute(readSpec({ element: 'Fe', temperature: 250, ionicStrength: 0.1 }, 'salty.yaml'));
 
   it('log γ of Fe+2 equals the Davies value with A from IAPWS water at 250 °C', () => {
-    const fe2 = salty.model.species.find((s) => s.formula === 'Fe+2')!;
+    const fe2 = salty.model.species.find((s) => s.formula === 'Fe^2+')!;
     expect(fe2.molality).toBe(1e-6);
     expect(fe2.logGamma!).toBeCloseTo(davies(2), 3);
     expect(fe2.activity!).toBeCloseTo(1e-6 * 10 ** davies(2), 9);
   });
 
   it('the Fe+2/Fe boundary moves by (s/2)·log γ(Fe+2)', () => {
-    const pick = (m: typeof ideal.model) => m.boundaries.find((b) => b.between.includes('Fe') && b.between.includes('Fe+2'))!.line.intercept!;
+    const pick = (m: typeof ideal.model) => m.boundaries.find((b) => b.between.includes('Fe') && b.between.includes('Fe^2+'))!.line.intercept!;
     const s = (Math.LN10 * R * T) / F;
     expect(pick(salty.model) - pick(ideal.model)).toBeCloseTo((s / 2) * davies(2), 5);
   });
@@ -48,15 +48,15 @@ describe('activity coefficients at 250 °C, I = 0.1 mol/kg (Davies)', () => {
     const f = writeTmp(dir, 'fe250.yaml', 'element: Fe\ntemperature: 250\nionicStrength: 0.1\n');
     const r = await runCli(['lines', f]);
     expect(r.stdout).toMatch(/Activities used/);
-    expect(r.stdout).toMatch(/Fe\+2\s+1\.000e-6\s+-0\.8\d+/);
+    expect(r.stdout).toMatch(/Fe²⁺\s+1\.000e-6\s+-0\.8\d+/);
     const j = JSON.parse((await runCli(['lines', f, '--json'])).stdout);
-    const row = j.activities.find((a: { formula: string }) => a.formula === 'Fe+2');
+    const row = j.activities.find((a: { formula: string }) => a.formula === 'Fe^2+');
     expect(row.logGamma).toBeCloseTo(davies(2), 3);
   });
 
   it('an explicit activity is used as given (no γ)', () => {
     const c = compute(readSpec({ element: 'Fe', temperature: 250, ionicStrength: 0.1, activity: 1e-6 }, 'a.yaml'));
-    expect(c.model.species.find((s) => s.formula === 'Fe+2')!.activity).toBe(1e-6);
+    expect(c.model.species.find((s) => s.formula === 'Fe^2+')!.activity).toBe(1e-6);
   });
 
   it('background electrolyte 0.5 mol/kg NaCl gives I = 0.5; Davies beyond 0.5 warns', () => {
@@ -68,7 +68,7 @@ describe('activity coefficients at 250 °C, I = 0.1 mol/kg (Davies)', () => {
 
   it('a concentration in mg/L converts with the molar mass (55.845 g/mol Fe, IUPAC)', () => {
     const c = compute(readSpec({ element: 'Fe', concentration: '0.055845 mg/L' }, 'c.yaml'));
-    const fe2 = c.model.species.find((s) => s.formula === 'Fe+2')!;
+    const fe2 = c.model.species.find((s) => s.formula === 'Fe^2+')!;
     // 0.055845 mg/L → 1e-6 mol/L → /(ρ/1000) with ρ = 997.05 kg/m³ at 25 °C (IAPWS).
     expect(fe2.molality!).toBeCloseTo(1e-6 / 0.99705, 9);
   });
@@ -95,7 +95,7 @@ describe('activity families', () => {
     const spec = readSpec({ element: 'Fe', figure: { families: [1e-4] } }, 'fam.yaml');
     const c = compute(spec);
     const input = figureInput(c, figureSettings(spec));
-    const line = (bs: typeof c.model.boundaries) => bs.find((b) => b.between.includes('Fe') && b.between.includes('Fe+2'))!.line.intercept!;
+    const line = (bs: typeof c.model.boundaries) => bs.find((b) => b.between.includes('Fe') && b.between.includes('Fe^2+'))!.line.intercept!;
     expect((line(input.families![0].boundaries) - line(c.model.boundaries)) * 1000).toBeCloseTo(59.16, 1);
   });
 });

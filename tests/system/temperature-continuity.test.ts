@@ -22,7 +22,7 @@ import { readSpec } from '../../src/system/spec.js';
  * Boundaries allowed a steady move up to 5.5–6 mV/K: anion-forming reactions whose ΔrS°/nF at high T
  * (the Born entropy of the new anions, HKF) passes 5 mV/K near 270–300 °C — smooth, no jump.
  */
-const STEEP: Record<string, number> = { 'Fe3O4|HFeO2-|': 0.006, 'Co3O4|HCoO2-|': 0.0055, 'Cu2O|CuO2-2|': 0.0055 };
+const STEEP: Record<string, number> = { 'Fe3O4|HFeO2^-|': 0.006, 'Co3O4|HCoO2^-|': 0.0055, 'Cu2O|CuO2^2-|': 0.0055 };
 
 /**
  * The library's phase choices by temperature (stableBelow/stableAbove, e.g. gibbsite → boehmite at

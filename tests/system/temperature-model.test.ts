@@ -37,7 +37,7 @@ const rows = readFileSync(new URL('../fixtures/water-properties.csv', import.met
 describe('pKw from the library species through the temperature model', () => {
   it.each(rows.map((r) => [r[0]!, r[3]!]))('%s °C: within 0.05 of IAPWS R11-07', (t, pKw) => {
     const T = t + 273.15;
-    const dG = G('H+(aq)', t) + G('OH-(aq)', t) - G('H2O(l)', t);
+    const dG = G('H^+(aq)', t) + G('OH^-(aq)', t) - G('H2O(l)', t);
     const pk = (dG * 1000) / (R * T * Math.LN10);
     expect(Math.abs(pk - pKw)).toBeLessThan(0.05);
   });
@@ -57,10 +57,10 @@ describe('every library species is carried to temperature', () => {
     const w = waterState(150);
     const model = (k: string) => carrySpecies(resolved(findSpecies(lib, k)!), { mode: 'best', water: w, lib, constantG: false });
     expect(model('H2O(l)').model).toBe('iapws');
-    expect(model('OH-').model).toBe('published');
-    expect(model('Cl-').model).toBe('published');
-    expect(model('ZnOH+').model).toBe('estimated');
-    expect(model('ZnOH+').estimatedWhat).toEqual(['S°', 'HKF parameters']);
+    expect(model('OH^-').model).toBe('published');
+    expect(model('Cl^-').model).toBe('published');
+    expect(model('ZnOH^+').model).toBe('estimated');
+    expect(model('ZnOH^+').estimatedWhat).toEqual(['S°', 'HKF parameters']);
     expect(model('Fe2O3').model).toBe('cp-polynomial');
     expect(model('Fe3O4').model).toBe('constant-cp');
   });
@@ -71,10 +71,10 @@ describe('catalog data name the temperature model', () => {
     const { catalogEntries } = await import('../../src/report/catalog.js');
     const all = catalogEntries(lib);
     const get = (f: string, p: string) => all.find((e) => e.formula === f && e.phase === p)!;
-    expect(get('ZnOH+', 'aq').temperatureModel).toBe('estimated');
-    expect(get('ZnOH+', 'aq').estimated).toEqual(['S°', 'HKF parameters']);
-    expect(get('OH-', 'aq').temperatureModel).toBe('published');
-    expect(get('OH-', 'aq').estimated).toBeUndefined();
+    expect(get('ZnOH^+', 'aq').temperatureModel).toBe('estimated');
+    expect(get('ZnOH^+', 'aq').estimated).toEqual(['S°', 'HKF parameters']);
+    expect(get('OH^-', 'aq').temperatureModel).toBe('published');
+    expect(get('OH^-', 'aq').estimated).toBeUndefined();
     expect(get('H2O', 'l').temperatureModel).toBe('iapws');
   });
 });
@@ -91,7 +91,7 @@ describe('carryProperties (S, Cp, H from the model, for reaction properties)', (
     const { carryProperties } = await import('../../src/system/carry.js');
     const ctx = { mode: 'best' as const, water: waterState(25), lib, constantG: false };
     const H = (k: string) => carryProperties(resolved(findSpecies(lib, k)!), ctx).H!;
-    expect(H('H+(aq)') + H('OH-(aq)') - H('H2O(l)')).toBeCloseTo(-229.994 + 285.83, 1);
+    expect(H('H^+(aq)') + H('OH^-(aq)') - H('H2O(l)')).toBeCloseTo(-229.994 + 285.83, 1);
   });
 });
 

@@ -17,13 +17,13 @@ import { UNDETERMINED_FILL } from '../../src/render/palette.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
-const SYSTEM = { element: 'Zn', temperature: 150, species: ['Zn', 'Zn+2', 'ZnO', { formula: 'HZnO2-', phase: 'aq', dfG: -464.0 }] };
+const SYSTEM = { element: 'Zn', temperature: 150, species: ['Zn', 'Zn^2+', 'ZnO', { formula: 'HZnO2^-', phase: 'aq', dfG: -464.0 }] };
 
 function setup() {
   const dir = tmpDir();
   const file = writeTmp(dir, 'zn.json', JSON.stringify(SYSTEM));
   const c = computeFile(file);
-  const region = c.model.regions.find((r) => r.species === 'HZnO2-')!;
+  const region = c.model.regions.find((r) => r.species === 'HZnO2^-')!;
   // A point inside the undetermined field: the mean of its outer ring's vertices (the field is convex).
   const ring = region.polygons[0]![0]!;
   const pH = ring.reduce((s, p) => s + p[0], 0) / ring.length;
@@ -36,8 +36,8 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
     const { c, region } = setup();
     expect(region.undetermined).toBe(true);
     expect(region.verdict).toBeUndefined();
-    expect(c.model.species.find((s) => s.formula === 'HZnO2-')!.temperatureModel).toBe('undetermined');
-    expect(c.model.warnings[0]).toMatch(/^undetermined away from 25 °C.*HZnO2-/);
+    expect(c.model.species.find((s) => s.formula === 'HZnO2^-')!.temperatureModel).toBe('undetermined');
+    expect(c.model.warnings[0]).toMatch(/^undetermined away from 25 °C.*HZnO2\^-/);
     // The other fields keep their verdicts.
     expect(c.model.regions.find((r) => r.species === 'ZnO')!.verdict).toBe('passivation');
   });
@@ -45,14 +45,14 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
   it('probe inside the field says unknown and names the species; a crossing into it is unknown too', () => {
     const { c, pH, E } = setup();
     const r = probe(c, pH, E);
-    expect(r.predominant).toBe('HZnO2-');
+    expect(r.predominant).toBe('HZnO2^-');
     expect(r.verdict).toBe('unknown');
-    expect(r.warnings[0]).toMatch(/no verdict here: HZnO2-/);
+    expect(r.warnings[0]).toMatch(/no verdict here: HZnO2\^-/);
     const zno = c.model.regions.find((x) => x.species === 'ZnO')!.polygons[0]![0]!;
     const q = probe(c, zno.reduce((s, p) => s + p[0], 0) / zno.length, zno.reduce((s, p) => s + p[1], 0) / zno.length);
     expect(q.verdict).toBe('passivation');
-    expect(q.warnings.join(' ')).toMatch(/undetermined.*HZnO2-/);
-    const into = Object.values(q.crossings).filter((x) => x?.to === 'HZnO2-');
+    expect(q.warnings.join(' ')).toMatch(/undetermined.*HZnO2\^-/);
+    const into = Object.values(q.crossings).filter((x) => x?.to === 'HZnO2^-');
     expect(into.length).toBeGreaterThan(0);
     for (const x of into) expect(x!.verdict).toBe('unknown');
   });
@@ -62,22 +62,22 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
     const t = await runCli(['probe', file, '--ph', String(pH), '--potential', String(E)]);
     expect(t.code).toBe(0);
     expect(t.stdout).toMatch(/verdict: UNKNOWN/);
-    expect(t.stdout).toMatch(/warnings:\n {2}no verdict here: HZnO2-/);
+    expect(t.stdout).toMatch(/warnings:\n {2}no verdict here: HZnO₂⁻/);
     const j = JSON.parse((await runCli(['probe', file, '--ph', String(pH), '--potential', String(E), '--json'])).stdout);
     expect(j.verdict).toBe('unknown');
-    expect(j.warnings[0]).toMatch(/HZnO2-/);
+    expect(j.warnings[0]).toMatch(/HZnO2\^-/);
     const pts = writeTmp(dir, 'p.csv', `pH,potential\n${pH},${E}\n1,-0.2\n`);
     const csv = (await runCli(['probe', file, '--points', pts])).stdout.trim().split('\n');
     expect(csv[0]!.split(',').slice(-2)).toEqual(['warnings', 'error']);
     expect(csv[1]).toMatch(/unknown/);
-    expect(csv[1]).toMatch(/no verdict here: HZnO2-/);
+    expect(csv[1]).toMatch(/no verdict here: HZnO2\^-/);
     expect(csv[2]).toMatch(/undetermined away from 25 °C/);
     const lt = await runCli(['lines', file]);
-    expect(lt.stdout).toMatch(/Warnings:\n {2}undetermined away from 25 °C.*HZnO2-/);
+    expect(lt.stdout).toMatch(/Warnings:\n {2}undetermined away from 25 °C.*HZnO₂⁻/);
     const lj = JSON.parse((await runCli(['lines', file, '--json'])).stdout);
-    expect(lj.warnings[0]).toMatch(/HZnO2-/);
+    expect(lj.warnings[0]).toMatch(/HZnO2\^-/);
     const wj = JSON.parse((await runCli(['window', file, '--json'])).stdout);
-    expect(wj.warnings.join(' ')).toMatch(/HZnO2-/);
+    expect(wj.warnings.join(' ')).toMatch(/HZnO2\^-/);
     const wt = await runCli(['window', file]);
     expect(wt.stdout).toMatch(/warnings:/);
   });
@@ -88,7 +88,8 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
     const svg = String(await renderDiagram(c, 'svg', { height: '95' }));
     expect(svg.toLowerCase()).toContain(UNDETERMINED_FILL);
     expect(svg).toMatch(/>undetermined</);
-    expect(svg).toMatch(/Undetermined, no verdict \(ΔfG° only\): HZnO2-/);
+    // The caption typesets the Unicode formula: subscript 2 and superscript minus as shifted runs.
+    expect(svg).toMatch(/Undetermined, no verdict \(ΔfG° only\): HZnO<\/tspan><tspan dy="[\d.]+" font-size="[\d.]+">2<\/tspan><tspan dy="-[\d.]+" font-size="[\d.]+">−<\/tspan>/);
   });
 
   it('the report lists the caveat', async () => {
@@ -96,13 +97,13 @@ describe('undetermined species (only ΔfG°, away from 25 °C)', () => {
     const out = join(dir, 'r.md');
     const r = await runCli(['report', file, '-o', out]);
     expect(r.code).toBe(0);
-    expect(readFileSync(out, 'utf8')).toMatch(/undetermined away from 25 °C.*HZnO2-/);
+    expect(readFileSync(out, 'utf8')).toMatch(/undetermined away from 25 °C.*HZnO₂⁻/);
   });
 
   it('at 25 °C the same species is an ordinary field with a verdict', () => {
     const dir = tmpDir();
     const c = computeFile(writeTmp(dir, 'z25.json', JSON.stringify({ ...SYSTEM, temperature: 25 })));
-    const r = c.model.regions.find((x) => x.species === 'HZnO2-')!;
+    const r = c.model.regions.find((x) => x.species === 'HZnO2^-')!;
     expect(r.undetermined).toBeUndefined();
     expect(r.verdict).toBe('corrosion');
     expect(platingWindow(c.model).warnings.join(' ')).not.toMatch(/undetermined/);

@@ -9,7 +9,7 @@
  * (its predominant own species, src/solve/probe.ts). With one main element M, ψ'_k / x_{k,M} is
  * exactly the ψ of the single-element solver, so the alloy LP reduces to its argmin.
  * The species' Φ planes are computed once per input (cached); only the ligand terms vary by point.
- * Valid wherever the species data are. Worked example (tested): Fe+2 at a = 1e-6, 25 °C,
+ * Valid wherever the species data are. Worked example (tested): Fe²⁺ at a = 1e-6, 25 °C,
  * ΔfG° = −78.90 kJ/mol, pH 7, E = 0: ψ' = −78.90 + RT ln 1e-6 /1000 = −113.148 kJ/mol.
  */
 import { ligandPsiPlane } from '../ligand-psi.js';

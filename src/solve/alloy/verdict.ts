@@ -6,7 +6,7 @@
  *  - corroding: every phase is a dissolved species (the whole alloy goes into solution);
  *  - passive: nothing dissolves and at least one phase is a compound (oxide, hydroxide, sulfide…);
  *  - partly corroding: some of the alloy dissolves while the rest stays solid — `dissolving` names
- *    the elements with a share in a dissolved species (e.g. Fe goes as Fe+2 while Cr stays as Cr2O3).
+ *    the elements with a share in a dissolved species (e.g. Fe goes as Fe²⁺ while Cr stays as Cr2O3).
  *
  * This computes a classification only; no drawing.
  */

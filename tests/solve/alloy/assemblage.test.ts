@@ -17,7 +17,7 @@ const feCr = alloy({ elements: { Fe: 0.75, Cr: 0.25 }, activity: 1e-6 });
 describe('ψ\' of a species (worked example of psi.ts)', () => {
   it('Fe+2 at a = 1e-6, 25 °C, pH 7, E = 0: ΔfG° + RT ln 1e-6 = −113.148 kJ/mol (NBS 1982 ΔfG° −78.90)', () => {
     const { psi } = speciesPotentialsAt(feCr, 7, 0);
-    const k = feCr.species.findIndex((s) => s.formula === 'Fe+2');
+    const k = feCr.species.findIndex((s) => s.formula === 'Fe^2+');
     expect(psi[k]).toBeCloseTo(-78.9 + (R * 298.15 * Math.log(1e-6)) / 1000, 9);
     expect(psi[k]).toBeCloseTo(-113.148, 3);
   });
@@ -77,7 +77,7 @@ describe('verdict rules', () => {
     expect(isMetal({ phase: 'aq', elements: { Fe: 1 }, charge: 2 })).toBe(false);
   });
   it('metal + dissolved: partly corroding (Ni immune, Fe dissolves)', () => {
-    const v = assemblageVerdict([ph('Ni', 's', { Ni: 1 }, 0, { Ni: 1, Fe: 0 }), ph('Fe+2', 'aq', { Fe: 1 }, 2, { Fe: 1, Ni: 0 })], ['Fe', 'Ni']);
+    const v = assemblageVerdict([ph('Ni', 's', { Ni: 1 }, 0, { Ni: 1, Fe: 0 }), ph('Fe^2+', 'aq', { Fe: 1 }, 2, { Fe: 1, Ni: 0 })], ['Fe', 'Ni']);
     expect(v).toEqual({ verdict: 'partly-corroding', dissolving: ['Fe'] });
   });
   it('metal + oxide, nothing dissolved: passive', () => {

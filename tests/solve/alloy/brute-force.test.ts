@@ -53,7 +53,7 @@ describe('Fe–Cr (Fe 0.75, Cr 0.25), 25 °C, threshold activity 1e-6: LP = brut
 
   it('the system holds chromite and the species of both elements', () => {
     const f = input.species.map((s) => s.formula);
-    expect(f).toEqual(expect.arrayContaining(['Fe', 'Fe+2', 'Fe3O4', 'Cr', 'Cr2O3', 'FeCr2O4']));
+    expect(f).toEqual(expect.arrayContaining(['Fe', 'Fe^2+', 'Fe3O4', 'Cr', 'Cr2O3', 'FeCr2O4']));
   });
 
   it('chromite appears in the assemblage somewhere in the window', () => {
