@@ -76,7 +76,7 @@ describe('composition mode: undetermined species holding part of the element', (
     const file = writeTmp(dir, 'zn.json', JSON.stringify(SYSTEM));
     const t = await runCli(['probe', file, '--ph', '10', '--potential', '0']);
     expect(t.code, t.stderr).toBe(0);
-    expect(t.stdout).toMatch(/verdict: UNKNOWN — HZnO2-/);
+    expect(t.stdout).toMatch(/verdict: UNKNOWN — HZnO₂⁻/);
     const pts = writeTmp(dir, 'p.csv', 'pH,potential\n10,0\n5,0\n');
     const csv = (await runCli(['probe', file, '--points', pts])).stdout.trim().split('\n');
     const head = csv[0]!.split(',');

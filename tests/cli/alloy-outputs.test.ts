@@ -210,7 +210,7 @@ describe('probe --points on an alloy file', () => {
   it('reads standard input, and refuses an ionic_strength column (exit 2, header named)', () => {
     let r = run(['probe', brass, '--points', '-'], 'pH;E\n5;-0,46\n');
     expect(r.code, r.stderr).toBe(0);
-    expect(r.stdout.split('\n')[1]).toMatch(/^2;5;-0\.46;SHE;-0\.46;25;Cu \+ Zn\+2;partly-corroding;Zn;/);
+    expect(r.stdout.split('\n')[1]).toMatch(/^2;5;-0\.46;SHE;-0\.46;25;Cu \+ Zn\^2\+;partly-corroding;Zn;/);
     r = run(['probe', brass, '--points', '-'], 'pH,E,ionic_strength\n5,0,0.1\n');
     expect(r.code).toBe(2);
     expect(r.stderr).toContain('ionic_strength');
@@ -251,14 +251,14 @@ describe('a neutral dissolved species in an assemblage (Zn(OH)2(aq) in brass)', 
     expect(p.verdict).toBe('partly-corroding');
     expect(p.dissolving).toEqual(['Zn']);
     const text = run(['probe', brass, '--ph', '10', '--potential', '0']).stdout;
-    expect(text).toMatch(/Zn\(OH\)2\(aq\)\s+0\.350000\s+dissolved, holds 100\.0 % of Zn/);
+    expect(text).toMatch(/Zn\(OH\)₂\(aq\)\s+0\.350000\s+dissolved, holds 100\.0 % of Zn/);
   });
 
   it('the zinc member changes from Zn+2 to Zn(OH)2(aq) at pH 8.45 (log*β2 = −16.9; Baes & Mesmer 1976)', () => {
-    expect(probeJson([brass, '--ph', '8.40', '--potential', '0']).label).toContain('Zn+2');
+    expect(probeJson([brass, '--ph', '8.40', '--potential', '0']).label).toContain('Zn^2+');
     expect(probeJson([brass, '--ph', '8.50', '--potential', '0']).label).toContain('Zn(OH)2(aq)');
     const j = JSON.parse(run(['lines', brass, '--json']).stdout);
-    const rows = j.lines.filter((l: { between: string[] }) => l.between.some((b) => b.includes('Zn+2')) && l.between.some((b) => b.includes('Zn(OH)2(aq)')));
+    const rows = j.lines.filter((l: { between: string[] }) => l.between.some((b) => b.includes('Zn^2+')) && l.between.some((b) => b.includes('Zn(OH)2(aq)')));
     expect(rows.length).toBeGreaterThan(0);
     for (const row of rows) expect(row.line.value).toBeCloseTo(8.45, 2);
   });
@@ -300,6 +300,6 @@ describe('a neutral dissolved species in an assemblage (Zn(OH)2(aq) in brass)', 
     const md = join(dir, 'zn-report.md');
     const r = run(['report', brass, '-o', md]);
     expect(r.code, r.stderr).toBe(0);
-    expect(readFileSync(md, 'utf8')).toContain('Zn(OH)2 (dissolved) 0.35');
+    expect(readFileSync(md, 'utf8')).toContain('Zn(OH)₂ (dissolved) 0.35');
   });
 });

@@ -32,12 +32,12 @@ function fixture(): Row[] {
  * by species and property.
  */
 const UNVERIFIED: Record<string, string> = {
-  'Al+3 Cp': '1.6 J/(mol·K) off',
-  'HS- Cp': '2.5 J/(mol·K) off',
-  'SO4-2 Cp': '1.9 J/(mol·K) off',
-  'SO4-2 V': '1.0 cm³/mol off',
-  'CO3-2 V': '1.0 cm³/mol off',
-  'NH4+ Cp': '2.0 J/(mol·K) off',
+  'Al^3+ Cp': '1.6 J/(mol·K) off',
+  'HS^- Cp': '2.5 J/(mol·K) off',
+  'SO4^2- Cp': '1.9 J/(mol·K) off',
+  'SO4^2- V': '1.0 cm³/mol off',
+  'CO3^2- V': '1.0 cm³/mol off',
+  'NH4^+ Cp': '2.0 J/(mol·K) off',
   'NH3 Cp': '2.2 J/(mol·K) off',
   'O2 Cp': '8.5 J/(mol·K) off',
   'H2S V': '2.2 cm³/mol off',

@@ -49,7 +49,7 @@ describe('catalog shows the phase choice', () => {
     const { runCli } = await import('../helpers/cli.js');
     const r = await runCli(['catalog', 'Al']);
     expect(r.code, r.stderr).toBe(0);
-    expect(r.stdout).toMatch(/Al\(OH\)3 .*used below 100 °C/);
+    expect(r.stdout).toMatch(/Al\(OH\)₃ .*used below 100 °C/);
     expect(r.stdout).toMatch(/AlOOH .*used from 100 °C/);
     const j = JSON.parse((await runCli(['catalog', 'Al', '--json'])).stdout);
     const list = (j.species ?? j) as { formula: string; stableAbove?: number }[];
