@@ -129,8 +129,8 @@ export interface CellResult {
 }
 
 const HALF_CONVENTION =
-  'Electrode potential of the couple written as a reduction (ox + n e- = red), on the SHE scale at the same temperature: ' +
-  'E = -ΔrG/(nF) with the electrons supplied by the SHE (n/2 H2 = n H+ + n e-); thermoneutral potential -ΔrH/(nF); ' +
+  'Electrode potential of the couple written as a reduction (ox + n e⁻ ⇌ red), on the SHE scale at the same temperature: ' +
+  'E = -ΔrG/(nF) with the electrons supplied by the SHE (n/2 H₂ ⇌ n H⁺ + n e⁻); thermoneutral potential -ΔrH/(nF); ' +
   'dE/dT = ΔrS/(nF). Unit activities, gases at 1 bar.';
 const CHEMICAL_CONVENTION =
   'Reaction without electron transfer: ΔrG°, ΔrH°, ΔrS°, ΔrCp° and log K = -ΔrG°/(RT ln 10) of the reaction as written. ' +
@@ -213,7 +213,7 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
         formula: t.electron ? 'e-' : 'H+',
         phase: t.electron ? null : 'aq',
         coefficient: t.side * t.coefficient,
-        source: t.electron ? 'SHE at the same temperature (½H2 = H+ + e-)' : 'conventional scale: zero at every temperature',
+        source: t.electron ? 'SHE at the same temperature (½H₂ ⇌ H⁺ + e⁻)' : 'conventional scale: zero at every temperature',
       });
       continue;
     }
