@@ -18,14 +18,18 @@
 import { createReadStream, statSync } from 'node:fs';
 import { EphmapError, InputError, PartialError } from '../errors.js';
 import { CsvRecordReader, type CsvRecord, MAX_RECORD } from '../io/csv-records.js';
+import { CsvCutter, type CsvPiece } from '../io/csv-cut.js';
 import { fileSink, type OutputSink, stdoutSink } from '../io/stream-output.js';
 import { refuseInputsAsOutputs, requireExtension } from '../io/path-safety.js';
-import { pointsAnswerer } from '../analysis/points-answer.js';
-import { type PointRow, type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsRowLine, readPointRow, writePointsRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
+import type { PotentialUnit } from '../report/points-csv.js';
+import { fixedActivityRows, recordLines, type RowAnswerer } from './points-records.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { RowBytes } from '../report/row-bytes.js';
 import { progressBar } from './progress.js';
+import { type PieceDone, PIECE_CHARS, PointsPool, useWorkers, workerEntry } from './points-pool.js';
+
+export { fixedActivityRows, type RowAnswerer } from './points-records.js';
 
 export interface PointsOptions {
   points: string;
@@ -43,6 +47,8 @@ export interface PointsOptions {
  */
 const IN_CHUNK = 1 << 16;
 const OUT_BATCH = 1 << 18;
+/** Pieces answered or being answered at once in a run with a worker (points-pool.ts). */
+const IN_FLIGHT = 2;
 
 const SEPARATORS: Record<string, string> = { ',': ',', ';': ';', tab: '\t', '\t': '\t' };
 
@@ -61,90 +67,6 @@ function unitOf(option: string | undefined): PotentialUnit | undefined {
   if (option === undefined) return undefined;
   if (option === 'V' || option === 'mV') return option;
   throw new InputError('command line', '--unit', 'V or mV', option);
-}
-
-/**
- * What answers the rows of a series: the output header for the input's (it may refuse the header
- * with an InputError), one row's output line — `failed` when the line is written but holds no
- * answer (counted for exit status 4, never stopped by --strict: the row itself is well formed) —
- * or why the row cannot be answered, and the line written for such a row.
- */
-export interface RowAnswerer {
-  header(h: PointsHeader, sep: string): string;
-  row(row: PointRow, sep: string): { text: string; failed?: boolean } | { error: string };
-  errorRow(extra: readonly string[], line: number, message: string, sep: string): string;
-  /**
-   * Optional, instead of `row` for speed: the row's line written into `out` (report/row-bytes.ts),
-   * or why the row cannot be answered (nothing written then).
-   */
-  write?(row: PointRow, sep: string, out: RowBytes): { error: string } | undefined;
-  /** Where the output says why a row has no answer (the PartialError names it). */
-  failedIn?: string;
-}
-
-/** The fixed-activity answerer: `probe --ph --potential` on the diagram at each row's condition. */
-export function fixedActivityRows(spec: SystemSpec, ref: string | CustomReference | undefined, name: string): RowAnswerer {
-  const answerer = pointsAnswerer(spec, ref, name);
-  return {
-    header: pointsOutputHeader,
-    row(row, sep) {
-      const a = answerer.row(row);
-      return 'error' in a ? a : { text: pointsRowLine(row, a.scale, a.E, a.fields, a.more, sep) };
-    },
-    write(row, sep, out) {
-      const a = answerer.row(row);
-      if ('error' in a) return a;
-      writePointsRow(out, row, a.scale, a.E, a.fields, a.more, sep);
-      return undefined;
-    },
-    errorRow: pointsErrorRow,
-  };
-}
-
-/** Step 3: each record to its output text (the header's, a row's answer, or a row's error). */
-function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: RowAnswerer) {
-  const st = { sep: ',', header: undefined as PointsHeader | undefined, rows: 0, failed: 0, writeRecord };
-  function failedRow(r: CsvRecord, e: RowError, plain?: string): string {
-    const line = r.line;
-    if (strict) throw plain !== undefined ? new InputError(name, `line ${line}`, 'a row the system can answer', plain) : new InputError(name, e.field, e.expected, e.got);
-    st.failed++;
-    // The carried cells, taken only for a failed row (an answered row carries them in `row.extra`).
-    const extra = st.header!.extra.map((x) => r.fields[x.index] ?? '');
-    return answerer.errorRow(extra, line, plain ?? rowErrorText(e), st.sep);
-  }
-  /** The record's output into `out` (answerers with `write` write the row themselves). */
-  function writeRecord(r: CsvRecord, out: RowBytes): void {
-    if (answerer.write && st.header && !r.error && r.fields.length === st.header.width) {
-      st.rows++;
-      const row = readPointRow(r.fields, r.line, st.header, st.sep !== ',');
-      if (!('extra' in row)) return out.text(failedRow(r, row));
-      const e = answerer.write(row, st.sep, out);
-      if (e) out.text(failedRow(r, { field: `line ${r.line}`, expected: '' }, e.error));
-      return;
-    }
-    out.text(lineFor(r));
-  }
-  function lineFor(r: CsvRecord): string {
-    if (r.fields.length === 1 && r.fields[0].trim() === '') return '';
-    const h = st.header;
-    if (!h) {
-      if (r.fields[0].trimStart().startsWith('#')) return '';
-      if (r.error) throw new InputError(name, `line ${r.line} (header)`, r.error);
-      st.header = readPointsHeader(r.fields, name, unit);
-      return answerer.header(st.header, st.sep);
-    }
-    // After the header every record is a row (a `#` line there is answered or refused, never dropped).
-    st.rows++;
-    if (r.error) return failedRow(r, { field: `line ${r.line}`, expected: r.error });
-    if (r.fields.length !== h.width) return failedRow(r, { field: `line ${r.line}`, expected: `${h.width} cells as in the header`, got: String(r.fields.length) });
-    const row = readPointRow(r.fields, r.line, h, st.sep !== ',');
-    if (!('extra' in row)) return failedRow(r, row);
-    const a = answerer.row(row, st.sep);
-    if ('error' in a) return failedRow(r, { field: `line ${r.line}`, expected: '' }, a.error);
-    if (a.failed) st.failed++;
-    return a.text;
-  }
-  return st;
 }
 
 /**
@@ -192,6 +114,52 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
     pending.catch(() => undefined); // awaited at the next flush or at the end
     out = out === buffers[0] ? buffers[1] : buffers[0];
   };
+  // Written in batches of about OUT_BATCH bytes, whatever the input chunk's size (standard
+  // input comes in pipe-sized chunks); the buffer is reused once its write has settled.
+  const writeRecords = async (): Promise<void> => {
+    for (const r of records) {
+      lines.writeRecord(r, out);
+      if (out.length >= OUT_BATCH) await flush();
+    }
+    records.length = 0;
+    // What this chunk answered is written now (a pipe's rows appear as they come).
+    if (out.length) await flush();
+  };
+  // Long file inputs: pieces answered by worker threads once the header is read (points-pool.ts).
+  const workers = rows ? false : useWorkers(size, true);
+  let cutter: CsvCutter | undefined;
+  let pool: PointsPool | undefined;
+  const written = async ({ piece: r, written: done }: { piece: PieceDone; written: () => void }): Promise<void> => {
+    await flush();
+    if (pending) await pending;
+    pending = sink.write(r.bytes).then(done);
+    pending.catch(() => undefined);
+    lines.rows += r.rows;
+    lines.failed += r.failed;
+  };
+  const piece = async (p: CsvPiece, last: boolean): Promise<void> => {
+    if (!lines.header) {
+      reader!.push(p.text, records);
+      if (last) reader!.end(records);
+      return writeRecords();
+    }
+    pool ??= new PointsPool(workerEntry()!, { spec, ref, name, sep: lines.sep, header: lines.header, strict: o.strict === true }, 1, true);
+    pool.submit(p.text, p.line, last);
+    while (pool.inFlight >= IN_FLIGHT) await written(await pool.next());
+  };
+  const take = async (text: string): Promise<void> => {
+    if (!cutter) {
+      reader!.push(text, records);
+      return writeRecords();
+    }
+    // Record by record up to the header (read here); the rest of the chunk as one piece, and
+    // pieces of PIECE_CHARS from then on.
+    const ps = cutter.push(text);
+    let k = 0;
+    for (; k < ps.length && !lines.header; k++) await piece(ps[k], false);
+    if (lines.header) cutter.setTarget(PIECE_CHARS);
+    if (k < ps.length) await piece({ text: ps.slice(k).map((p) => p.text).join(''), line: ps[k].line }, false);
+  };
   try {
     for await (const chunk of input as AsyncIterable<string>) {
       bytes += Buffer.byteLength(chunk);
@@ -205,18 +173,10 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
         }
         lines.sep = separatorFor(o.delimiter, first);
         reader = new CsvRecordReader(lines.sep, name);
-        reader.push(head, records);
+        if (workers) cutter = new CsvCutter(lines.sep, name, 1);
+        await take(head);
         head = '';
-      } else reader.push(chunk, records);
-      // Written in batches of about OUT_BATCH bytes, whatever the input chunk's size (standard
-      // input comes in pipe-sized chunks); the buffer is reused once its write has settled.
-      for (const r of records) {
-        lines.writeRecord(r, out);
-        if (out.length >= OUT_BATCH) await flush();
-      }
-      records.length = 0;
-      // What this chunk answered is written now (a pipe's rows appear as they come).
-      if (out.length) await flush();
+      } else await take(chunk);
       bar.update(bytes, lines.rows);
     }
     if (!reader) {
@@ -224,6 +184,9 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
       reader = new CsvRecordReader(lines.sep, name);
       reader.push(head, records);
     }
+    const rest = cutter?.end();
+    if (rest) await piece(rest, true);
+    while (pool?.inFlight) await written(await pool.next());
     reader.end(records);
     for (const r of records) lines.writeRecord(r, out);
     if (!lines.header) throw new InputError(name, '', 'a CSV with a header row (pH, potential[, temperature]) and data rows', 'no header');
@@ -231,9 +194,11 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
     await flush();
     await flush(); // waits for the last write
     bar.done();
+    await pool?.close();
     await sink.commit();
   } catch (e) {
     bar.done();
+    await pool?.close();
     await pending?.catch(() => undefined); // no write in flight while the output is dropped
     await sink.abort();
     if (!(e instanceof EphmapError) && typeof (e as NodeJS.ErrnoException).code === 'string' && (e as NodeJS.ErrnoException).code!.startsWith('E')) throw new InputError(o.points, '', 'a readable CSV file', 'a file that cannot be read');
