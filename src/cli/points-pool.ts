@@ -47,7 +47,8 @@ export type PieceResult = PieceDone | { id: number; error: PieceError };
 
 /**
  * Input characters per piece (about 3,000 rows; the output is about ten times as long). 10⁶ rows,
- * main thread + 1 worker: peak RSS ~115–124 MB with 64 kB pieces, ~162 MB with 256 kB.
+ * main thread + 1 worker: peak RSS ~112 MB with 64 kB pieces, ~123–136 MB with 32 kB (more
+ * pieces in flight for the same overlap), ~160 MB with 256 kB.
  */
 export const PIECE_CHARS = 1 << 16;
 
@@ -99,7 +100,8 @@ export class PointsPool {
   constructor(entry: string, data: PointsWorkerData, count: number, local = false) {
     this.local = local ? pieceAnswerer(data) : undefined;
     for (let k = 0; k < count; k++) {
-      const w = new Worker(entry, { workerData: data });
+      // No command-line options of the main thread: they may be a script (`node -e ...`).
+      const w = new Worker(entry, { workerData: data, execArgv: [] });
       const slot = { w };
       w.on('message', (r: PieceResult) => {
         this.waiting.find((x) => x.id === r.id)?.resolve(r);
@@ -156,8 +158,10 @@ export class PointsPool {
     await Promise.all(all.map((s) => s.w.terminate()));
   }
 
+  /** A worker that fails stops the run as an internal error (never taken for a bad input file). */
   private failAll(e: unknown): void {
     if (!this.workers.length) return; // closed: the exits are ours
-    for (const x of this.waiting) x.reject(e);
+    const failure = new Error(`a worker thread of probe --points failed: ${e instanceof Error ? e.message : String(e)}`);
+    for (const x of this.waiting) x.reject(failure);
   }
 }
