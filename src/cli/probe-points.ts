@@ -18,16 +18,16 @@
 import { createReadStream, statSync } from 'node:fs';
 import { EphmapError, InputError, PartialError } from '../errors.js';
 import { CsvRecordReader, type CsvRecord, MAX_RECORD } from '../io/csv-records.js';
-import { CsvCutter, type CsvPiece } from '../io/csv-cut.js';
 import { fileSink, type OutputSink, stdoutSink } from '../io/stream-output.js';
 import { refuseInputsAsOutputs, requireExtension } from '../io/path-safety.js';
 import type { PotentialUnit } from '../report/points-csv.js';
 import { fixedActivityRows, recordLines, type RowAnswerer } from './points-records.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
-import { RowBytes } from '../report/row-bytes.js';
 import { progressBar } from './progress.js';
-import { type PieceDone, PIECE_CHARS, PointsPool, useWorkers, workerEntry } from './points-pool.js';
+import { useWorkers } from './points-pool.js';
+import { type Feed, piecesFeed, plainFeed } from './points-pieces.js';
+import { PointsOutput } from './points-output.js';
 
 export { fixedActivityRows, type RowAnswerer } from './points-records.js';
 
@@ -103,107 +103,54 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
   const answerer = rows ? rows(name) : fixedActivityRows(spec, ref, name);
   const bar = progressBar(process.stderr, size);
   let reader: CsvRecordReader | undefined;
+  let feed: Feed | undefined;
   let head = '';
   let bytes = 0;
   const records: CsvRecord[] = [];
   const lines = recordLines(name, unit, o.strict === true, answerer);
-  // Two buffers in turn: one is written out while the next rows go into the other.
-  const buffers = [new RowBytes(OUT_BATCH + (OUT_BATCH >> 2)), new RowBytes(OUT_BATCH + (OUT_BATCH >> 2))];
-  let out = buffers[0];
-  let pending: Promise<void> | undefined;
-  const flush = async (): Promise<void> => {
-    if (pending) await pending; // the other buffer is free again
-    if (!out.length) return;
-    pending = sink.write(out.take());
-    pending.catch(() => undefined); // awaited at the next flush or at the end
-    out = out === buffers[0] ? buffers[1] : buffers[0];
-  };
-  // Written in batches of about OUT_BATCH bytes, whatever the input chunk's size (standard
-  // input comes in pipe-sized chunks); the buffer is reused once its write has settled.
-  const writeRecords = async (): Promise<void> => {
-    for (const r of records) {
-      lines.writeRecord(r, out);
-      if (out.length >= OUT_BATCH) await flush();
-    }
-    records.length = 0;
-    // What this chunk answered is written now (a pipe's rows appear as they come).
-    if (out.length) await flush();
-  };
-  // Long file inputs: pieces answered by worker threads once the header is read (points-pool.ts).
+  const output = new PointsOutput(sink, OUT_BATCH);
+  // Long file inputs: pieces answered by the main thread and a worker once the header is read.
   const workers = rows ? false : useWorkers(size, true);
-  let cutter: CsvCutter | undefined;
-  let pool: PointsPool | undefined;
-  const written = async ({ piece: r, written: done }: { piece: PieceDone; written: () => void }): Promise<void> => {
-    await flush();
-    if (pending) await pending;
-    pending = sink.write(r.bytes).then(done);
-    pending.catch(() => undefined);
-    lines.rows += r.rows;
-    lines.failed += r.failed;
-  };
-  const piece = async (p: CsvPiece, last: boolean): Promise<void> => {
-    if (!lines.header) {
-      reader!.push(p.text, records);
-      if (last) reader!.end(records);
-      return writeRecords();
-    }
-    pool ??= new PointsPool(workerEntry()!, { spec, ref, name, sep: lines.sep, header: lines.header, strict: o.strict === true }, 1, true);
-    pool.submit(p.text, p.line, last);
-    while (pool.inFlight >= IN_FLIGHT) await written(await pool.next());
-  };
-  const take = async (text: string): Promise<void> => {
-    if (!cutter) {
-      reader!.push(text, records);
-      return writeRecords();
-    }
-    // Record by record up to the header (read here); the rest of the chunk as one piece, and
-    // pieces of PIECE_CHARS from then on.
-    const ps = cutter.push(text);
-    let k = 0;
-    for (; k < ps.length && !lines.header; k++) await piece(ps[k], false);
-    if (lines.header) cutter.setTarget(PIECE_CHARS);
-    if (k < ps.length) await piece({ text: ps.slice(k).map((p) => p.text).join(''), line: ps[k].line }, false);
+  const startFeed = (sep: string): void => {
+    lines.sep = sep;
+    reader = new CsvRecordReader(sep, name);
+    const parts = { reader, records, lines, output };
+    feed = workers ? piecesFeed(parts, name, IN_FLIGHT, () => ({ spec, ref, name, sep, header: lines.header!, strict: o.strict === true })) : plainFeed(parts);
   };
   try {
     for await (const chunk of input as AsyncIterable<string>) {
       bytes += Buffer.byteLength(chunk);
       // Step 2: the separator, once the header line is complete.
-      if (!reader) {
+      if (!feed) {
         head += chunk;
         const first = head.split(/\r\n|\n|\r/).find((l, k, all) => k < all.length - 1 && l.trim() !== '' && !l.trimStart().startsWith('#'));
         if (first === undefined) {
           if (head.length > MAX_RECORD) throw new InputError(name, 'header', `a header line of at most ${MAX_RECORD} characters`);
           continue;
         }
-        lines.sep = separatorFor(o.delimiter, first);
-        reader = new CsvRecordReader(lines.sep, name);
-        if (workers) cutter = new CsvCutter(lines.sep, name, 1);
-        await take(head);
+        startFeed(separatorFor(o.delimiter, first));
+        await feed!.take(head);
         head = '';
-      } else await take(chunk);
+      } else await feed.take(chunk);
       bar.update(bytes, lines.rows);
     }
-    if (!reader) {
-      lines.sep = separatorFor(o.delimiter, head);
-      reader = new CsvRecordReader(lines.sep, name);
-      reader.push(head, records);
+    if (!feed) {
+      startFeed(separatorFor(o.delimiter, head));
+      reader!.push(head, records);
     }
-    const rest = cutter?.end();
-    if (rest) await piece(rest, true);
-    while (pool?.inFlight) await written(await pool.next());
-    reader.end(records);
-    for (const r of records) lines.writeRecord(r, out);
+    await feed!.end();
+    reader!.end(records);
+    for (const r of records) lines.writeRecord(r, output.out);
     if (!lines.header) throw new InputError(name, '', 'a CSV with a header row (pH, potential[, temperature]) and data rows', 'no header');
     if (lines.rows === 0) throw new InputError(name, '', 'at least one data row after the header');
-    await flush();
-    await flush(); // waits for the last write
+    await output.end();
     bar.done();
-    await pool?.close();
+    await feed!.close();
     await sink.commit();
   } catch (e) {
     bar.done();
-    await pool?.close();
-    await pending?.catch(() => undefined); // no write in flight while the output is dropped
+    await feed?.close();
+    await output.settle(); // no write in flight while the output is dropped
     await sink.abort();
     if (!(e instanceof EphmapError) && typeof (e as NodeJS.ErrnoException).code === 'string' && (e as NodeJS.ErrnoException).code!.startsWith('E')) throw new InputError(o.points, '', 'a readable CSV file', 'a file that cannot be read');
     throw e;
