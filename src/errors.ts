@@ -47,6 +47,8 @@ export class InputError extends EphmapError {
   readonly file: string;
   readonly field: string;
   readonly expected: string;
+  /** What was found instead, as given (the message caps its length). */
+  readonly got: string | undefined;
 
   constructor(file: string, field: string, expected: string, got?: string) {
     const where = field ? `${capText(file, 200)}: ${capText(field, 100)}` : capText(file, 200);
@@ -55,6 +57,7 @@ export class InputError extends EphmapError {
     this.file = file;
     this.field = field;
     this.expected = expected;
+    this.got = got;
   }
 }
 

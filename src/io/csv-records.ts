@@ -33,10 +33,20 @@ export class CsvRecordReader {
   private line = 1;
   private started = false;
 
+  /**
+   * `firstLine`: for a piece of a longer input cut at a record boundary (csv-cut.ts), the line
+   * its first record starts on; the piece is not the start of the input (no byte-order mark).
+   */
   constructor(
     private readonly sep: string,
     private readonly file: string,
-  ) {}
+    firstLine?: number,
+  ) {
+    if (firstLine !== undefined) {
+      this.line = firstLine;
+      this.started = true;
+    }
+  }
 
   /** Records completed by this chunk, in order. */
   push(chunk: string, out: CsvRecord[] = []): CsvRecord[] {
