@@ -155,7 +155,7 @@ export async function runPoints(file: string, spec: SystemSpec, ref: string | Cu
     if (!(e instanceof EphmapError) && typeof (e as NodeJS.ErrnoException).code === 'string' && (e as NodeJS.ErrnoException).code!.startsWith('E')) throw new InputError(o.points, '', 'a readable CSV file', 'a file that cannot be read');
     throw e;
   }
-  if (toFile) process.stdout.write(`wrote ${o.output} (${lines.rows} rows${lines.failed ? `, ${lines.failed} not answered` : ''})\n`);
+  if (toFile) process.stdout.write(`wrote ${o.output} (${lines.rows} row${lines.rows === 1 ? '' : 's'}${lines.failed ? `, ${lines.failed} not answered` : ''})\n`);
   // Step 4.
   if (lines.failed) throw new PartialError(`${lines.failed} of ${lines.rows} rows of ${name} could not be answered (see their ${answerer.failedIn ?? 'error column'})`);
 }
