@@ -41,9 +41,14 @@ export async function writeLog(path: string, rows: number, temperatures: boolean
   await new Promise<void>((r, j) => out.end((e?: Error | null) => (e ? j(e) : r())));
 }
 
-/** Runs `probe SYSTEM --points LOG -o OUT` in a child that reports its own CPU time and peak RSS. */
+/**
+ * Runs `probe SYSTEM --points LOG -o OUT` in a child that reports its own CPU time and peak RSS.
+ * The peak is VmHWM of /proc/self/status (the child's own memory, worker threads included): on
+ * Linux getrusage's maxrss survives exec, so a child of a large parent (run.ts after the other
+ * benches) would report the parent's size instead; maxrss is the fallback elsewhere.
+ */
 export function runPointsChild(cli: string, system: string, log: string, out: string): PointsBench {
-  const probe = `const t=process.hrtime.bigint();process.on('exit',()=>{const u=process.resourceUsage();process.stderr.write('\\nBENCH '+JSON.stringify({cpu:(u.userCPUTime+u.systemCPUTime)/1e6,rss:u.maxRSS/1024})+'\\n')});process.argv=[process.argv[0],${JSON.stringify(cli)},'probe',${JSON.stringify(system)},'--points',${JSON.stringify(log)},'-o',${JSON.stringify(out)}];await import(${JSON.stringify(`file://${cli}`)});`;
+  const probe = `import {readFileSync as __rf} from 'node:fs';const t=process.hrtime.bigint();process.on('exit',()=>{const u=process.resourceUsage();let hwm=u.maxRSS;try{const m=/VmHWM:\\s*(\\d+)/.exec(__rf('/proc/self/status','utf8'));if(m)hwm=Number(m[1])}catch{}process.stderr.write('\\nBENCH '+JSON.stringify({cpu:(u.userCPUTime+u.systemCPUTime)/1e6,rss:hwm/1024})+'\\n')});process.argv=[process.argv[0],${JSON.stringify(cli)},'probe',${JSON.stringify(system)},'--points',${JSON.stringify(log)},'-o',${JSON.stringify(out)}];await import(${JSON.stringify(`file://${cli}`)});`;
   const t0 = performance.now();
   const r = spawnSync(process.execPath, ['--input-type=module', '-e', probe], { encoding: 'utf8' });
   const seconds = (performance.now() - t0) / 1000;
