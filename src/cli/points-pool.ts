@@ -55,8 +55,8 @@ export const PIECE_CHARS = 1 << 16;
 /**
  * Pieces a worker may hold before the main thread answers the next piece itself. With 2 pieces in
  * flight (probe-points.ts), 1 keeps the worker busy while the main thread reads, answers and
- * writes: 10⁶ rows in 2.3–2.8 s, peak RSS 111–113 MB on the 2-core test machine, against
- * 3.1–3.3 s for strict turns; 2–3 queued were as fast but took 121–140 MB.
+ * writes: 10⁶ rows in 2.1–3.6 s, peak RSS 112–115 MB on the 2-core test machine, against
+ * 3.1–3.3 s for strict turns; 2–3 queued were no faster and took 120–140 MB.
  */
 const WORKER_QUEUE = 1;
 
