@@ -16,9 +16,9 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildSync } from 'esbuild';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseFormula, splitPhase } from '../../src/chem/parse.js';
+import { testCli } from '../helpers/bundle.js';
 import { tmpDir } from '../helpers/tmp.js';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -42,18 +42,7 @@ function run(args: string[], input?: string): { code: number; stdout: string; st
 
 beforeAll(() => {
   dir = tmpDir();
-  // Two levels below the repository, as dist/cli/ephmap.mjs is, so that species/ is found.
-  cli = join(root, 'node_modules', '.ephmap-test', `alloyout-${process.pid}.mjs`);
-  buildSync({
-    entryPoints: [join(root, 'src', 'cli', 'main.ts')],
-    outfile: cli,
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    external: ['pdfkit', '@resvg/resvg-js', 'svgdom', 'playwright-core'],
-    banner: { js: "import { createRequire as __r } from 'node:module';\nconst require = __r(import.meta.url);" },
-    logLevel: 'silent',
-  });
+  cli = testCli('alloyout');
   brass = join(dir, 'brass.yaml');
   writeFileSync(brass, 'elements: {Cu: 0.65, Zn: 0.35}\nactivity: 1.0e-6\ngrid: 40\n');
   brassSce = join(dir, 'brass-sce.yaml');

@@ -8,8 +8,8 @@ import { spawn, spawnSync } from 'node:child_process';
 import { chmodSync, cpSync, linkSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, symlinkSync, utimesSync, watch, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildSync } from 'esbuild';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { bundleCli } from '../helpers/bundle.js';
 import { tmpDir } from '../helpers/tmp.js';
 
 const root = resolve(fileURLToPath(new URL('.', import.meta.url)), '..', '..');
@@ -20,17 +20,7 @@ beforeAll(() => {
   const dir = tmpDir();
   chmodSync(dir, 0o755);
   bin = join(dir, 'dist', 'cli', 'ephmap.mjs');
-  buildSync({
-    entryPoints: [join(root, 'src', 'cli', 'main.ts')],
-    outfile: bin,
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    target: 'node20',
-    external: ['pdfkit', '@resvg/resvg-js', 'svgdom', 'playwright-core'],
-    banner: { js: "import { createRequire as __ephmapRequire } from 'node:module';\nconst require = __ephmapRequire(import.meta.url);" },
-    logLevel: 'silent',
-  });
+  bundleCli(bin);
   // A copy, not a link: the checkout may sit in a folder other users cannot enter (CI's clean clone),
   // and the unprivileged-user case below must still read the library.
   cpSync(join(root, 'species'), join(dir, 'species'), { recursive: true });

@@ -5,30 +5,17 @@
 import { spawn } from 'node:child_process';
 import { readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { buildSync } from 'esbuild';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { testCli } from '../helpers/bundle.js';
 import { tmpDir } from '../helpers/tmp.js';
 
-const root = fileURLToPath(new URL('../..', import.meta.url));
 let cli = '';
 let dir = '';
 let fe = '';
 
 beforeAll(() => {
   dir = tmpDir();
-  // Two levels below the repository, as dist/cli/ephmap.mjs is, so that species/ is found.
-  cli = join(root, 'node_modules', '.ephmap-test', `points-${process.pid}.mjs`);
-  buildSync({
-    entryPoints: [join(root, 'src', 'cli', 'main.ts')],
-    outfile: cli,
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    external: ['pdfkit', '@resvg/resvg-js', 'svgdom', 'playwright-core'],
-    banner: { js: "import { createRequire as __r } from 'node:module';\nconst require = __r(import.meta.url);" },
-    logLevel: 'silent',
-  });
+  cli = testCli('points');
   fe = join(dir, 'fe.yaml');
   writeFileSync(fe, 'element: Fe\nactivity: 1.0e-6\nE: [-1.2, 1.6]\n');
 }, 60_000);

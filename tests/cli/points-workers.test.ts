@@ -7,11 +7,11 @@
  * when it starts, so the test knows the worker path ran. The log is our own made-up series.
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildSync } from 'esbuild';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { bundleCli } from '../helpers/bundle.js';
 import { tmpDir } from '../helpers/tmp.js';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -27,22 +27,6 @@ let mark = '';
 /** Lines (1-based) of the rows with pH "abc", in input order, counted while writing the log. */
 const badLines: number[] = [];
 
-const banner = "import { createRequire as __r } from 'node:module';\nconst require = __r(import.meta.url);";
-
-function bundle(entry: string, outfile: string, extra = ''): void {
-  const tmp = `${outfile}.${process.pid}.tmp`;
-  buildSync({
-    entryPoints: [join(root, 'src', 'cli', entry)],
-    outfile: tmp,
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    external: ['pdfkit', '@resvg/resvg-js', 'svgdom', 'playwright-core'],
-    banner: { js: banner + extra },
-    logLevel: 'silent',
-  });
-  renameSync(tmp, outfile);
-}
 
 /** A made-up log: `;`, decimal commas, mV, two temperatures, quoted notes with line breaks, bad rows. */
 function writeLog(path: string): void {
@@ -81,8 +65,8 @@ const pieces = (args: string[]) => run(args, '0');
 beforeAll(() => {
   dir = tmpDir();
   mkdirSync(bundles, { recursive: true });
-  bundle('main.ts', cli);
-  bundle('points-worker.ts', workerBundle, "\nif (process.env.EPHMAP_TEST_WORKER_MARK) require('node:fs').writeFileSync(process.env.EPHMAP_TEST_WORKER_MARK, 'started');");
+  bundleCli(cli);
+  bundleCli(workerBundle, 'points-worker.ts', "\nif (process.env.EPHMAP_TEST_WORKER_MARK) require('node:fs').writeFileSync(process.env.EPHMAP_TEST_WORKER_MARK, 'started');");
   fe = join(dir, 'fe.yaml');
   writeFileSync(fe, 'element: Fe\nactivity: 1.0e-6\nE: [-1.2, 1.6]\n');
   log = join(dir, 'log.csv');
