@@ -46,13 +46,25 @@ export interface EquationTerm {
   coefficientText?: string;
 }
 
+/** A formula's charge, remembered per text (reactions repeat the same few formulas; emptied at 4096). */
+const CHARGES = new Map<string, number>();
+function chargeOf(formula: string): number {
+  let z = CHARGES.get(formula);
+  if (z === undefined) {
+    z = parseFormula(formula).charge;
+    if (CHARGES.size >= 4096) CHARGES.clear();
+    CHARGES.set(formula, z);
+  }
+  return z;
+}
+
 function termText(t: EquationTerm, notation: Notation): string {
   const mag = t.coefficientText ?? formatNumber(Math.abs(t.nu));
   const c = mag === '1' ? '' : mag;
   if (isElectron(t.formula)) return c + (notation === 'unicode' ? ELECTRON_UNICODE : ELECTRON_ASCII);
   const spelled = notation === 'unicode' ? formulaUnicode(t.formula) : formulaAscii(t.formula);
   const p = t.phase;
-  const tag = p === 's' || p === 'l' || p === 'g' || (p === 'aq' && parseFormula(t.formula).charge === 0) ? `(${p})` : '';
+  const tag = p === 's' || p === 'l' || p === 'g' || (p === 'aq' && chargeOf(t.formula) === 0) ? `(${p})` : '';
   return c + spelled + tag;
 }
 

@@ -89,6 +89,25 @@ function spell(tokens: readonly FormulaToken[], style: Style): string {
 const textOf = (f: Formula | string): string => (typeof f === 'string' ? f : f.text);
 
 /**
+ * Spellings already worked out, per style (text → text). A system is rebuilt at every distinct
+ * temperature of a logged series, re-spelling the same few dozen formulas each time; the memo is
+ * emptied when it reaches MEMO_MAX entries so that it stays small whatever the input. Only valid
+ * formulas are kept (an invalid one throws before it is stored).
+ */
+const MEMO_MAX = 4096;
+const ASCII_MEMO = new Map<string, string>();
+const UNICODE_MEMO = new Map<string, string>();
+
+function spelled(memo: Map<string, string>, text: string, style: Style): string {
+  const hit = memo.get(text);
+  if (hit !== undefined) return hit;
+  const s = spell(tokenizeFormula(text), style);
+  if (memo.size >= MEMO_MAX) memo.clear();
+  memo.set(text, s);
+  return s;
+}
+
+/**
  * The formula as people read it: counts as Unicode subscripts, the charge as Unicode superscripts
  * with the number before the sign and 1 omitted (IUPAC Green Book, 3rd ed. 2007, §2.10.1: "Fe³⁺",
  * "SO₄²⁻"). Brackets, order and hydrate parts are kept as written; the hydrate dot is "·".
@@ -96,7 +115,7 @@ const textOf = (f: Formula | string): string => (typeof f === 'string' ? f : f.t
  * Accepts a parsed Formula or formula text (throws FormulaError on invalid text).
  */
 export function formulaUnicode(f: Formula | string): string {
-  return spell(tokenizeFormula(textOf(f)), 'unicode');
+  return spelled(UNICODE_MEMO, textOf(f), 'unicode');
 }
 
 /**
@@ -106,7 +125,7 @@ export function formulaUnicode(f: Formula | string): string {
  * parseFormula(formulaAscii(f)) has f's counts (same key order) and charge.
  */
 export function formulaAscii(f: Formula | string): string {
-  return spell(tokenizeFormula(textOf(f)), 'ascii');
+  return spelled(ASCII_MEMO, textOf(f), 'ascii');
 }
 
 /**

@@ -197,3 +197,24 @@ describe('random formulas (property)', () => {
     );
   });
 });
+
+describe('remembered spellings (write.ts memo)', () => {
+  it('keeps the two styles apart and gives the same text once the memo has been emptied', () => {
+    // Worked examples as above, asked in turns so that a memo shared by the styles would show.
+    for (let k = 0; k < 3; k++) {
+      expect(formulaUnicode('Fe+2')).toBe('Fe²⁺');
+      expect(formulaAscii('Fe+2')).toBe('Fe^2+');
+      expect(formulaAscii('Fe²⁺')).toBe('Fe^2+');
+      expect(formulaUnicode('HFeO2-')).toBe('HFeO₂⁻');
+    }
+    // More distinct formulas than the memo holds (4096): it is emptied and filled again.
+    for (let n = 2; n <= 5001; n++) expect(formulaAscii(`C${n}H${n + 1}+`)).toBe(`C${n}H${n + 1}^+`);
+    expect(formulaUnicode('Fe(CN)6-4')).toBe('Fe(CN)₆⁴⁻');
+    expect(formulaAscii('Fe(CN)₆⁴⁻')).toBe('Fe(CN)6^4-');
+  });
+
+  it('an invalid formula throws every time (never remembered)', () => {
+    expect(() => formulaAscii('Fe+2+')).toThrow();
+    expect(() => formulaAscii('Fe+2+')).toThrow();
+  });
+});
