@@ -13,6 +13,11 @@
  *     costs one computation for that row.
  * A condition that cannot be computed (e.g. beyond the data's temperature range) is remembered
  * and every row at it gets the same error.
+ *
+ * One difference from a single probe: a diagram at a condition other than the file's own (a row's
+ * temperature or ionic strength) is cross-checked on a ROW_CHECK_GRID² grid instead of the file's
+ * `grid` (pipeline.ts; the check only warns, the row is answered by the exact argmin) — a log with
+ * a temperature per row computes thousands of diagrams.
  */
 import { compute, type Computed } from '../pipeline.js';
 import type { SystemSpec } from '../system/spec.js';
@@ -43,6 +48,9 @@ export type PointAnswer = { scale: string; result: ProbeResult; warnings: string
  * this point beyond the probe's own (`more`, e.g. the reference electrode's).
  */
 export type PointRowAnswer = { scale: string; E: number; fields: RowProbe; more: readonly string[] } | { error: string };
+
+/** Nodes per side of the topology cross-check at a row's own condition (see the module comment). */
+export const ROW_CHECK_GRID = 50;
 
 interface Condition {
   c?: Computed;
@@ -77,7 +85,8 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
   const cached = conditionCache((key: string): Condition => {
     computations++;
     const [T, I] = key.split('|');
-    const r = orError(() => compute(specAt(spec, Number(T), I === undefined ? undefined : Number(I))));
+    const own = Number(T) === spec.temperature && I === undefined;
+    const r = orError(() => compute(specAt(spec, Number(T), I === undefined ? undefined : Number(I)), own ? {} : { checkGrid: ROW_CHECK_GRID }));
     return 'value' in r ? { c: r.value, warnings: r.value.model.warnings } : { error: r.error, warnings: [] };
   });
   const lookup = (celsius: number, I: number | undefined): Condition => cached(I === undefined ? `${celsius}` : `${celsius}|${I}`);

@@ -40,4 +40,30 @@ describe('pointsAnswerer', () => {
     expect('result' in r1 && r1.result.margin).toEqual(file.margin);
     expect('result' in r0 && r0.result.margin.kJPerMol).not.toBeCloseTo(file.margin.kJPerMol, 1);
   });
+
+  it('rows at their own temperatures (coarser cross-check grid) answer as a single probe at that temperature does, for every library element', () => {
+    // Every element of the built-in library, at three temperatures other than the file's own and
+    // at four points each: the row's whole ProbeResult, warnings included, equals a fresh probe.
+    const ELEMENTS = ['Ag', 'Al', 'Au', 'Co', 'Cr', 'Cu', 'Fe', 'Mn', 'Mo', 'Ni', 'Pb', 'Sn', 'Ti', 'Zn'];
+    const POINTS = [
+      [2, -0.6],
+      [6, 0.1],
+      [9, -0.9],
+      [12, 0.5],
+    ];
+    let compared = 0;
+    for (const element of ELEMENTS) {
+      const s = readSpec({ element, E: [-1.6, 1.6] }, 'test');
+      const a = pointsAnswerer(s, undefined, 'log.csv');
+      for (const T of [40, 150, 280]) {
+        const fresh = compute({ ...s, temperature: T });
+        for (const [pH, E] of POINTS) {
+          const r = a.answer({ line: 2, pH, potential: E, temperature: T });
+          expect('result' in r && r.result, `${element} ${T} °C pH ${pH} E ${E}`).toEqual(probe(fresh, pH, E));
+          compared++;
+        }
+      }
+    }
+    expect(compared).toBe(14 * 3 * 4);
+  });
 });
