@@ -19,7 +19,7 @@
  */
 import type { Computed } from '../pipeline.js';
 import { geometryHits, newGeometryHits } from '../solve/point.js';
-import { adviceChoice, adviceText, argmin, contextOf, type PointVerdict, type ProbeContext } from './probe.js';
+import { adviceChoice, type AdviceParts, adviceText, argmin, contextOf, type PointVerdict, type ProbeContext } from './probe.js';
 
 /** The printed fields of probe() at one point (names as in ProbeResult, flattened). */
 export interface RowProbe {
@@ -34,7 +34,8 @@ export interface RowProbe {
   distancePH: number | null;
   /** ProbeResult.nearestBoundary?.reaction (null when there is no boundary). */
   nearestReaction: string | null;
-  advice: string;
+  /** ProbeResult.advice as its parts (adviceOf gives the sentence; a row writes it part by part). */
+  advice: AdviceParts;
   /** ProbeResult.warnings (shared: never modify). */
   warnings: readonly string[];
   /** ProbeResult.temperature.celsius. */
@@ -42,7 +43,12 @@ export interface RowProbe {
 }
 
 export function newRowProbe(): RowProbe {
-  return { predominant: '', verdict: 'unknown', runnerUp: null, marginKJ: 0, distanceMV: null, distancePH: null, nearestReaction: null, advice: '', warnings: [], celsius: 0 };
+  return { predominant: '', verdict: 'unknown', runnerUp: null, marginKJ: 0, distanceMV: null, distancePH: null, nearestReaction: null, advice: { k: -1, shift: 0, to: '', verdict: 'unknown' }, warnings: [], celsius: 0 };
+}
+
+/** The advice sentence of a row (probe.ts adviceText; equal to ProbeResult.advice). */
+export function adviceOf(a: AdviceParts): string {
+  return adviceText(a.k, a.shift, a.to, a.verdict);
 }
 
 /** Per system: probe()'s context and the warnings per predominant species (built when first met). */
@@ -104,14 +110,18 @@ export function probeRow(c: Computed, pH: number, E: number, out: RowProbe): Row
   out.nearestReaction = g.bNear >= 0 ? boundaries[g.bNear].reaction : null;
   // Step 4: just beyond the chosen boundary (0.05 mV or 0.001 pH further), as probe() steps.
   const k = adviceChoice(up, down, left, right);
-  if (k < 0) out.advice = adviceText(k, 0, '', 'unknown');
+  const a = out.advice;
+  a.k = k;
+  if (k < 0) (a.shift = 0), (a.to = ''), (a.verdict = 'unknown');
   else {
     const shift = k === 0 ? up! : k === 1 ? down! : k === 2 ? left! : right!;
     const dx = k < 2 ? 0 : 1;
     const dy = k < 2 ? 1 : 0;
     ctx.psi(pH + dx * (shift + Math.sign(shift) * 1e-3), E + dy * (shift + Math.sign(shift) * 5e-5), psi);
     const w = argmin(psi);
-    out.advice = adviceText(k, shift, species[w].formula, ctx.verdicts[w]);
+    a.shift = shift;
+    a.to = species[w].formula;
+    a.verdict = ctx.verdicts[w];
   }
   // Step 5.
   out.warnings = warningsFor(r, k1);

@@ -246,10 +246,24 @@ function nearestOf(n: NonNullable<ReturnType<typeof probeGeometry>['nearest']>, 
 }
 
 function advice(r: ProbeResult): string {
+  const a = adviceOfResult(r);
+  return adviceText(a.k, a.shift, a.to, a.verdict);
+}
+
+/** The advice's parts (adviceChoice's k, the signed shift, the species and verdict beyond). */
+export interface AdviceParts {
+  k: number;
+  shift: number;
+  to: string;
+  verdict: PointVerdict;
+}
+
+/** The advice parts of a full probe result (its `advice` is adviceText of them). */
+export function adviceOfResult(r: ProbeResult): AdviceParts {
   const c = r.crossings;
   const k = adviceChoice(c.raiseE?.shift, c.lowerE?.shift, c.lowerPH?.shift, c.raisePH?.shift);
   const x = k === 0 ? c.raiseE : k === 1 ? c.lowerE : k === 2 ? c.lowerPH : c.raisePH;
-  return adviceText(k, x?.shift ?? 0, x?.to ?? '', x?.verdict ?? 'unknown');
+  return { k, shift: x?.shift ?? 0, to: x?.to ?? '', verdict: x?.verdict ?? 'unknown' };
 }
 
 /**
@@ -272,13 +286,23 @@ export function adviceChoice(raiseE: number | undefined, lowerE: number | undefi
   return k;
 }
 
-/** The advice sentence for choice `k` (adviceChoice): the shift, and the species and verdict beyond. */
+/** The advice when no boundary is met along E or pH. */
+export const ADVICE_NONE = 'No boundary within the diagram along E or pH from this point.';
+/** The advice sentence's words before the shift and after it, per choice k (adviceChoice). */
+export const ADVICE_HEAD = ['Nearest change: raising the potential by ', 'Nearest change: lowering the potential by ', 'Nearest change: lowering the pH by ', 'Nearest change: raising the pH by '] as const;
+export const ADVICE_AFTER_SHIFT = [' mV reaches ', ' mV reaches ', ' reaches ', ' reaches '] as const;
+
+/** The shift as the advice prints it: mV without decimals for E (k 0, 1), pH to 2 decimals, sign dropped. */
+export function adviceShiftText(k: number, shift: number): string {
+  return k === 0 ? (shift * 1000).toFixed(0) : k === 1 ? (-shift * 1000).toFixed(0) : k === 2 ? (-shift).toFixed(2) : shift.toFixed(2);
+}
+
+/**
+ * The advice sentence for choice `k` (adviceChoice): the shift, and the species and verdict beyond.
+ * Example: adviceText(2, −0.3055, "Fe^2+", "corrosion") → "Nearest change: lowering the pH by 0.31
+ * reaches Fe^2+ (corrosion)."
+ */
 export function adviceText(k: number, shift: number, to: string, verdict: PointVerdict): string {
-  if (k < 0) return 'No boundary within the diagram along E or pH from this point.';
-  let text: string;
-  if (k === 0) text = `raising the potential by ${(shift * 1000).toFixed(0)} mV reaches ${to} (${verdict})`;
-  else if (k === 1) text = `lowering the potential by ${(-shift * 1000).toFixed(0)} mV reaches ${to} (${verdict})`;
-  else if (k === 2) text = `lowering the pH by ${(-shift).toFixed(2)} reaches ${to} (${verdict})`;
-  else text = `raising the pH by ${shift.toFixed(2)} reaches ${to} (${verdict})`;
-  return `Nearest change: ${text}.`;
+  if (k < 0) return ADVICE_NONE;
+  return `${ADVICE_HEAD[k]}${adviceShiftText(k, shift)}${ADVICE_AFTER_SHIFT[k]}${to} (${verdict}).`;
 }

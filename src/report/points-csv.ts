@@ -16,7 +16,7 @@
 import { InputError } from '../errors.js';
 import { csvField } from '../io/csv-records.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
-import type { ProbeResult } from '../analysis/probe.js';
+import { ADVICE_AFTER_SHIFT, ADVICE_HEAD, ADVICE_NONE, type AdviceParts, adviceOfResult, adviceShiftText, adviceText, type ProbeResult } from '../analysis/probe.js';
 import type { RowProbe } from '../analysis/probe-row.js';
 import type { CellWriter } from './row-bytes.js';
 
@@ -237,7 +237,7 @@ export function pointsOutputRow(row: PointRow, scale: string, r: ProbeResult, wa
     distanceMV: r.distance.mV,
     distancePH: r.distance.pH,
     nearestReaction: r.nearestBoundary?.reaction ?? null,
-    advice: r.advice,
+    advice: adviceOfResult(r),
     warnings,
     celsius: r.temperature.celsius,
   };
@@ -304,11 +304,28 @@ export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: n
   w.text(sep);
   w.text(fixed(f.nearestReaction ?? '', sep));
   w.text(sep);
-  w.text(csvField(f.advice, sep));
+  writeAdvice(w, f.advice, sep);
   w.text(sep);
   w.text(warningsText(f.warnings, more, sep));
   w.text(sep);
   w.text('\n');
+}
+
+/**
+ * The advice cell part by part (probe.ts ADVICE_HEAD, shift, ADVICE_AFTER_SHIFT, species, verdict:
+ * the text of adviceText without building it). Only the species could need quoting (the other
+ * parts hold no separator, quote or line end): then the whole sentence is quoted as csvField does.
+ */
+export function writeAdvice(w: CellWriter, a: AdviceParts, sep: string): void {
+  if (a.k < 0) return w.text(fixed(ADVICE_NONE, sep));
+  if (fixed(a.to, sep) !== a.to) return w.text(csvField(adviceText(a.k, a.shift, a.to, a.verdict), sep));
+  w.text(ADVICE_HEAD[a.k]);
+  w.text(adviceShiftText(a.k, a.shift));
+  w.text(ADVICE_AFTER_SHIFT[a.k]);
+  w.text(a.to);
+  w.text(' (');
+  w.text(a.verdict);
+  w.text(').');
 }
 
 let lastWarnings: readonly string[] | undefined;

@@ -5,7 +5,9 @@
  * ends of plain notation, subnormals, ±0, NaN, ±Infinity); text is written as UTF-8.
  */
 import { describe, expect, it } from 'vitest';
-import { num8, pointsRowLine, writePointsRow } from '../../src/report/points-csv.js';
+import { adviceText } from '../../src/analysis/probe.js';
+import { csvField } from '../../src/io/csv-records.js';
+import { CellText, num8, pointsRowLine, writeAdvice, writePointsRow } from '../../src/report/points-csv.js';
 import { RowBytes } from '../../src/report/row-bytes.js';
 
 const reference = (v: number) => String(Number(v.toPrecision(8)));
@@ -78,7 +80,7 @@ describe('RowBytes.text and int', () => {
 
 describe('a points row written as bytes', () => {
   it('is the UTF-8 of the same row written as text (pointsRowLine)', () => {
-    const f = { predominant: 'Fe+2', verdict: 'corrosion' as const, runnerUp: 'Fe(OH)2', marginKJ: 4.634939, distanceMV: -72.29315, distancePH: null, nearestReaction: 'Fe(s) = Fe+2 + 2e-', advice: 'Nearest change: raising the pH by 0.31 reaches Fe(OH)2 (passivation).', warnings: ['undetermined away from 25 °C: a, b'], celsius: 60.5 };
+    const f = { predominant: 'Fe+2', verdict: 'corrosion' as const, runnerUp: 'Fe(OH)2', marginKJ: 4.634939, distanceMV: -72.29315, distancePH: null, nearestReaction: 'Fe(s) = Fe+2 + 2e-', advice: { k: 3, shift: 0.3055018, to: 'Fe(OH)2', verdict: 'passivation' as const }, warnings: ['undetermined away from 25 °C: a, b'], celsius: 60.5 };
     const rows = [
       { line: 7, pH: 6.25, potential: -0.4, extra: ['=cmd', 'a "quoted", cell'], given: { pH: '6.25' }, unit: 'mV' as const },
       { line: 123456, pH: 1 / 3, potential: 2 / 3, extra: [], given: {}, unit: 'V' as const },
@@ -92,5 +94,28 @@ describe('a points row written as bytes', () => {
         }
       }
     }
+  });
+});
+
+describe('the advice cell written part by part (points-csv.ts writeAdvice)', () => {
+  it('is csvField of the whole sentence (probe.ts adviceText) for every choice and separator', () => {
+    // Worked example: adviceText(2, −0.3055, "Fe^2+", "corrosion") → "Nearest change: lowering the
+    // pH by 0.31 reaches Fe^2+ (corrosion)." (the sentence probe prints).
+    expect(adviceText(2, -0.3055, 'Fe^2+', 'corrosion')).toBe('Nearest change: lowering the pH by 0.31 reaches Fe^2+ (corrosion).');
+    let n = 0;
+    for (const sep of [',', ';', '\t']) {
+      for (const k of [-1, 0, 1, 2, 3]) {
+        for (const shift of [0.0004, -0.0004, 0.125, -0.125, 1.005, -2.5e-7, 12.345678]) {
+          // The second name cannot be a formula; it checks the quoted fallback all the same.
+          for (const to of ['Fe^2+', 'Cu(NH3)2^+', 'odd, "name"; x\ty']) {
+            const w = new CellText();
+            writeAdvice(w, { k, shift, to, verdict: 'passivation' }, sep);
+            expect(w.s).toBe(csvField(adviceText(k, shift, to, 'passivation'), sep));
+            n++;
+          }
+        }
+      }
+    }
+    expect(n).toBe(3 * 5 * 7 * 3);
   });
 });
