@@ -1,7 +1,7 @@
 /**
  * The output side of a `probe --points` run: rows written into two byte buffers in turn (one is
- * written out while the next rows go into the other), in batches of about `batch` bytes whatever
- * the input chunk's size (standard input comes in pipe-sized chunks), each buffer reused once its
+ * written out while the next rows go into the other) — by `records` in batches of about `batch`
+ * bytes, by the plain feed (points-pieces.ts) one input chunk's rows at a time — each buffer reused once its
  * write has settled; and pieces already answered elsewhere (points-pool.ts) written in between,
  * in order.
  */

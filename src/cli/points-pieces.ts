@@ -28,10 +28,14 @@ interface FeedParts {
   output: PointsOutput;
 }
 
-/** Records read and answered in this thread. */
-export function plainFeed({ reader, records, lines, output }: FeedParts): Feed {
+/** Records read and answered in this thread, each as soon as it is read (CsvRecordReader.each). */
+export function plainFeed({ reader, lines, output }: FeedParts): Feed {
+  const write = (r: CsvRecord): void => lines.writeRecord(r, output.out);
   return {
-    take: (text) => output.records(reader.push(text, records), lines),
+    take: (text) => {
+      reader.each(text, write);
+      return output.flush();
+    },
     end: async () => undefined,
     close: async () => undefined,
   };

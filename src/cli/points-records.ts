@@ -6,7 +6,7 @@
 import { InputError } from '../errors.js';
 import type { CsvRecord } from '../io/csv-records.js';
 import { pointsAnswerer } from '../analysis/points-answer.js';
-import { type PointRow, type PointsHeader, type PotentialUnit, type RowError, pointsErrorRow, pointsOutputHeader, pointsRowLine, readPointRow, writePointsRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
+import { type PointRow, type PointsHeader, type PotentialUnit, type RowError, newPointRow, pointsErrorRow, pointsOutputHeader, pointsRowLine, readPointRow, writePointsRow, readPointsHeader, rowErrorText } from '../report/points-csv.js';
 import type { SystemSpec } from '../system/spec.js';
 import type { CustomReference } from '../thermo/reference.js';
 import type { RowBytes } from '../report/row-bytes.js';
@@ -55,6 +55,8 @@ export function fixedActivityRows(spec: SystemSpec, ref: string | CustomReferenc
  */
 export function recordLines(name: string, unit: PotentialUnit | undefined, strict: boolean, answerer: RowAnswerer) {
   const st = { sep: ',', header: undefined as PointsHeader | undefined, rows: 0, failed: 0, writeRecord };
+  // The fast path reads every row into this one record (answered and written before the next).
+  const reused = newPointRow();
   function failedRow(r: CsvRecord, e: RowError, plain?: string): string {
     const line = r.line;
     if (strict) throw plain !== undefined ? new InputError(name, `line ${line}`, 'a row the system can answer', plain) : new InputError(name, e.field, e.expected, e.got);
@@ -67,7 +69,7 @@ export function recordLines(name: string, unit: PotentialUnit | undefined, stric
   function writeRecord(r: CsvRecord, out: RowBytes): void {
     if (answerer.write && st.header && !r.error && r.fields.length === st.header.width) {
       st.rows++;
-      const row = readPointRow(r.fields, r.line, st.header, st.sep !== ',');
+      const row = readPointRow(r.fields, r.line, st.header, st.sep !== ',', reused);
       if (!('extra' in row)) return out.text(failedRow(r, row));
       const e = answerer.write(row, st.sep, out);
       if (e) out.text(failedRow(r, { field: `line ${r.line}`, expected: '' }, e.error));

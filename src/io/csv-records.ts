@@ -9,7 +9,10 @@
  *
  * The reader is incremental (`push` chunks as they arrive, `end` at the end of input) so a file of
  * any length is read in constant memory: at most one partial record is held between chunks.
- * Lines without a quote take a fast path (a plain split).
+ * Lines without a quote take a fast path (a plain split). `each`/`endEach` hand each record to a
+ * function as soon as it is read instead of collecting the chunk's records: a long run then holds
+ * one record at a time, so records die young and the garbage collector's young generation stays
+ * small (a chunk's records alive across a collection make it grow: see DEVELOPERS.md).
  *
  * Example: reading `a,"b,""c"""\n` gives one record with fields ["a", 'b,"c"'] on line 1.
  */
@@ -50,6 +53,18 @@ export class CsvRecordReader {
 
   /** Records completed by this chunk, in order. */
   push(chunk: string, out: CsvRecord[] = []): CsvRecord[] {
+    this.each(chunk, (r) => out.push(r));
+    return out;
+  }
+
+  /** The last record (input not ending in a newline); an unterminated quote is an error record. */
+  end(out: CsvRecord[] = []): CsvRecord[] {
+    this.endEach((r) => out.push(r));
+    return out;
+  }
+
+  /** Each record completed by this chunk to `emit`, in order, as soon as it is read. */
+  each(chunk: string, emit: (r: CsvRecord) => void): void {
     let text = this.rest + chunk;
     if (!this.started && text.length) {
       this.started = true;
@@ -69,43 +84,40 @@ export class CsvRecordReader {
         // Fast path: a record without quotes, ended by LF, CRLF or a lone CR.
         if (brk === cr && brk !== nl - 1) {
           if (brk + 1 >= text.length) break; // CR at the end of the chunk: maybe CRLF
-          this.plainLine(text.slice(pos, brk), out);
-          pos = text.charCodeAt(brk + 1) === 10 ? brk + 2 : brk + 1;
+          const next = text.charCodeAt(brk + 1) === 10 ? brk + 2 : brk + 1;
+          const s = text.slice(pos, brk);
+          pos = next;
+          emit({ fields: s.split(this.sep), line: this.line++ });
         } else {
-          this.plainLine(text.slice(pos, nl > pos && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl), out);
+          const s = text.slice(pos, nl > pos && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl);
           pos = nl + 1;
+          emit({ fields: s.split(this.sep), line: this.line++ });
         }
         continue;
       }
       const r = this.quoted(text, pos, false);
       if (!r) break;
-      out.push(r.record);
       pos = r.next;
+      emit(r.record);
     }
     this.rest = text.slice(pos);
     if (this.rest.length > MAX_RECORD) {
       throw new InputError(this.file, `line ${this.line}`, `a CSV record of at most ${MAX_RECORD} characters (an unclosed double quote?)`);
     }
-    return out;
   }
 
-  /** The last record (input not ending in a newline); an unterminated quote is an error record. */
-  end(out: CsvRecord[] = []): CsvRecord[] {
+  /** The last record to `emit` (see `end`). */
+  endEach(emit: (r: CsvRecord) => void): void {
     const text = this.rest;
     this.rest = '';
-    if (text === '') return out;
+    if (text === '') return;
     // Whatever is left is at most one record (push consumed every complete one).
     let pos = 0;
     while (pos < text.length) {
       const r = this.quoted(text, pos, true)!;
-      out.push(r.record);
       pos = r.next;
+      emit(r.record);
     }
-    return out;
-  }
-
-  private plainLine(s: string, out: CsvRecord[]): void {
-    out.push({ fields: s.split(this.sep), line: this.line++ });
   }
 
   /**

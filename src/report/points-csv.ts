@@ -120,48 +120,75 @@ export const LIMITS = { pH: [-2, 16], E: 5, temperature: [0, 350], ionicStrength
 
 /**
  * One data row: its numbers, or what was wrong naming the line and column. `decimalComma` reads
- * `7,25` as 7.25 (separator `;` or tab).
+ * `7,25` as 7.25 (separator `;` or tab). `into` (newPointRow) is filled instead of a new row.
  */
-export function readPointRow(fields: string[], line: number, h: PointsHeader, decimalComma: boolean): PointRow | RowError {
-  const where = (k: number, what: string) => `line ${line}, column ${k + 1} (${what})`;
-  const num = (k: number, what: string): number | RowError => {
-    const v = readNumber(fields[k], decimalComma);
-    return typeof v === 'number' ? v : { field: where(k, what), ...v };
-  };
-  const range = (k: number, what: string, v: number, lo: number, hi: number, unit: string): RowError | undefined =>
-    v < lo || v > hi ? { field: where(k, what), expected: `${lo} to ${hi}${unit}`, got: String(v) } : undefined;
+export function readPointRow(fields: string[], line: number, h: PointsHeader, decimalComma: boolean, into?: PointRow): PointRow | RowError {
   // The pH and potential cells: a plain decimal (the common case) is read and echoed without more tests.
   const pHCell = fields[h.pH];
   const pHPlain = pHCell !== undefined && PLAIN.test(pHCell);
-  const pH = pHPlain ? Number(pHCell) : num(h.pH, 'pH');
+  const pH = pHPlain ? Number(pHCell) : cellNumber(fields, h.pH, 'pH', line, decimalComma);
   if (typeof pH !== 'number') return pH;
-  const bad = range(h.pH, 'pH', pH, LIMITS.pH[0], LIMITS.pH[1], '');
-  if (bad) return bad;
+  if (pH < LIMITS.pH[0] || pH > LIMITS.pH[1]) return outOfRange(h.pH, 'pH', pH, LIMITS.pH, '', line);
   const pName = h.unit === 'mV' ? 'potential, mV' : 'potential, V';
   const pCell = fields[h.potential];
   const pPlain = pCell !== undefined && PLAIN.test(pCell);
-  const p = pPlain ? Number(pCell) : num(h.potential, pName);
+  const p = pPlain ? Number(pCell) : cellNumber(fields, h.potential, pName, line, decimalComma);
   if (typeof p !== 'number') return p;
   const E = h.unit === 'mV' ? p / 1000 : p;
-  if (Math.abs(E) > LIMITS.E) return { field: where(h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
-  const row: PointRow = { line, pH, potential: E, extra: h.extra.map((x) => fields[x.index] ?? ''), given: {}, unit: h.unit };
-  if (pHPlain) row.given.pH = pHCell;
-  if (pPlain) row.given.potential = pCell;
+  if (Math.abs(E) > LIMITS.E) return { field: cellPlace(line, h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
+  // Optional cells first, so that a refused one leaves `into` as it was.
+  let T: number | undefined;
   if (h.temperature >= 0 && (fields[h.temperature] ?? '').trim() !== '') {
-    const T = num(h.temperature, 'temperature');
-    if (typeof T !== 'number') return T;
-    const r = range(h.temperature, 'temperature', T, LIMITS.temperature[0], LIMITS.temperature[1], ' °C');
-    if (r) return r;
-    row.temperature = T;
+    const v = cellNumber(fields, h.temperature, 'temperature', line, decimalComma);
+    if (typeof v !== 'number') return v;
+    if (v < LIMITS.temperature[0] || v > LIMITS.temperature[1]) return outOfRange(h.temperature, 'temperature', v, LIMITS.temperature, ' °C', line);
+    T = v;
   }
+  let I: number | undefined;
   if (h.ionicStrength >= 0 && (fields[h.ionicStrength] ?? '').trim() !== '') {
-    const I = num(h.ionicStrength, 'ionic_strength');
-    if (typeof I !== 'number') return I;
-    const r = range(h.ionicStrength, 'ionic_strength', I, LIMITS.ionicStrength[0], LIMITS.ionicStrength[1], ' mol/kg');
-    if (r) return r;
-    row.ionicStrength = I;
+    const v = cellNumber(fields, h.ionicStrength, 'ionic_strength', line, decimalComma);
+    if (typeof v !== 'number') return v;
+    if (v < LIMITS.ionicStrength[0] || v > LIMITS.ionicStrength[1]) return outOfRange(h.ionicStrength, 'ionic_strength', v, LIMITS.ionicStrength, ' mol/kg', line);
+    I = v;
   }
+  const row = into ?? newPointRow(h.unit);
+  row.line = line;
+  row.pH = pH;
+  row.potential = E;
+  row.temperature = T;
+  row.ionicStrength = I;
+  row.extra = h.extra.length ? h.extra.map((x) => fields[x.index] ?? '') : NO_EXTRA;
+  row.given.pH = pHPlain ? pHCell : undefined;
+  row.given.potential = pPlain ? pCell : undefined;
+  row.unit = h.unit;
   return row;
+}
+
+/**
+ * A row record to be filled by readPointRow again and again (a long series reads every row into
+ * the same one: nothing allocated per row beyond its cells). Read it before the next row.
+ */
+export function newPointRow(unit: PotentialUnit = 'V'): PointRow {
+  return { line: 0, pH: 0, potential: 0, temperature: undefined, ionicStrength: undefined, extra: NO_EXTRA, given: { pH: undefined, potential: undefined }, unit };
+}
+
+/** The carried cells of a row without carried columns (shared, never modified). */
+const NO_EXTRA: string[] = [];
+
+/** Where a cell is, for a RowError: "line 7, column 2 (pH)". */
+function cellPlace(line: number, k: number, what: string): string {
+  return `line ${line}, column ${k + 1} (${what})`;
+}
+
+/** Cell k as a number (readNumber), or the RowError naming it. */
+function cellNumber(fields: string[], k: number, what: string, line: number, decimalComma: boolean): number | RowError {
+  const v = readNumber(fields[k], decimalComma);
+  return typeof v === 'number' ? v : { field: cellPlace(line, k, what), ...v };
+}
+
+/** The RowError of a value outside [lo, hi]. */
+function outOfRange(k: number, what: string, v: number, [lo, hi]: readonly [number, number], unit: string, line: number): RowError {
+  return { field: cellPlace(line, k, what), expected: `${lo} to ${hi}${unit}`, got: String(v) };
 }
 
 const HEAD = ['line', 'pH', 'potential', 'scale', 'E_SHE_V', 'temperature_C', 'predominant', 'verdict', 'runner_up', 'margin_kJ_per_mol', 'distance_mV', 'distance_pH', 'nearest_boundary', 'advice', 'warnings', 'error'];

@@ -1,6 +1,6 @@
 /** Writing and reading logged-series rows (report/points-csv.ts). */
 import { describe, expect, it } from 'vitest';
-import { num8, readPointRow, readPointsHeader } from '../../src/report/points-csv.js';
+import { newPointRow, num8, readPointRow, readPointsHeader } from '../../src/report/points-csv.js';
 
 describe('num8', () => {
   it('prints the same text as String(Number(v.toPrecision(8))) (the definition it speeds up)', () => {
@@ -30,5 +30,23 @@ describe('readPointRow', () => {
     expect(readPointRow(['7', '1000', ''], 2, h, false)).toMatchObject({ expected: '|E| ≤ 5 V' });
     expect(readPointRow(['7', '0', '400'], 2, h, false)).toMatchObject({ expected: '0 to 350 °C' });
     expect(readPointRow(['16', '-5', '0'], 2, h, false)).toMatchObject({ pH: 16, potential: -5, temperature: 0 });
+  });
+  it('a reused row (newPointRow) reads each row as a fresh one does: nothing left over from the row before', () => {
+    const hx = readPointsHeader(['label', 'pH', 'potential_mV', 'temperature', 'ionic_strength'], 'log.csv', undefined);
+    const rows = [
+      ['a', '7.25', '-350', '60', '0.1'],
+      ['b', '7,5', '-350,5', '', ''], // no temperature or ionic strength: the file's own, not the row before's
+      ['c', '8', '12.5', '', '0.2'],
+      ['d', 'x', '0', '25', ''], // refused: the reused row is not handed out
+      ['e', '9', '+100', '90', ''],
+    ];
+    const into = newPointRow();
+    for (const [k, cells] of rows.entries()) {
+      const fresh = readPointRow(cells, k + 2, hx, true);
+      const again = readPointRow(cells, k + 2, hx, true, into);
+      expect(again).toEqual(fresh);
+      if ('extra' in again) expect(again).toBe(into);
+    }
+    expect(readPointRow(rows[1], 3, hx, true, into)).toMatchObject({ temperature: undefined, ionicStrength: undefined, given: { pH: undefined, potential: undefined } });
   });
 });
