@@ -16,7 +16,7 @@
 import { InputError } from '../errors.js';
 import { csvField } from '../io/csv-records.js';
 import { neutraliseCsvCell } from '../io/csv-cell.js';
-import { ADVICE_AFTER_SHIFT, ADVICE_HEAD, ADVICE_NONE, type AdviceParts, adviceOfResult, adviceShiftText, adviceText, type ProbeResult } from '../analysis/probe.js';
+import { ADVICE_AFTER_SHIFT, ADVICE_HEAD, ADVICE_NONE, type AdviceParts, adviceOfResult, adviceText, type ProbeResult } from '../analysis/probe.js';
 import type { RowProbe } from '../analysis/probe-row.js';
 import type { CellWriter } from './row-bytes.js';
 
@@ -295,6 +295,9 @@ export class CellText implements CellWriter {
   int(n: number): void {
     this.s += String(n);
   }
+  toFixed(v: number, digits: 0 | 2): void {
+    this.s += v.toFixed(digits);
+  }
 }
 
 /** The row of pointsRowLine, cell by cell into `w` (text, or bytes: report/row-bytes.ts). */
@@ -345,14 +348,31 @@ export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: n
  */
 export function writeAdvice(w: CellWriter, a: AdviceParts, sep: string): void {
   if (a.k < 0) return w.text(fixed(ADVICE_NONE, sep));
-  if (fixed(a.to, sep) !== a.to) return w.text(csvField(adviceText(a.k, a.shift, a.to, a.verdict), sep));
+  const tail = adviceTail(a.k, a.to, a.verdict, sep);
+  if (tail === undefined) return w.text(csvField(adviceText(a.k, a.shift, a.to, a.verdict), sep));
   w.text(ADVICE_HEAD[a.k]);
-  w.text(adviceShiftText(a.k, a.shift));
-  w.text(ADVICE_AFTER_SHIFT[a.k]);
-  w.text(a.to);
-  w.text(' (');
-  w.text(a.verdict);
-  w.text(').');
+  // adviceShiftText, written without the string: mV to 0 digits for E, pH to 2.
+  if (a.k < 2) w.toFixed(a.k === 0 ? a.shift * 1000 : -a.shift * 1000, 0);
+  else w.toFixed(a.k === 2 ? -a.shift : a.shift, 2);
+  w.text(tail);
+}
+
+/**
+ * The advice's words after the shift — ADVICE_AFTER_SHIFT, the species, its verdict — kept per
+ * species and verdict (a few dozen per run), or undefined when the species would need quoting.
+ */
+let tailSep = '';
+let tails = new Map<string, Map<string, string[] | undefined>>();
+function adviceTail(k: number, to: string, verdict: string, sep: string): string | undefined {
+  if (sep !== tailSep) (tailSep = sep), (tails = new Map());
+  let byVerdict = tails.get(to);
+  if (byVerdict === undefined) tails.set(to, (byVerdict = new Map()));
+  let pair = byVerdict.get(verdict);
+  if (pair === undefined && !byVerdict.has(verdict)) {
+    pair = fixed(to, sep) === to ? ADVICE_AFTER_SHIFT.map((after) => `${after}${to} (${verdict}).`) : undefined;
+    if (tails.size < 10_000) byVerdict.set(verdict, pair);
+  }
+  return pair === undefined ? undefined : pair[k];
 }
 
 let lastWarnings: readonly string[] | undefined;

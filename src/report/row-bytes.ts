@@ -10,6 +10,15 @@
  *  2. the digits of n without trailing zeros, placed by the rules of ECMAScript Number::toString
  *     (plain notation from 10⁻⁶ to 10²¹, else d.ddde±x).
  * Example: 4.6349387 writes the bytes of "4.6349387"; −0.000012345678 of "-0.000012345678".
+ *
+ * toFixed steps (the text of Number.prototype.toFixed for 0 or 2 digits, ECMAScript §21.1.3.3: n
+ * the integer nearest to |v|·10^d, the larger on a tie, a "-" before it for v < 0):
+ *  1. |v|·10^d split into its integer part and fraction (exact for 0 digits; for 2 digits a
+ *     fraction within 10⁻⁶ of a half, where the product's rounding could decide, and magnitudes
+ *     from 2·10⁷ on go through toFixed itself);
+ *  2. n rounded up when the fraction is above a half (or, for 0 digits, exactly a half);
+ *  3. the digits of n, with the point before the last two for 2 digits.
+ * Example: toFixed(−0.3055018, 2) writes "-0.31"; toFixed(249.65151, 0) writes "250".
  */
 
 /** Where the cells of a row go: text (any string), a number rounded to 8 digits, an integer. */
@@ -19,6 +28,8 @@ export interface CellWriter {
   num8(v: number | null | undefined): void;
   /** A non-negative integer below 2^31 (a line number). */
   int(n: number): void;
+  /** The text of v.toFixed(digits), digits 0 or 2. */
+  toFixed(v: number, digits: 0 | 2): void;
 }
 
 const POW10 = Array.from({ length: 40 }, (_, k) => Number(`1e${k}`));
@@ -92,6 +103,32 @@ export class RowBytes implements CellWriter {
     let p = this.len;
     while (k > 0) b[p++] = d[--k];
     this.len = p;
+  }
+
+  toFixed(v: number, digits: 0 | 2): void {
+    const a = Math.abs(v);
+    if (!(a < 2e7)) return this.text(v.toFixed(digits));
+    // Step 1.
+    const x = digits === 0 ? a : a * 100;
+    let n = Math.floor(x);
+    const f = x - n;
+    if (digits === 2 && Math.abs(f - 0.5) < 1e-6) return this.text(v.toFixed(digits));
+    // Step 2.
+    if (f > 0.5 || (f === 0.5 && digits === 0)) n++;
+    // Step 3.
+    if (v < 0) {
+      this.room(1);
+      this.buf[this.len++] = 45; // -
+    }
+    if (digits === 0) return this.int(n);
+    const whole = Math.floor(n / 100);
+    const cents = n - whole * 100;
+    this.int(whole);
+    this.room(3);
+    const b = this.buf;
+    b[this.len++] = 46; // .
+    b[this.len++] = 48 + Math.floor(cents / 10);
+    b[this.len++] = 48 + (cents % 10);
   }
 
   num8(v: number | null | undefined): void {

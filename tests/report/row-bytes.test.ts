@@ -111,11 +111,33 @@ describe('the advice cell written part by part (points-csv.ts writeAdvice)', () 
             const w = new CellText();
             writeAdvice(w, { k, shift, to, verdict: 'passivation' }, sep);
             expect(w.s).toBe(csvField(adviceText(k, shift, to, 'passivation'), sep));
+            const b = new RowBytes(8);
+            writeAdvice(b, { k, shift, to, verdict: 'passivation' }, sep);
+            expect(b.take().toString('utf8')).toBe(w.s);
             n++;
           }
         }
       }
     }
     expect(n).toBe(3 * 5 * 7 * 3);
+  });
+});
+
+describe('RowBytes.toFixed', () => {
+  it('writes the text of Number.prototype.toFixed for 0 and 2 digits (the definition it speeds up)', () => {
+    // Worked examples: −0.3055018 to 2 digits is "-0.31"; 249.65151 to 0 digits is "250".
+    const one = (v: number, d: 0 | 2) => {
+      const w = new RowBytes(4);
+      w.toFixed(v, d);
+      return w.take().toString('utf8');
+    };
+    expect(one(-0.3055018, 2)).toBe('-0.31');
+    expect(one(249.65151, 0)).toBe('250');
+    let seed = 99;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const values = [0, -0, 0.5, -0.5, 1.5, 2.5, 0.005, 0.015, 0.125, -0.125, 1.005, 1.045, 0.0004, -0.0004, -0.004, 19999999.995, 2e7, -2e7, 1e21, NaN, Infinity, -Infinity, 1234.5678];
+    for (let k = 0; k < 20000; k++) values.push((rnd() - 0.5) * 10 ** Math.floor(rnd() * 10 - 4));
+    for (let k = 0; k < 20000; k++) values.push(Math.round((rnd() - 0.5) * 1e6) / 1000); // many exact or near halves
+    for (const v of values) for (const d of [0, 2] as const) expect(one(v, d), `${v} to ${d}`).toBe(v.toFixed(d));
   });
 });
