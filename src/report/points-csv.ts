@@ -93,6 +93,47 @@ const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 /** A cell echoed as written: a plain decimal without spaces, exponent or sign other than minus. */
 const PLAIN = /^-?\d{1,9}(?:\.\d{1,8})?$/;
 
+/**
+ * A plain decimal cell (PLAIN: an optional "-", 1–9 digits, optionally "." and 1–8 digits) as
+ * Number(cell) reads it, or NaN for any other text — without the regular expression:
+ *  1. the digits gathered into an integer m (exact: at most 15 digits, below 2^53) and the count
+ *     k of digits after the point;
+ *  2. m / 10^k, one correctly rounded division of two exact numbers, which is the double nearest
+ *     the decimal, as Number() gives (the fast path of W. D. Clinger, "How to read floating point
+ *     numbers accurately", PLDI 1990); 16–17 digits go through Number() itself.
+ * Example: "-0.4015" → −0.4015; "7." → NaN; "1e3" → NaN.
+ */
+export function plainDecimal(cell: string): number {
+  const n = cell.length;
+  let i = cell.charCodeAt(0) === 45 ? 1 : 0;
+  const neg = i === 1;
+  // Step 1.
+  let m = 0;
+  const intStart = i;
+  for (; i < n; i++) {
+    const c = cell.charCodeAt(i);
+    if (c < 48 || c > 57) break;
+    m = m * 10 + (c - 48);
+  }
+  const intDigits = i - intStart;
+  if (intDigits < 1 || intDigits > 9) return NaN;
+  let k = 0;
+  if (i < n) {
+    if (cell.charCodeAt(i) !== 46) return NaN;
+    for (i++; i < n; i++) {
+      const c = cell.charCodeAt(i);
+      if (c < 48 || c > 57) return NaN;
+      m = m * 10 + (c - 48);
+      k++;
+    }
+    if (k < 1 || k > 8) return NaN;
+  }
+  // Step 2.
+  if (intDigits + k > 15) return Number(cell);
+  const v = k === 0 ? m : m / POW10[k];
+  return neg ? -v : v;
+}
+
 /** Why a row was refused: where (line, column), what was expected, what was found. */
 export interface RowError {
   field: string;
@@ -125,14 +166,16 @@ export const LIMITS = { pH: [-2, 16], E: 5, temperature: [0, 350], ionicStrength
 export function readPointRow(fields: string[], line: number, h: PointsHeader, decimalComma: boolean, into?: PointRow): PointRow | RowError {
   // The pH and potential cells: a plain decimal (the common case) is read and echoed without more tests.
   const pHCell = fields[h.pH];
-  const pHPlain = pHCell !== undefined && PLAIN.test(pHCell);
-  const pH = pHPlain ? Number(pHCell) : cellNumber(fields, h.pH, 'pH', line, decimalComma);
+  const pHv = pHCell === undefined ? NaN : plainDecimal(pHCell);
+  const pHPlain = pHv === pHv;
+  const pH = pHPlain ? pHv : cellNumber(fields, h.pH, 'pH', line, decimalComma);
   if (typeof pH !== 'number') return pH;
   if (pH < LIMITS.pH[0] || pH > LIMITS.pH[1]) return outOfRange(h.pH, 'pH', pH, LIMITS.pH, '', line);
   const pName = h.unit === 'mV' ? 'potential, mV' : 'potential, V';
   const pCell = fields[h.potential];
-  const pPlain = pCell !== undefined && PLAIN.test(pCell);
-  const p = pPlain ? Number(pCell) : cellNumber(fields, h.potential, pName, line, decimalComma);
+  const pv = pCell === undefined ? NaN : plainDecimal(pCell);
+  const pPlain = pv === pv;
+  const p = pPlain ? pv : cellNumber(fields, h.potential, pName, line, decimalComma);
   if (typeof p !== 'number') return p;
   const E = h.unit === 'mV' ? p / 1000 : p;
   if (Math.abs(E) > LIMITS.E) return { field: cellPlace(line, h.potential, pName), expected: `|E| ≤ ${LIMITS.E} V`, got: `${p} ${h.unit}` };
@@ -157,7 +200,14 @@ export function readPointRow(fields: string[], line: number, h: PointsHeader, de
   row.potential = E;
   row.temperature = T;
   row.ionicStrength = I;
-  row.extra = h.extra.length ? h.extra.map((x) => fields[x.index] ?? '') : NO_EXTRA;
+  if (h.extra.length === 0) row.extra = NO_EXTRA;
+  else {
+    // A reused row keeps its own array of carried cells (never the shared empty one).
+    const extra = into !== undefined && row.extra !== NO_EXTRA ? row.extra : [];
+    extra.length = h.extra.length;
+    for (let j = 0; j < h.extra.length; j++) extra[j] = fields[h.extra[j].index] ?? '';
+    row.extra = extra;
+  }
   row.given.pH = pHPlain ? pHCell : undefined;
   row.given.potential = pPlain ? pCell : undefined;
   row.unit = h.unit;
