@@ -84,14 +84,13 @@ export class CsvRecordReader {
         // Fast path: a record without quotes, ended by LF, CRLF or a lone CR.
         if (brk === cr && brk !== nl - 1) {
           if (brk + 1 >= text.length) break; // CR at the end of the chunk: maybe CRLF
-          const next = text.charCodeAt(brk + 1) === 10 ? brk + 2 : brk + 1;
-          const s = text.slice(pos, brk);
-          pos = next;
-          emit({ fields: s.split(this.sep), line: this.line++ });
+          const from = pos;
+          pos = text.charCodeAt(brk + 1) === 10 ? brk + 2 : brk + 1;
+          emit({ fields: this.plainFields(text, from, brk), line: this.line++ });
         } else {
-          const s = text.slice(pos, nl > pos && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl);
+          const from = pos;
           pos = nl + 1;
-          emit({ fields: s.split(this.sep), line: this.line++ });
+          emit({ fields: this.plainFields(text, from, nl > from && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl), line: this.line++ });
         }
         continue;
       }
@@ -103,6 +102,25 @@ export class CsvRecordReader {
     this.rest = text.slice(pos);
     if (this.rest.length > MAX_RECORD) {
       throw new InputError(this.file, `line ${this.line}`, `a CSV record of at most ${MAX_RECORD} characters (an unclosed double quote?)`);
+    }
+  }
+
+  /**
+   * The fields of the quote-free record text[from, to): text.slice(from, to).split(sep) without
+   * the record's own string (each field cut from `text` directly; about twice as fast).
+   */
+  private plainFields(text: string, from: number, to: number): string[] {
+    const sep = this.sep;
+    const fields: string[] = [];
+    let a = from;
+    for (;;) {
+      const b = text.indexOf(sep, a);
+      if (b < 0 || b >= to) {
+        fields.push(text.slice(a, to));
+        return fields;
+      }
+      fields.push(text.slice(a, b));
+      a = b + 1;
     }
   }
 

@@ -293,6 +293,8 @@ function scale(a: number, k: number): number {
 
 /** User text (carried cells, messages that echo cells): neutralised, then quoted as needed. */
 function text(s: string, sep: string): string {
+  // An unsigned plain decimal (a time stamp, a count) needs neither: digits and a point only.
+  if (s.charCodeAt(0) !== 45 && !Number.isNaN(plainDecimal(s))) return s;
   return csvField(neutraliseCsvCell(s), sep);
 }
 

@@ -47,6 +47,24 @@ describe('CsvRecordReader', () => {
     }
   });
 
+  it('splits quote-free records as String.prototype.split does (empty fields, trailing separators, CRLF, lone CR)', () => {
+    let seed = 77;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    for (const sep of [',', ';', '\t']) {
+      const lines: string[] = [];
+      for (let k = 0; k < 300; k++) {
+        let l = 'x'; // never empty: an empty line after a lone CR would read as CRLF
+        const len = Math.floor(rnd() * 12);
+        for (let j = 0; j < len; j++) l += rnd() < 0.3 ? sep : 'ab1.-'[Math.floor(rnd() * 5)];
+        lines.push(l);
+      }
+      const ends = ['\n', '\r\n', '\r'];
+      const text = lines.map((l, k) => l + ends[k % 3]).join('') + 'last';
+      const got = readAll(text, sep, 64);
+      expect(got.map((r) => r.fields)).toEqual([...lines, 'last'].map((l) => l.split(sep)));
+    }
+  });
+
   it('drops a leading byte-order mark', () => {
     expect(readAll('\ufeffpH,E\n')[0].fields).toEqual(['pH', 'E']);
   });
