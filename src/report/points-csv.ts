@@ -204,7 +204,7 @@ export function readPointRow(fields: string[], line: number, h: PointsHeader, de
   else {
     // A reused row keeps its own array of carried cells (never the shared empty one).
     const extra = into !== undefined && row.extra !== NO_EXTRA ? row.extra : [];
-    extra.length = h.extra.length;
+    if (extra.length !== h.extra.length) extra.length = h.extra.length;
     for (let j = 0; j < h.extra.length; j++) extra[j] = fields[h.extra[j].index] ?? '';
     row.extra = extra;
   }
@@ -299,10 +299,11 @@ function text(s: string, sep: string): string {
 }
 
 let lastCelsius = NaN;
+let lastCelsiusSep = '';
 let lastCelsiusText = '';
-/** The temperature column: one value for long runs of rows, so its text is kept. */
-function celsiusText(T: number): string {
-  if (T !== lastCelsius) (lastCelsius = T), (lastCelsiusText = num8(T));
+/** The temperature cell and the separator after it: one value for long runs of rows, so its text is kept. */
+function celsiusText(T: number, sep: string): string {
+  if (T !== lastCelsius || sep !== lastCelsiusSep) (lastCelsius = T), (lastCelsiusSep = sep), (lastCelsiusText = num8(T) + sep);
   return lastCelsiusText;
 }
 
@@ -366,26 +367,20 @@ export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: n
   if (row.given.potential !== undefined) w.text(row.given.potential);
   else w.num8(row.unit === 'mV' ? row.potential * 1000 : row.potential);
   w.text(sep);
-  w.text(fixed(scale, sep));
-  w.text(sep);
+  w.text(fixedSep(scale, sep));
   w.num8(E);
   w.text(sep);
-  w.text(celsiusText(f.celsius));
-  w.text(sep);
-  w.text(fixed(f.predominant, sep));
-  w.text(sep);
-  w.text(f.verdict);
-  w.text(sep);
-  w.text(fixed(f.runnerUp ?? '', sep));
-  w.text(sep);
+  w.text(celsiusText(f.celsius, sep));
+  w.text(fixedSep(f.predominant, sep));
+  w.text(fixedSep(f.verdict, sep));
+  w.text(fixedSep(f.runnerUp ?? '', sep));
   w.num8(f.marginKJ);
   w.text(sep);
   w.num8(f.distanceMV);
   w.text(sep);
   w.num8(f.distancePH);
   w.text(sep);
-  w.text(fixed(f.nearestReaction ?? '', sep));
-  w.text(sep);
+  w.text(fixedSep(f.nearestReaction ?? '', sep));
   writeAdvice(w, f.advice, sep);
   w.text(sep);
   w.text(warningsText(f.warnings, more, sep));
@@ -443,22 +438,35 @@ function warningsText(w: readonly string[], more: readonly string[], sep: string
 
 /**
  * Cells from a small set (formulas, reactions, scales): quoted once each, then looked up — one map
- * per separator, keyed by the cell itself (no key string built per row).
+ * per separator, keyed by the cell itself (no key string built per row). `fixedSep` is the same
+ * cell followed by the separator (one write instead of two).
  */
-const FIXED = new Map<string, Map<string, string>>();
-let fixedSep = '';
-let fixedMap = new Map<string, string>();
-function fixed(s: string, sep: string): string {
-  if (sep !== fixedSep) {
+const FIXED = new Map<string, { cell: Map<string, string>; withSep: Map<string, string> }>();
+let fixedFor = '';
+let fixedMaps = { cell: new Map<string, string>(), withSep: new Map<string, string>() };
+function mapsFor(sep: string): { cell: Map<string, string>; withSep: Map<string, string> } {
+  if (sep !== fixedFor) {
     let m = FIXED.get(sep);
-    if (m === undefined) FIXED.set(sep, (m = new Map()));
-    fixedSep = sep;
-    fixedMap = m;
+    if (m === undefined) FIXED.set(sep, (m = { cell: new Map(), withSep: new Map() }));
+    fixedFor = sep;
+    fixedMaps = m;
   }
-  const bySep = fixedMap;
+  return fixedMaps;
+}
+function fixed(s: string, sep: string): string {
+  const bySep = mapsFor(sep).cell;
   let v = bySep.get(s);
   if (v === undefined) {
     v = csvField(s, sep);
+    if (bySep.size < 10_000) bySep.set(s, v);
+  }
+  return v;
+}
+function fixedSep(s: string, sep: string): string {
+  const bySep = mapsFor(sep).withSep;
+  let v = bySep.get(s);
+  if (v === undefined) {
+    v = csvField(s, sep) + sep;
     if (bySep.size < 10_000) bySep.set(s, v);
   }
   return v;
