@@ -342,6 +342,9 @@ export class CellText implements CellWriter {
   text(s: string): void {
     this.s += s;
   }
+  recurring(s: string): void {
+    this.s += s;
+  }
   num8(v: number | null | undefined): void {
     this.s += num8(v);
   }
@@ -367,23 +370,23 @@ export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: n
   if (row.given.potential !== undefined) w.text(row.given.potential);
   else w.num8(row.unit === 'mV' ? row.potential * 1000 : row.potential);
   w.text(sep);
-  w.text(fixedSep(scale, sep));
+  w.recurring(fixedSep(scale, sep));
   w.num8(E);
   w.text(sep);
-  w.text(celsiusText(f.celsius, sep));
-  w.text(fixedSep(f.predominant, sep));
-  w.text(fixedSep(f.verdict, sep));
-  w.text(fixedSep(f.runnerUp ?? '', sep));
+  w.recurring(celsiusText(f.celsius, sep));
+  w.recurring(fixedSep(f.predominant, sep));
+  w.recurring(fixedSep(f.verdict, sep));
+  w.recurring(fixedSep(f.runnerUp ?? '', sep));
   w.num8(f.marginKJ);
   w.text(sep);
   w.num8(f.distanceMV);
   w.text(sep);
   w.num8(f.distancePH);
   w.text(sep);
-  w.text(fixedSep(f.nearestReaction ?? '', sep));
+  w.recurring(fixedSep(f.nearestReaction ?? '', sep));
   writeAdvice(w, f.advice, sep);
   w.text(sep);
-  w.text(warningsText(f.warnings, more, sep));
+  w.recurring(warningsText(f.warnings, more, sep));
   w.text(sep);
   w.text('\n');
 }
@@ -394,14 +397,14 @@ export function writePointsRow(w: CellWriter, row: PointRow, scale: string, E: n
  * parts hold no separator, quote or line end): then the whole sentence is quoted as csvField does.
  */
 export function writeAdvice(w: CellWriter, a: AdviceParts, sep: string): void {
-  if (a.k < 0) return w.text(fixed(ADVICE_NONE, sep));
+  if (a.k < 0) return w.recurring(fixed(ADVICE_NONE, sep));
   const tail = adviceTail(a.k, a.to, a.verdict, sep);
   if (tail === undefined) return w.text(csvField(adviceText(a.k, a.shift, a.to, a.verdict), sep));
-  w.text(ADVICE_HEAD[a.k]);
+  w.recurring(ADVICE_HEAD[a.k]);
   // adviceShiftText, written without the string: mV to 0 digits for E, pH to 2.
   if (a.k < 2) w.toFixed(a.k === 0 ? a.shift * 1000 : -a.shift * 1000, 0);
   else w.toFixed(a.k === 2 ? -a.shift : a.shift, 2);
-  w.text(tail);
+  w.recurring(tail);
 }
 
 /**

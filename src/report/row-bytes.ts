@@ -24,6 +24,12 @@
 /** Where the cells of a row go: text (any string), a number rounded to 8 digits, an integer. */
 export interface CellWriter {
   text(s: string): void;
+  /**
+   * Text from a small set that recurs row after row (a formula, a reaction, a phrase): the same
+   * as `text`; the byte writer keeps its encoding and copies it (one memory copy instead of a
+   * loop over the characters).
+   */
+  recurring(s: string): void;
   /** Nothing for null or undefined (an empty cell). */
   num8(v: number | null | undefined): void;
   /** A non-negative integer below 2^31 (a line number). */
@@ -31,6 +37,9 @@ export interface CellWriter {
   /** The text of v.toFixed(digits), digits 0 or 2. */
   toFixed(v: number, digits: 0 | 2): void;
 }
+
+/** Recurring texts whose encodings a writer keeps at most. */
+const RECURRING_MAX = 4096;
 
 const POW10 = Array.from({ length: 40 }, (_, k) => Number(`1e${k}`));
 
@@ -49,6 +58,8 @@ export class RowBytes implements CellWriter {
   private buf: Buffer;
   private len = 0;
   private readonly digits = new Uint8Array(12);
+  /** Encodings of recurring texts (emptied at RECURRING_MAX entries). */
+  private readonly encoded = new Map<string, Uint8Array>();
 
   constructor(size = 1 << 20) {
     this.buf = Buffer.allocUnsafe(size);
@@ -88,6 +99,19 @@ export class RowBytes implements CellWriter {
       b[p++] = c;
     }
     this.len = p;
+  }
+
+  recurring(s: string): void {
+    // Short texts are as quick through the loop; longer ones are copied from their encoding.
+    if (s.length < 12) return this.text(s);
+    let e = this.encoded.get(s);
+    if (e === undefined) {
+      if (this.encoded.size >= RECURRING_MAX) this.encoded.clear();
+      this.encoded.set(s, (e = Buffer.from(s, 'utf8')));
+    }
+    this.room(e.length);
+    this.buf.set(e, this.len);
+    this.len += e.length;
   }
 
   int(n: number): void {

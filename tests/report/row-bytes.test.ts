@@ -141,3 +141,26 @@ describe('RowBytes.toFixed', () => {
     for (const v of values) for (const d of [0, 2] as const) expect(one(v, d), `${v} to ${d}`).toBe(v.toFixed(d));
   });
 });
+
+describe('RowBytes.recurring', () => {
+  it('writes the same bytes as text, for short, long and non-ASCII texts, before and after its store is emptied', () => {
+    const w = new RowBytes(8);
+    let expected = '';
+    const parts = ['Fe', ',', 'Fe3O4(s) + 8H^+ + 8e^- <=> 3Fe(s) + 4H2O(l),', 'Nearest change: lowering the pH by ', 'undetermined away from 25 °C: Fe²⁺ ⇌ Fe³⁺,', '𝛙 astral text of some length'];
+    for (let k = 0; k < 3; k++) {
+      for (const p of parts) {
+        w.recurring(p);
+        w.text('|');
+        expected += `${p}|`;
+      }
+    }
+    for (let n = 0; n < 5000; n++) {
+      const p = `a recurring text number ${n}`;
+      w.recurring(p);
+      expected += p;
+    }
+    for (const p of parts) w.recurring(p);
+    expected += parts.join('');
+    expect(w.take().toString('utf8')).toBe(expected);
+  });
+});
