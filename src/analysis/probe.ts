@@ -142,6 +142,9 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
   const second = k2 >= 0 ? input.species[k2] : null;
   const marginKJ = k2 >= 0 ? psi[k2] - psi[k1] : 0;
   const margin: Margin = second ? marginShifts(ctx, pH, E, k1, k2, marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
+  if (second && margin.potentialV === null && margin.pH === null && !movesWithActivity(best, input.element) && !movesWithActivity(second, input.element)) {
+    margin.note = FIXED_ORDER_NOTE;
+  }
   const winnerAt = (x: number, y: number) => {
     ctx.psi(x, y, psi);
     const k = argmin(psi);
@@ -213,6 +216,20 @@ function marginShifts(ctx: ProbeContext, pH: number, E: number, i: number, j: nu
   else if (dpH === null) out.note = 'the runner-up is reached without H+ or OH- exchange: no change of pH reaches it, only a change of potential';
   return out;
 }
+
+/**
+ * Whether a species' ψ moves with an activity the file sets: a dissolved or gaseous species (its
+ * own activity or pressure) or one holding a ligand (neither the element, H nor O). Between two
+ * species that do not (pure solids or liquids of the element and water, e.g. NiO and Ni(OH)₂) the
+ * margin is fixed at a given temperature.
+ */
+function movesWithActivity(sp: SolverSpecies, element: string): boolean {
+  return sp.phase === 'aq' || sp.phase === 'g' || Object.keys(sp.elements).some((e) => e !== element && e !== 'H' && e !== 'O');
+}
+
+/** The margin note between two such species (no shift of pH, E or activity closes the margin). */
+const FIXED_ORDER_NOTE =
+  'no change of potential, pH or activity reaches the runner-up: both are pure phases exchanging no electron, H+ or ligand with each other (the difference is water), so their order changes only with temperature';
 
 /** The element's amount; the default threshold read as a molality (ionic strength given) says so. */
 function thresholdAmount(c: Computed): GivenAmount {
