@@ -68,6 +68,13 @@ describe('probe --points', () => {
     expect(r.stdout).toContain('"tank 3, inlet"');
   });
 
+  it('carries a negative number as the number it is (no quote), and a signed label neutralised', async () => {
+    const f = csv('signed.csv', 'pH;potential;offset_mV;tag\n7;0;-12,5;-spike\n');
+    const row = parse((await runCli(['probe', fe, '--points', f])).stdout, ';')[0];
+    expect(row.offset_mV).toBe('-12,5');
+    expect(row.tag).toBe("'-spike");
+  });
+
   it('marks bad rows in the error column, answers the rest, exit status 4', async () => {
     const f = csv('bad.csv', 'pH,potential\n7,0\n0x7,0\n,0.1\n20,0\n7,1000\n8,-0.5\n');
     const r = await runCli(['probe', fe, '--points', f]);
