@@ -3,6 +3,9 @@
  * units. Check value: 60 mg/L chloride → 60e-3 g/L / 35.453 g/mol (IUPAC atomic weight of Cl) /
  * 0.99705 kg/L (density of water at 25 °C, IAPWS-95) = 1.697e-3 mol/kg.
  */
+import { compositionProbe } from '../../src/analysis/composition-probe.js';
+import { compositionSetup } from '../../src/diagram/composition-setup.js';
+import { compositionProbeText } from '../../src/report/composition-probe-text.js';
 import { describe, expect, it } from 'vitest';
 import { compute } from '../../src/pipeline.js';
 import { readSpec } from '../../src/system/spec.js';
@@ -44,5 +47,21 @@ describe('ligand totals keep their units', () => {
   it('keeps activities as activities', () => {
     const s = compute(readSpec({ element: 'Cu', ligands: { S: 1e-3 } }, 'cu.yaml'));
     expect(captionLines(s)[0]).toContain('dissolved Cu activity 10⁻⁶; ligand totals S activity 10⁻³');
+  });
+});
+
+describe('composition probe: the ionic strength and how it was taken', () => {
+  const text = (extra: Record<string, unknown>): string => {
+    const spec = readSpec({ element: 'Cu', composition: { Cu: 0.5, N: 1 }, ...extra }, 'bath-cu.yaml');
+    return compositionProbeText(compositionProbe(spec, compositionSetup(spec), 10, 0.3));
+  };
+  it('none given: says the solution is taken as ideal, not just "0 mol/kg"', () => {
+    expect(text({})).toMatch(/^ionic strength: 0 mol\/kg, not given \(ideal solution\); activity model: ideal$/m);
+  });
+  it('auto: from the speciation at the point, with the activity model used', () => {
+    expect(text({ ionicStrength: 'auto' })).toMatch(/^ionic strength: 0\.\d{4} mol\/kg, from the speciation at this point \(ionicStrength: auto\); activity model: davies$/m);
+  });
+  it('given: as given, with the activity model used', () => {
+    expect(text({ ionicStrength: 0.3 })).toMatch(/^ionic strength: 0\.3000 mol\/kg, given; activity model: davies$/m);
   });
 });
