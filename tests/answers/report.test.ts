@@ -49,4 +49,14 @@ describe('report', () => {
     expect(html.split('dissolved Fe activity').length - 1).toBe(1);
     expect(html.split('<figcaption>')[0]).not.toContain('dissolved Fe activity');
   });
+
+  it('names the runner-up of each operating point and why a shift column is empty (defect 2: CuO from Cu2+ at pH 6.674, NBS 1982)', async () => {
+    const cu = writeTmp(dir, 'cu-point.yaml', 'element: Cu\npoints:\n  - {label: "rinse tank", pH: 6, E: 0.5}\n');
+    for (const ext of ['md', 'html']) {
+      const out = join(dir, `cu-point.${ext}`);
+      expect((await runCli(['report', cu, '-o', out])).code).toBe(0);
+      const text = readFileSync(out, 'utf8');
+      expect(text).toMatch(/Runner-up: CuO \(margin 7\.69\d kJ per mol of element; \+0\.67\d pH at this potential; the runner-up is reached without electron transfer/);
+    }
+  });
 });
