@@ -6,6 +6,7 @@
  * Writer, the bundled DejaVu Sans embedded). Reproducible: fixed creation date, same bytes for the
  * same input. Writes nothing itself (returns the bytes).
  */
+import { REPORT_CAUTIONS, REPORT_CLOSING } from './report-data.js';
 import type { DiagramModel } from '../model.js';
 import { drawSceneOnPdf } from '../render/pdf.js';
 import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
@@ -69,6 +70,10 @@ export async function alloyReportPdf(model: DiagramModel, scene: Scene, figureMm
     'Phases are pure compounds: no solid-solution activities (a chromium-rich spinel film is not an ideal mixture of FeCr2O4 and Fe3O4), no alloy-metal activities below one.',
     'Equilibrium only: no kinetics, film quality, breakdown or localized attack; a passive assemblage is a thermodynamic possibility, not a guarantee.',
   ]);
+
+  w.heading('Cautions');
+  for (const c of REPORT_CAUTIONS) w.para(c);
+  w.para(REPORT_CLOSING, { bold: true });
 
   w.heading('Data sources');
   w.bullets(model.sources);

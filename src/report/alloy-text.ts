@@ -3,6 +3,7 @@
  * same sections). Formulas are printed for people in Unicode (Fe²⁺, Fe₃O₄; chem/present.ts); an
  * assemblage label is a list of formulas joined by " + ".
  */
+import { REPORT_CAUTIONS, REPORT_CLOSING } from './report-data.js';
 import type { AlloyProbe } from '../analysis/alloy-probe.js';
 import type { DiagramModel } from '../model.js';
 import { labelForPeople as fp, reactionForPeople, textForPeople } from '../chem/present.js';
@@ -73,6 +74,7 @@ export function alloyReportMarkdown(model: DiagramModel, svgName: string | null,
   parts.push('## What this diagram does not say', '',
     '- Phases are pure compounds: no solid-solution activities (a chromium-rich spinel film is not an ideal mixture of FeCr₂O₄ and Fe₃O₄), no alloy-metal activities below one.',
     '- Equilibrium only: no kinetics, film quality, breakdown or localized attack; a passive assemblage is a thermodynamic possibility, not a guarantee.',
+    '', '## Cautions', '', ...REPORT_CAUTIONS.map(mdEsc), '', `**${mdEsc(REPORT_CLOSING)}**`,
     '', '## Sources', '', ...model.sources.map((s) => `- ${mdEsc(s)}`), '');
   return parts.join('\n');
 }
@@ -91,6 +93,7 @@ export function alloyReportHtml(model: DiagramModel, svg: string, caption: strin
     '<h2>Reactions between neighbouring assemblages</h2><table>', ...lineRows(model, model.reference).map((r) => row([r.between.map(fp).join(' | '), reactionForPeople(r.reaction), lineText(r)])), '</table>',
     ...(model.warnings.length ? ['<h2>Warnings</h2><ul>', ...model.warnings.map((w) => `<li>${esc(textForPeople(w))}</li>`), '</ul>'] : []),
     '<h2>What this diagram does not say</h2><ul><li>Phases are pure compounds: no solid-solution activities.</li><li>Equilibrium only: no kinetics, film quality or localized attack.</li></ul>',
+    '<h2>Cautions</h2>', ...REPORT_CAUTIONS.map((c) => `<p>${esc(c)}</p>`), `<p><strong>${esc(REPORT_CLOSING)}</strong></p>`,
     '<h2>Sources</h2><ul>', ...model.sources.map((s) => `<li>${esc(s)}</li>`), '</ul></body></html>', '',
   ].join('\n');
 }

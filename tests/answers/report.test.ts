@@ -6,10 +6,13 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { REPORT_CAUTIONS, REPORT_CLOSING } from '../../src/report/report-data.js';
 import { runCli } from '../helpers/cli.js';
 import { tmpDir, writeTmp } from '../helpers/tmp.js';
 
 const dir = tmpDir();
+const hasPdftotext = spawnSync('pdftotext', ['-v']).error === undefined;
 const body = `element: Fe
 reference: sce
 boxes:
@@ -57,6 +60,19 @@ describe('report', () => {
       expect((await runCli(['report', cu, '-o', out])).code).toBe(0);
       const text = readFileSync(out, 'utf8');
       expect(text).toMatch(/Runner-up: CuO \(margin 7\.69\d kJ per mol of element; \+0\.67\d pH at this potential; the runner-up is reached without electron transfer/);
+    }
+  });
+
+  it('an alloy report carries the cautions of every report: equilibrium only, codes and standards, a qualified professional (md, html, pdf)', async () => {
+    const alloy = writeTmp(dir, 'alloy.yaml', 'elements: {Fe: 0.7, Cr: 0.18, Ni: 0.12}\n');
+    for (const ext of ['md', 'html', 'pdf']) {
+      const out = join(dir, `alloy-report.${ext}`);
+      expect((await runCli(['report', alloy, '-o', out])).code).toBe(0);
+      if (ext === 'pdf' && !hasPdftotext) continue;
+      const raw = ext === 'pdf' ? execFileSync('pdftotext', ['-enc', 'UTF-8', out, '-'], { encoding: 'utf8' }) : readFileSync(out, 'utf8');
+      const text = raw.replace(/\s+/g, ' ');
+      expect(text, ext).toContain(REPORT_CAUTIONS[0]);
+      expect(text, ext).toContain(REPORT_CLOSING);
     }
   });
 });
