@@ -50,7 +50,7 @@ export function alloyProbeText(r: AlloyProbe): string {
     ...r.assemblage.map((p) => `  ${fp(p.name).padEnd(14)} ${p.amount.toFixed(6)}   ${p.dissolved ? 'dissolved, ' : ''}holds ${Object.entries(p.share).filter(([, v]) => v > 0).map(([e, v]) => `${(100 * v).toFixed(1)} % of ${e}`).join(', ')}`),
     'margins to the neighbouring assemblages:',
     ...r.margins.map((m) => `  ${DIR[m.direction].padEnd(24)} ${m.distance === null ? 'none within the diagram' : `${m.distance.toFixed(4)} ${m.direction.startsWith('E') ? 'V' : 'pH'} to ${fp(m.to ?? "")}`}`),
-    'Equilibrium only: pure phases (no solid-solution activities), no kinetics or film quality.',
+    'Equilibrium thermodynamics only — not kinetics or film quality, and pure phases (no solid-solution activities); follow the applicable codes and a qualified corrosion professional.',
   ];
   return `${out.join('\n')}\n`;
 }

@@ -93,3 +93,15 @@ describe('overlay options', () => {
     expect(html).toContain('vs SCE');
   });
 });
+
+describe('every probe answer carries the same caution', () => {
+  it('one element, a bath as made up and an alloy: equilibrium only, not kinetics; codes and a qualified professional', async () => {
+    const bath = writeTmp(dir, 'bath.yaml', 'element: Cu\ncomposition: {Cu: 0.5, N: 1}\n');
+    const alloy = writeTmp(dir, 'alloy.yaml', 'elements: {Fe: 0.7, Cr: 0.18, Ni: 0.12}\n');
+    for (const f of [cu, bath, alloy]) {
+      const r = await runCli(['probe', f, '--ph', '8', '--potential', '-0.3']);
+      expect(r.code, r.stderr).toBe(0);
+      expect(r.stdout, f).toMatch(/Equilibrium thermodynamics only — not kinetics.*; follow the applicable codes and a qualified corrosion professional\.\n$/);
+    }
+  });
+});
