@@ -6,7 +6,11 @@
 import { compositionProbe } from '../../src/analysis/composition-probe.js';
 import { compositionSetup } from '../../src/diagram/composition-setup.js';
 import { compositionProbeText } from '../../src/report/composition-probe-text.js';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { runCli } from '../helpers/cli.js';
+import { tmpDir, writeTmp } from '../helpers/tmp.js';
 import { compute } from '../../src/pipeline.js';
 import { readSpec } from '../../src/system/spec.js';
 import { captionLines } from '../../src/figure/compose.js';
@@ -63,5 +67,12 @@ describe('composition probe: the ionic strength and how it was taken', () => {
   });
   it('given: as given, with the activity model used', () => {
     expect(text({ ionicStrength: 0.3 })).toMatch(/^ionic strength: 0\.3000 mol\/kg, given; activity model: davies$/m);
+  });
+  it('the bath report says the same in its conditions table', async () => {
+    const dir = tmpDir();
+    const f = writeTmp(dir, 'bath.yaml', 'element: Cu\ncomposition: {Cu: 0.5, N: 1}\n');
+    const out = join(dir, 'bath.md');
+    expect((await runCli(['report', f, '-o', out])).code).toBe(0);
+    expect(readFileSync(out, 'utf8')).toContain('| Ionic strength | 0 mol/kg, not given (ideal solution); activity model: ideal |');
   });
 });
