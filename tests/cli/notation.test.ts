@@ -77,6 +77,23 @@ describe('every spelling is read', () => {
   });
 });
 
+describe('cell --json lists its species in the canonical form', () => {
+  it('the electron and H+ too (e^-, H^+), every formula parsing back', async () => {
+    for (const reaction of ['Fe^2+ + 2e^- <=> Fe(s)', 'Fe+2 + 2e- = Fe(s)', 'Fe²⁺ + 2e⁻ ⇌ Fe(s)', 'H2O(l) <=> H^+ + OH^-']) {
+      const j = await json(['cell', reaction]);
+      const formulas = (j.species as { formula: string }[]).map((s) => s.formula);
+      expect(formulas).not.toContain('e-');
+      expect(formulas).not.toContain('H+');
+      for (const f of formulas) if (f !== 'e^-') expect(formulaAscii(parseFormula(f)), f).toBe(f);
+      if (reaction.startsWith('Fe')) expect(formulas).toContain('Fe^2+');
+    }
+    for (const a of SPELLINGS) {
+      const k = await json(['cell', 'Fe^2+ + 2e^- <=> Fe(s)', '--activity', `${a}=1e-6`]);
+      expect(Object.keys(k.atConditions.activities)).toEqual(['Fe^2+']);
+    }
+  });
+});
+
 describe('predominant echoes a file’s own spelling', () => {
   it('an inline species written Fe+2 stays Fe+2 in probe --json and in the points CSV', async () => {
     const f = file('inline.json', {
