@@ -77,6 +77,20 @@ describe('every spelling is read', () => {
   });
 });
 
+describe('warnings name neutral species with their phase', () => {
+  it('Zn(OH)₂(aq) and Ni(OH)₂(s) in text, Zn(OH)2(aq) in JSON: never a bare ASCII "Zn(OH)2" for people', async () => {
+    const zn = writeTmp(dir, 'zn60.yaml', 'element: Zn\ntemperature: 60\n');
+    const ni = writeTmp(dir, 'ni150.yaml', 'element: Ni\ntemperature: 150\n');
+    const t = await runCli(['probe', zn, '--ph', '9', '--potential', '-0.8']);
+    expect(t.stdout).toContain('Zn(OH)₂(aq)');
+    expect(t.stdout + t.stderr).not.toMatch(/Zn\(OH\)2(?!\()/);
+    const u = await runCli(['probe', ni, '--ph', '10', '--potential', '-0.2']);
+    expect(u.stdout).toMatch(/without Cp°.*Ni\(OH\)₂\(s\)/);
+    const j = await json(['probe', zn, '--ph', '9', '--potential', '-0.8', '--json']);
+    expect((j.warnings as string[]).join(' ')).toContain('Zn(OH)2(aq)');
+  });
+});
+
 describe('cell --json lists its species in the canonical form', () => {
   it('the electron and H+ too (e^-, H^+), every formula parsing back', async () => {
     for (const reaction of ['Fe^2+ + 2e^- <=> Fe(s)', 'Fe+2 + 2e- = Fe(s)', 'Fe²⁺ + 2e⁻ ⇌ Fe(s)', 'H2O(l) <=> H^+ + OH^-']) {
