@@ -6,11 +6,11 @@
  * exception, SIGINT/SIGTERM) the temporary file is removed and any existing target is unchanged.
  * Writes wait for the stream to drain, so memory stays bounded however long the output.
  */
-import { lstatSync, mkdirSync } from 'node:fs';
+import { lstatSync } from 'node:fs';
 import { open, rename, rm, type FileHandle } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { OutputError } from '../errors.js';
-import { toOutputError } from './output-errors.js';
+import { requireOutputDirectory, toOutputError } from './output-errors.js';
 import { TEMP_FLAGS } from './safe-write.js';
 import { registerTemp, sweepStaleTemps, tempName, unregisterTemp } from './temp-files.js';
 
@@ -37,7 +37,8 @@ export function stdoutSink(out: NodeJS.WritableStream = process.stdout): OutputS
 export async function fileSink(path: string): Promise<OutputSink> {
   const dir = dirname(resolve(path));
   try {
-    mkdirSync(dir, { recursive: true });
+    // Never a directory made for an output: a missing one is refused (exit 3), as by every -o.
+    requireOutputDirectory(path);
     if (lstatSync(path, { throwIfNoEntry: false })?.isDirectory()) throw new OutputError(path, 'it is a directory, not a file');
   } catch (e) {
     throw toOutputError(path, e);

@@ -2,7 +2,7 @@
  * `probe --points`: rows carried, refused row by row, streamed; each answer equal to
  * `probe --ph --potential` at the same point (the same exact evaluation, independently invoked).
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -73,6 +73,15 @@ describe('probe --points', () => {
     const row = parse((await runCli(['probe', fe, '--points', f])).stdout, ';')[0];
     expect(row.offset_mV).toBe('-12,5');
     expect(row.tag).toBe("'-spike");
+  });
+
+  it('-o into a missing directory: exit 3 naming it, and the directory is not created (as every -o)', async () => {
+    const f = csv('dir.csv', 'pH,potential\n7,0\n');
+    const out = join(dir, 'no-such-dir', 'sub', 'out.csv');
+    const r = await runCli(['probe', fe, '--points', f, '-o', out]);
+    expect(r.code).toBe(3);
+    expect(r.stderr).toMatch(/does not exist \(create it first: ephmap does not create directories\)/);
+    expect(existsSync(join(dir, 'no-such-dir'))).toBe(false);
   });
 
   it('marks bad rows in the error column, answers the rest, exit status 4', async () => {
