@@ -33,8 +33,55 @@ export function stdoutSink(out: NodeJS.WritableStream = process.stdout): OutputS
   };
 }
 
-/** A file written through a temporary of ours and renamed at `commit` (see the module comment). */
+/**
+ * A file written through a temporary of ours and renamed at `commit` (see the module comment).
+ * Nothing is touched before the first write (or the commit of an empty output): the target's
+ * directory is checked and the temporary created then, so that an input error found first (a bad
+ * header) wins over an output error, and a failed run before any output leaves no trace.
+ */
 export async function fileSink(path: string): Promise<OutputSink> {
+  let opened: Promise<{ fh: FileHandle; tmp: string }> | undefined;
+  let state: { fh: FileHandle; tmp: string } | undefined;
+  let closed = false;
+  const ensure = () => (opened ??= openTemp(path).then((x) => (state = x)));
+  const drop = async (): Promise<void> => {
+    if (opened) await opened.catch(() => undefined);
+    if (!state) return;
+    if (!closed) await state.fh.close().catch(() => undefined);
+    closed = true;
+    await rm(state.tmp, { force: true }).catch(() => undefined);
+    unregisterTemp(state.tmp);
+  };
+  return {
+    async write(text) {
+      const { fh } = await ensure();
+      try {
+        if (typeof text === 'string') await fh.write(text);
+        else for (let at = 0; at < text.length; ) at += (await fh.write(text, at, text.length - at)).bytesWritten;
+      } catch (e) {
+        await drop();
+        throw toOutputError(path, e);
+      }
+    },
+    async commit() {
+      const { fh, tmp } = await ensure();
+      try {
+        await fh.sync();
+        await fh.close();
+        closed = true;
+        await rename(tmp, path);
+        unregisterTemp(tmp);
+      } catch (e) {
+        await drop();
+        throw toOutputError(path, e);
+      }
+    },
+    abort: drop,
+  };
+}
+
+/** The checks on the target and its exclusive temporary beside it (fileSink, at the first write). */
+async function openTemp(path: string): Promise<{ fh: FileHandle; tmp: string }> {
   const dir = dirname(resolve(path));
   try {
     // Never a directory made for an output: a missing one is refused (exit 3), as by every -o.
@@ -52,35 +99,5 @@ export async function fileSink(path: string): Promise<OutputSink> {
     throw toOutputError(path, e);
   }
   registerTemp(tmp);
-  let closed = false;
-  const drop = async (): Promise<void> => {
-    if (!closed) await fh.close().catch(() => undefined);
-    closed = true;
-    await rm(tmp, { force: true }).catch(() => undefined);
-    unregisterTemp(tmp);
-  };
-  return {
-    async write(text) {
-      try {
-        if (typeof text === 'string') await fh.write(text);
-        else for (let at = 0; at < text.length; ) at += (await fh.write(text, at, text.length - at)).bytesWritten;
-      } catch (e) {
-        await drop();
-        throw toOutputError(path, e);
-      }
-    },
-    async commit() {
-      try {
-        await fh.sync();
-        await fh.close();
-        closed = true;
-        await rename(tmp, path);
-        unregisterTemp(tmp);
-      } catch (e) {
-        await drop();
-        throw toOutputError(path, e);
-      }
-    },
-    abort: drop,
-  };
+  return { fh, tmp };
 }

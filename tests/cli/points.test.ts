@@ -82,6 +82,12 @@ describe('probe --points', () => {
     expect(r.code).toBe(3);
     expect(r.stderr).toMatch(/does not exist \(create it first: ephmap does not create directories\)/);
     expect(existsSync(join(dir, 'no-such-dir'))).toBe(false);
+    // An input error as well: the input error wins (exit 2), as README promises, still nothing made.
+    const bad = csv('bad-head.csv', 'foo,bar\n1,2\n');
+    const b = await runCli(['probe', fe, '--points', bad, '-o', out]);
+    expect(b.code).toBe(2);
+    expect(b.stderr).toMatch(/header/);
+    expect(existsSync(join(dir, 'no-such-dir'))).toBe(false);
   });
 
   it('marks bad rows in the error column, answers the rest, exit status 4', async () => {
