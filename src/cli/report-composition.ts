@@ -1,6 +1,7 @@
 /**
  * `report` on a composition-mode file (the bath as made up): the composition diagram as the
- * figure, boundaries as curves, the speciation at the file's operating points, the plating window.
+ * figure, boundaries as curves, the speciation at the file's operating points, the plating window
+ * (when the file sets platingWindow: true).
  * Everything is computed before anything is written. Called by cli/report.ts.
  */
 import { textForPeople } from '../chem/present.js';

@@ -1,8 +1,8 @@
 /**
  * The `report` content for a composition-mode file (the bath as made up), in the shape the
  * writers lay out (ReportData): conditions with the totals, the boundaries as curves with the
- * reaction at each midpoint, the plating window of the composition diagram, and — in place of the
- * fixed-activity operating-point table — the speciation at each operating point as plain tables
+ * reaction at each midpoint, the plating window of the composition diagram (when the file sets
+ * platingWindow: true), and — in place of the fixed-activity operating-point table — the speciation at each operating point as plain tables
  * (`speciation`: predominant form, verdict, dissolved total; then each point's species). Steps:
  * 1. operating points to SHE; 2. each probed with the point solver (compositionProbe); 3. tables.
  * Computes nothing itself beyond laying the results out.
@@ -119,7 +119,7 @@ export function compositionReportData(spec: SystemSpec, cc: ComputedComposition,
     ],
     points: [],
     speciation: points.length ? speciationSection(points) : undefined,
-    window: win.windows.length ? win : null,
+    window: spec.extra.platingWindow === true ? win : null, // only when the file asks for it, as for the fixed kind
     sources: [...m.sources],
     species,
     warnings,

@@ -1,6 +1,7 @@
 /**
  * `report` (md, html, pdf) on a composition file: the composition figure, boundaries as curves,
- * the speciation at the file's operating points, the plating window of the bath as made up.
+ * the speciation at the file's operating points, the plating window of the bath as made up (when the
+ * file sets platingWindow: true).
  * Outside check: at pH 12, −0.5 V the silver bath keeps most silver as metal, and the metal plus
  * the dissolved silver in the speciation table make up the 0.2 mol/kg total (mass balance).
  */
@@ -19,6 +20,7 @@ const bath = writeTmp(dir, 'bath.yaml', [
   'points:',
   '  - {label: tank A, pH: 12, E: -0.5}',
   '  - {label: tank B, pH: 12, E: 0}',
+  'platingWindow: true',
   '',
 ].join('\n'));
 
@@ -43,6 +45,14 @@ describe('report on a composition file', () => {
     expect(md).toContain('## Plating window');
     expect(md).toContain('`Ag(CN)₂⁻`, `Ag(CN)₃²⁻`');
     expect(md).not.toContain('The system file names no operating points');
+  });
+  test('the window section only when the file sets platingWindow: true (issue 15: a corrosion case has none)', async () => {
+    const plain = writeTmp(dir, 'plain.yaml', 'element: Ag\ncomposition: {Ag: 0.2, CN: 0.6}\ngrid: 60\n');
+    for (const ext of ['md', 'html']) {
+      const out = join(dir, `plain.${ext}`);
+      expect((await runCli(['report', plain, '-o', out])).code).toBe(0);
+      expect(readFileSync(out, 'utf8'), ext).not.toMatch(/Plating window/);
+    }
   });
   test('HTML: self-contained with the figure and the speciation tables', async () => {
     const out = join(dir, 'r.html');
