@@ -2,8 +2,9 @@
  * The `report` content for a composition-mode file (the bath as made up), in the shape the
  * writers lay out (ReportData): conditions with the totals, the boundaries as curves with the
  * reaction at each midpoint, the plating window of the composition diagram (when the file sets
- * platingWindow: true), and — in place of the fixed-activity operating-point table — the speciation at each operating point as plain tables
- * (`speciation`: predominant form, verdict, dissolved total; then each point's species). Steps:
+ * platingWindow: true), and — in place of the fixed-activity operating-point table — the
+ * speciation at each operating point as plain tables (`speciation`: predominant form, verdict,
+ * dissolved total; then each point's species). Steps:
  * 1. operating points to SHE; 2. each probed with the point solver (compositionProbe); 3. tables.
  * Computes nothing itself beyond laying the results out.
  */
