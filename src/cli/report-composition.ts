@@ -8,6 +8,7 @@ import { textForPeople } from '../chem/present.js';
 import { basename, dirname, extname, join } from 'node:path';
 import { compositionWindow } from '../analysis/composition-window.js';
 import type { FigureSettings } from '../figure/options.js';
+import { placeOperatingMarks } from '../figure/operating-marks.js';
 import { renderFigure } from '../figure/output.js';
 import { writeOne, writeSet } from './outputs.js';
 import { buildScene } from '../render/scene.js';
@@ -17,7 +18,6 @@ import { type ReportData, speciesSources } from '../report/report-data.js';
 import { reportHtml } from '../report/report-html.js';
 import { reportMarkdown } from '../report/report-md.js';
 import type { SystemSpec } from '../system/spec.js';
-import { referenceOffset } from '../thermo/reference.js';
 
 /** Caption of the composition figure: the totals, stated as the bath as made up. */
 function caption(data: ReportData, totals: Record<string, number>): string[] {
@@ -31,9 +31,8 @@ export async function reportComposition(spec: SystemSpec, fig: FigureSettings, o
   const data = compositionReportData(spec, computed, win, speciesSources({ spec, model: computed.model, built: computed.setup.built }));
   const cap = caption(data, computed.setup.totals);
   const input: FigureInput = { model: computed.model, options: fig.options, caption: cap };
-  const op = spec.operating;
-  const she = (E: number, pH: number) => (op.reference === undefined || op.reference === 'she' ? E : E + referenceOffset(op.reference, spec.temperature, pH).offset);
-  if (op.points.length) input.points = op.points.map((p) => ({ label: p.label, pH: p.pH, E: she(p.E, p.pH) }));
+  // Operating points, boxes and paths on the figure, as draw places them.
+  placeOperatingMarks(input, spec.operating, spec.temperature);
   if (fmt === 'md') {
     const svgName = `${basename(output, extname(output))}.svg`;
     const svg = (await renderFigure(input, 'svg')) as string;

@@ -8,6 +8,7 @@
  * 1. operating points to SHE; 2. each probed with the point solver (compositionProbe); 3. tables.
  * Computes nothing itself beyond laying the results out.
  */
+import { answerEnvelopes, envelopeSamples } from '../analysis/envelopes.js';
 import { compositionProbe, type CompositionProbeResult } from '../analysis/composition-probe.js';
 import type { CompositionWindowResult } from '../analysis/composition-window.js';
 import type { ComputedComposition } from '../diagram/composition.js';
@@ -97,8 +98,13 @@ export function compositionReportData(spec: SystemSpec, cc: ComputedComposition,
   const totals = Object.entries(cc.setup.totals).map(([c, v]) => `${c} ${fmtNum(v)} mol/kg`).join(', ');
   const ligands = Object.keys(cc.setup.totals).slice(1);
   const gamma = cc.setup.solver.gamma;
+  // Boxes and paths: each sample answered by the point solver, as the operating points are.
+  const envelopes = answerEnvelopes(envelopeSamples(spec.operating, spec.temperature, warnings), (pH, E) => {
+    const r = compositionProbe(spec, cc.setup, pH, E);
+    return { predominant: r.predominant ?? 'speciation not solved', verdict: r.verdict };
+  });
   return {
-    envelopes: [],
+    envelopes,
     title: spec.title ?? `${m.element}\u2013H\u2082O${ligands.map((l) => `\u2013${l}`).join('')} at ${fmtCelsius(m.temperature.celsius)} \u00b0C, the bath as made up`,
     element: m.element,
     celsius: m.temperature.celsius,

@@ -54,6 +54,21 @@ describe('report on a composition file', () => {
       expect(readFileSync(out, 'utf8'), ext).not.toMatch(/Plating window/);
     }
   });
+  test('boxes and paths are answered at their samples and drawn (issue 15: report includes boxes and paths)', async () => {
+    const f = writeTmp(dir, 'env.yaml', [
+      'element: Ag', 'composition: {Ag: 0.2, CN: 0.6}', 'grid: 60',
+      'boxes:', '  - {label: "tank window", pH: [11, 13], E: [-0.6, -0.4]}',
+      'paths:', '  - {label: "rinse-down", points: [[12, -0.5], [12, 0]]}', '',
+    ].join('\n'));
+    const out = join(dir, 'env.md');
+    expect((await runCli(['report', f, '-o', out])).code).toBe(0);
+    const md = readFileSync(out, 'utf8');
+    expect(md).toContain('## Envelopes and paths');
+    expect(md).toMatch(/tank window \(envelope, E vs SHE\): .*centre \(pH 12, E -0\.5\): Ag \(immunity\)/);
+    // The same two points as tank A and tank B above: metal at −0.5 V, Ag(CN)₂⁻ at 0 V.
+    expect(md).toMatch(/rinse-down \(path, E vs SHE\): mixed: immunity, corrosion\. Points: point 1 \(pH 12, E -0\.5\): Ag \(immunity\); point 2 \(pH 12, E 0\): Ag\(CN\)₂⁻ \(corrosion\)/);
+    expect(readFileSync(join(dir, 'env.svg'), 'utf8')).toContain('tank window');
+  });
   test('HTML: self-contained with the figure and the speciation tables', async () => {
     const out = join(dir, 'r.html');
     expect((await runCli(['report', bath, '-o', out])).code).toBe(0);
