@@ -19,7 +19,8 @@ export interface EnvelopeSample {
   Egiven: number;
   Eshe: number;
   predominant: string;
-  verdict: Verdict;
+  /** The verdict: a point verdict (fixed and bath kinds), or an alloy's verdict in words. */
+  verdict: Verdict | string;
 }
 
 export interface EnvelopeResult {
@@ -28,7 +29,7 @@ export interface EnvelopeResult {
   scale: string;
   samples: EnvelopeSample[];
   /** The distinct verdicts found at the samples, in order of first appearance. */
-  verdicts: Verdict[];
+  verdicts: (Verdict | string)[];
 }
 
 /** A sample point of a box or path, its potential as given and on the SHE scale. */
@@ -74,7 +75,7 @@ export function envelopeSamples(op: Operating, celsius: number, warnings: string
 }
 
 /** Step 3 (both kinds): each sample answered by `answer` (predominant form and verdict). */
-export function answerEnvelopes(sets: EnvelopeSamples[], answer: (pH: number, Eshe: number) => { predominant: string; verdict: Verdict }): EnvelopeResult[] {
+export function answerEnvelopes(sets: EnvelopeSamples[], answer: (pH: number, Eshe: number) => { predominant: string; verdict: Verdict | string }): EnvelopeResult[] {
   return sets.map((r) => {
     const samples = r.pts.map((p) => ({ where: p.where, pH: p.pH, Egiven: p.E, Eshe: p.Eshe, ...answer(p.pH, p.Eshe) }));
     return { kind: r.kind, label: r.label, scale: r.pts[0]?.scale ?? 'SHE', samples, verdicts: [...new Set(samples.map((s) => s.verdict))] };

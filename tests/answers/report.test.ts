@@ -75,4 +75,24 @@ describe('report', () => {
       expect(text, ext).toContain(REPORT_CLOSING);
     }
   });
+
+  it('an alloy report answers its operating points, boxes and paths with the point solver (as probe does)', async () => {
+    const f = writeTmp(dir, 'brass.yaml', [
+      'elements: {Cu: 0.7, Zn: 0.3}', 'reference: sce',
+      'points:', '  - {label: "valve seat", pH: 8, E: -0.3}',
+      'boxes:', '  - {label: "hot loop", pH: [7.5, 9], E: [-0.4, -0.1]}',
+      'paths:', '  - {label: "flush", points: [[7, 0], [9, -0.4]]}', '',
+    ].join('\n'));
+    const probe = await runCli(['probe', f, '--ph', '8', '--potential', '-0.3']);
+    const assemblage = /^assemblage: (.*)$/m.exec(probe.stdout)![1];
+    for (const ext of ['md', 'html']) {
+      const out = join(dir, `brass.${ext}`);
+      expect((await runCli(['report', f, '-o', out])).code).toBe(0);
+      const text = readFileSync(out, 'utf8');
+      expect(text, ext).toContain('valve seat');
+      expect(text, ext).toContain(assemblage);
+      expect(text, ext).toMatch(/hot loop \(envelope, E vs SCE\)/);
+      expect(text, ext).toMatch(/flush \(path, E vs SCE\)/);
+    }
+  });
 });

@@ -91,6 +91,17 @@ describe('warnings name neutral species with their phase', () => {
   });
 });
 
+describe('alloy warnings on standard error are text for people', () => {
+  it('Cu²⁺ and Zn(OH)₂(aq), never Cu^2+ or Zn(OH)2(aq)', async () => {
+    const f = writeTmp(dir, 'brass60.yaml', 'elements: {Cu: 0.7, Zn: 0.3}\ntemperature: 60\n');
+    const r = await runCli(['probe', f, '--ph', '8', '--potential', '-0.1']);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toContain('Cu²⁺');
+    expect(r.stderr).toContain('Zn(OH)₂(aq)');
+    expect(r.stderr).not.toMatch(/\^|Zn\(OH\)2/);
+  });
+});
+
 describe('cell --json lists its species in the canonical form', () => {
   it('the electron and H+ too (e^-, H^+), every formula parsing back', async () => {
     for (const reaction of ['Fe^2+ + 2e^- <=> Fe(s)', 'Fe+2 + 2e- = Fe(s)', 'Fe²⁺ + 2e⁻ ⇌ Fe(s)', 'H2O(l) <=> H^+ + OH^-']) {
