@@ -68,7 +68,7 @@ export interface ProbeResult {
    * below (crossings.raiseE / lowerE). Horizontal distance `pH`: signed change of pH at this E to
    * the nearer of the boundaries at lower and higher pH (crossings.lowerPH / raisePH).
    */
-  distance: { mV: number | null; pH: number | null };
+  distance: { mV: number | null; pH: number | null; definition: string };
   /** Shortest distance in the (pH, E) plane, 1 pH counted as the Nernst slope (see `metric`). */
   nearestBoundary: {
     between: [string, string];
@@ -185,7 +185,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     margin,
     ligandSpecies,
     crossings,
-    distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP },
+    distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP, definition: DISTANCE_DEFINITION },
     nearestBoundary: nb ? nearestOf(g.nearest!, ctx.metric) : null,
     advice: '',
     warnings,
@@ -243,6 +243,10 @@ function nearerShift(a: number | undefined, b: number | undefined): number | nul
   if (a === undefined) return b ?? null;
   return b !== undefined && Math.abs(b) < Math.abs(a) ? b : a;
 }
+
+/** What `distance.mV` and `distance.pH` are, stated in the JSON answer beside them. */
+const DISTANCE_DEFINITION =
+  'mV: vertical distance (change of E at this pH) to the nearer boundary above or below; pH: horizontal distance (change of pH at this potential) to the nearer boundary at lower or higher pH; null: no boundary that way within the diagram';
 
 /** The metric of the nearest-boundary distance at T (kelvin), in words. */
 function metricText(kelvin: number): string {

@@ -68,6 +68,12 @@ describe('probe distances: one definition per name', () => {
     expect(t).toMatch(/nearest boundary in the plane: Cu²⁺ \/ CuO/);
     expect(r.crossings.raisePH!.between.slice().sort()).toEqual(['CuO', 'Cu^2+']);
   });
+  it('the JSON distance states its definition beside the figures, as nearestBoundary.distance does', () => {
+    const r = probe(cu, 6, 0.5);
+    expect(r.distance.definition).toMatch(/^mV: vertical distance \(change of E at this pH\).*; pH: horizontal distance \(change of pH at this potential\)/);
+    expect(r.nearestBoundary!.distance.metric).toMatch(/shortest distance in the \(pH, E\) plane/);
+  });
+
   it('the vertical distance is the nearer of the boundaries above and below', () => {
     const fe = probe(compute(readSpec({ element: 'Fe' }, 'fe.yaml')), 8, 0.016);
     const v = [fe.crossings.raiseE, fe.crossings.lowerE].filter((x) => x !== null).map((x) => x!.shift * 1000);
