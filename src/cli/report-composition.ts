@@ -30,7 +30,8 @@ export async function reportComposition(spec: SystemSpec, fig: FigureSettings, o
   for (const w of computed.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
   const data = compositionReportData(spec, computed, win, speciesSources({ spec, model: computed.model, built: computed.setup.built }));
   const cap = caption(data, computed.setup.totals);
-  const input: FigureInput = { model: computed.model, options: fig.options, caption: cap };
+  // The document prints the caption under the figure once; the figure itself carries none.
+  const input: FigureInput = { model: computed.model, options: { ...fig.options, show: { ...fig.options.show, caption: false } } };
   // Operating points, boxes and paths on the figure, as draw places them.
   placeOperatingMarks(input, spec.operating, spec.temperature);
   if (fmt === 'md') {
@@ -44,9 +45,8 @@ export async function reportComposition(spec: SystemSpec, fig: FigureSettings, o
   }
   if (fmt === 'html') await writeOne(output, reportHtml(data, (await renderFigure(input, 'svg')) as string, cap));
   else {
-    const noCaption = { ...input, options: { ...input.options, show: { ...input.options.show, caption: false } } };
     const { reportPdf } = await import('../report/report-pdf.js');
-    await writeOne(output, await reportPdf(data, buildScene(noCaption), { width: fig.options.width, height: fig.options.height }, cap));
+    await writeOne(output, await reportPdf(data, buildScene(input), { width: fig.options.width, height: fig.options.height }, cap));
   }
   process.stdout.write(`wrote ${output}\n`);
 }

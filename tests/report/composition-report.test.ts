@@ -69,6 +69,17 @@ describe('report on a composition file', () => {
     expect(md).toMatch(/rinse-down \(path, E vs SHE\): mixed: immunity, corrosion\. Points: point 1 \(pH 12, E -0\.5\): Ag \(immunity\); point 2 \(pH 12, E 0\): Ag\(CN\)₂⁻ \(corrosion\)/);
     expect(readFileSync(join(dir, 'env.svg'), 'utf8')).toContain('tank window');
   });
+  test('the caption is printed once, under the figure, not also inside it (issue 15: report does not repeat the caption)', async () => {
+    const out = join(dir, 'cap.html');
+    expect((await runCli(['report', bath, '-o', out])).code).toBe(0);
+    const html = readFileSync(out, 'utf8');
+    const svg = html.slice(html.indexOf('<svg'), html.indexOf('</svg>'));
+    expect(svg).not.toContain('class="caption"');
+    expect(html.split('the bath as made up: totals Ag').length - 1).toBe(1);
+    const md = join(dir, 'cap.md');
+    expect((await runCli(['report', bath, '-o', md])).code).toBe(0);
+    expect(readFileSync(join(dir, 'cap.svg'), 'utf8')).not.toContain('class="caption"');
+  });
   test('HTML: self-contained with the figure and the speciation tables', async () => {
     const out = join(dir, 'r.html');
     expect((await runCli(['report', bath, '-o', out])).code).toBe(0);
