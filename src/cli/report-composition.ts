@@ -7,6 +7,10 @@
 import { textForPeople } from '../chem/present.js';
 import { basename, dirname, extname, join } from 'node:path';
 import { compositionWindow } from '../analysis/composition-window.js';
+import { displayReference } from '../analysis/points.js';
+import { withSecondAxis } from '../figure/compose.js';
+import { Fields } from '../system/fields.js';
+import { readReference } from '../system/operating.js';
 import type { FigureSettings } from '../figure/options.js';
 import { placeOperatingMarks } from '../figure/operating-marks.js';
 import { renderFigure } from '../figure/output.js';
@@ -25,8 +29,14 @@ function caption(data: ReportData, totals: Record<string, number>): string[] {
   return [`${data.title}: totals ${t} mol/kg; regions where each form holds the largest share of the element.`];
 }
 
-export async function reportComposition(spec: SystemSpec, fig: FigureSettings, output: string, fmt: 'md' | 'html' | 'pdf'): Promise<void> {
+export async function reportComposition(spec: SystemSpec, fig: FigureSettings, output: string, fmt: 'md' | 'html' | 'pdf', ref?: string): Promise<void> {
   const { computed, result: win } = compositionWindow(spec);
+  // The second potential axis: --ref, else the file's reference (as draw does; the RHE has none).
+  const given = ref !== undefined ? readReference(new Fields('command line'), ref, '--ref') : spec.operating.reference;
+  if (given !== undefined && given !== 'she' && !(ref === undefined && given === 'rhe')) {
+    const [where, field] = ref !== undefined ? ['command line', '--ref'] : [spec.file, 'reference'];
+    withSecondAxis(computed, fig, displayReference(given, spec.temperature, where, field));
+  }
   for (const w of computed.model.warnings) process.stderr.write(`warning: ${textForPeople(w)}\n`);
   const data = compositionReportData(spec, computed, win, speciesSources({ spec, model: computed.model, built: computed.setup.built }));
   const cap = caption(data, computed.setup.totals);

@@ -80,6 +80,15 @@ describe('report on a composition file', () => {
     expect((await runCli(['report', bath, '-o', md])).code).toBe(0);
     expect(readFileSync(join(dir, 'cap.svg'), 'utf8')).not.toContain('class="caption"');
   });
+  test("--ref, else the file's reference:, gives the figure its second axis, as draw does (issue 15: the figure options)", async () => {
+    const out = join(dir, 'ref.html');
+    expect((await runCli(['report', bath, '-o', out, '--ref', 'sce'])).code).toBe(0);
+    expect(readFileSync(out, 'utf8')).toMatch(/data-axis="E2">.*\/ V vs SCE</);
+    const own = writeTmp(dir, 'own-ref.yaml', 'element: Ag\ncomposition: {Ag: 0.2, CN: 0.6}\ngrid: 60\nreference: cse\n');
+    const out2 = join(dir, 'own-ref.html');
+    expect((await runCli(['report', own, '-o', out2])).code).toBe(0);
+    expect(readFileSync(out2, 'utf8')).toMatch(/data-axis="E2">.*\/ V vs Cu\/CuSO<\/tspan>/); // CuSO₄, the 4 set as a subscript
+  });
   test('HTML: self-contained with the figure and the speciation tables', async () => {
     const out = join(dir, 'r.html');
     expect((await runCli(['report', bath, '-o', out])).code).toBe(0);
