@@ -248,8 +248,14 @@ export function gAt(s: ResolvedSpecies, spec: SystemSpec, ctx: Omit<CarryContext
   return c as Carried & { G: number };
 }
 
+/** The warning for a temperature above the data's usual range, at the temperature built (°C). */
+export function hotWarning(celsius: number): string[] {
+  return celsius > 300 ? [`temperature ${celsius} °C is above 300 °C: data extrapolated beyond their usual range`] : [];
+}
+
 export function buildSystem(spec: SystemSpec): BuiltSystem {
-  const warnings = [...spec.warnings];
+  // The file's warnings, and the one for this temperature (a logged row may set another than the file's).
+  const warnings = [...spec.warnings, ...hotWarning(spec.temperature)];
   const kelvin = spec.temperature + KELVIN;
   const { main: resolved, water } = resolveSpecies(spec, warnings);
   const sol = solutionAt(spec.file, spec.temperature, spec.pressure, spec.solution);

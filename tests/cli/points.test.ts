@@ -90,6 +90,17 @@ describe('probe --points', () => {
     expect(existsSync(join(dir, 'no-such-dir'))).toBe(false);
   });
 
+  it("the above-300 °C warning follows each row's own temperature, in its warnings column", async () => {
+    const f = csv('hot.csv', 'pH,potential,temperature\n7,-0.5,320\n7,-0.5,25\n');
+    const rows = parse((await runCli(['probe', fe, '--points', f])).stdout);
+    expect(rows[0].warnings).toMatch(/320 °C is above 300 °C/);
+    expect(rows[1].warnings).not.toMatch(/above 300 °C/);
+    const hotFile = join(dir, 'fe320.yaml');
+    writeFileSync(hotFile, 'element: Fe\ntemperature: 320\n');
+    const back = parse((await runCli(['probe', hotFile, '--points', csv('cool.csv', 'pH,potential,temperature\n7,-0.5,25\n')])).stdout);
+    expect(back[0].warnings).not.toMatch(/above 300 °C/);
+  });
+
   it('marks bad rows in the error column, answers the rest, exit status 4', async () => {
     const f = csv('bad.csv', 'pH,potential\n7,0\n0x7,0\n,0.1\n20,0\n7,1000\n8,-0.5\n');
     const r = await runCli(['probe', fe, '--points', f]);
