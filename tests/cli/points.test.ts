@@ -101,6 +101,13 @@ describe('probe --points', () => {
     expect(back[0].warnings).not.toMatch(/above 300 °C/);
   });
 
+  it('--json with --points is refused (the answer is CSV), not ignored; nothing written', async () => {
+    const r = await runCli(['probe', fe, '--points', csv('j.csv', 'pH,potential\n7,0\n'), '--json']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--json/);
+    expect(r.stdout).toBe('');
+  });
+
   it('marks bad rows in the error column, answers the rest, exit status 4', async () => {
     const f = csv('bad.csv', 'pH,potential\n7,0\n0x7,0\n,0.1\n20,0\n7,1000\n8,-0.5\n');
     const r = await runCli(['probe', fe, '--points', f]);
