@@ -54,6 +54,17 @@ describe('ligand totals keep their units', () => {
   });
 });
 
+describe('amounts given in g/L keep a readable unit', () => {
+  // 30 g/L Zn(CN)2 (117.44 g/mol, IUPAC atomic weights) / 0.99705 kg/L (IAPWS-95, 25 °C) = 0.256 mol/kg.
+  it('"30 g/L as Zn(CN)2" is printed 30 g/L as Zn(CN)₂, never "3e+4 mg/L"', () => {
+    const c = compute(readSpec({ element: 'Zn', concentration: '30 g/L as Zn(CN)2', ligands: { CN: '60 g/L as NaCN' } }, 'zn.yaml'));
+    const text = [linesText(c.model).split('\n')[0], probeText(probe(c, 12, -1.4)), ...captionLines(c)].join('\n');
+    expect(text).not.toMatch(/e\+\d+ mg\/L/);
+    expect(text).toContain('30 g/L as Zn(CN)₂ (0.256 mol/kg)');
+    expect(text).toContain('CN 60 g/L as NaCN (1.23 mol/kg)');
+  });
+});
+
 describe('composition probe: the ionic strength and how it was taken', () => {
   const text = (extra: Record<string, unknown>): string => {
     const spec = readSpec({ element: 'Cu', composition: { Cu: 0.5, N: 1 }, ...extra }, 'bath-cu.yaml');
