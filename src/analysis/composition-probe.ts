@@ -58,12 +58,26 @@ export interface CompositionProbeResult {
   /** log10 saturation index of each solid not formed (≤ 0 at equilibrium). */
   saturation: { species: string; logSI: number }[];
   ionicStrength: number | null;
+  /** How the ionic strength was taken: `not given (ideal solution)`, `given`, a background, or from the speciation (auto). */
+  ionicStrengthFrom: string;
+  /** The activity-coefficient model used (`ideal`, `davies`, `debye-huckel`). */
+  activityModel: string;
 }
 
 /** Species-data formula of a described label ('CuO(s)' → 'CuO'; dissolved formulas unchanged). */
 function dataFormula(P: SpeciationProblem, label: string): { formula: string; index: number } {
   const i = P.species.findIndex((s, k) => (k < P.nAq ? s.formula : `${s.formula}(${s.phase})`) === label);
   return { formula: i >= 0 ? P.species[i].formula : label, index: i };
+}
+
+/** How the solver takes the ionic strength, as composition-setup.ts sets it up (auto: Davies unless a model is named). */
+function ionicStrengthBasis(spec: SystemSpec, setup: CompositionSetup): { ionicStrengthFrom: string; activityModel: string } {
+  const s = setup.built.solution.settings;
+  const auto = spec.composition?.autoIonicStrength === true;
+  return {
+    ionicStrengthFrom: auto ? 'from the speciation at this point (ionicStrength: auto)' : s.ionicStrengthFrom,
+    activityModel: auto && s.model === 'ideal' ? 'davies' : s.model,
+  };
 }
 
 export function compositionProbe(spec: SystemSpec, setup: CompositionSetup, pH: number, E: number, ref?: { label: string; E: number; offset: number }): CompositionProbeResult {
@@ -79,6 +93,7 @@ export function compositionProbe(spec: SystemSpec, setup: CompositionSetup, pH: 
     temperature: { celsius: spec.temperature },
     totals: setup.totals,
     threshold: spec.activity,
+    ...ionicStrengthBasis(spec, setup),
   };
   // Step 2: a failed solve is reported, with no verdict.
   if (r.status !== 'ok' || r.predominant === undefined) {

@@ -5,6 +5,7 @@
  * file's reference scale at the sample's own pH. Data only; the report writes it.
  */
 import type { Computed } from '../pipeline.js';
+import type { Operating } from '../system/operating.js';
 import { referenceOffset } from '../thermo/reference.js';
 import type { PointVerdict as Verdict } from './probe.js';
 import { probe } from './probe.js';
@@ -18,7 +19,8 @@ export interface EnvelopeSample {
   Egiven: number;
   Eshe: number;
   predominant: string;
-  verdict: Verdict;
+  /** The verdict: a point verdict (fixed and bath kinds), or an alloy's verdict in words. */
+  verdict: Verdict | string;
 }
 
 export interface EnvelopeResult {
@@ -27,19 +29,37 @@ export interface EnvelopeResult {
   scale: string;
   samples: EnvelopeSample[];
   /** The distinct verdicts found at the samples, in order of first appearance. */
-  verdicts: Verdict[];
+  verdicts: (Verdict | string)[];
 }
 
-export function probeEnvelopes(c: Computed, warnings: string[]): EnvelopeResult[] {
-  const op = c.spec.operating;
-  const T = c.spec.temperature;
+/** A sample point of a box or path, its potential as given and on the SHE scale. */
+interface SamplePoint {
+  where: string;
+  pH: number;
+  E: number;
+  Eshe: number;
+  scale: string;
+}
+
+/** One envelope's samples before they are answered. */
+interface EnvelopeSamples {
+  kind: 'box' | 'path';
+  label: string;
+  pts: SamplePoint[];
+}
+
+/**
+ * Step 1 (both kinds of diagram): the sample points of every box (four corners and centre) and
+ * path (each point) of `op`, each potential converted from the file's reference scale at the
+ * sample's own pH and temperature `celsius`; the electrode's warnings are appended once each.
+ */
+export function envelopeSamples(op: Operating, celsius: number, warnings: string[]): EnvelopeSamples[] {
   const toShe = (pH: number, E: number) => {
     if (op.reference === undefined || op.reference === 'she') return { Eshe: E, scale: 'SHE' };
-    const r = referenceOffset(op.reference, T, pH);
+    const r = referenceOffset(op.reference, celsius, pH);
     warnings.push(...r.warnings.filter((w) => !warnings.includes(w)));
     return { Eshe: E + r.offset, scale: r.label };
   };
-  // Step 1: the sample points of every box and path.
   const raw: { kind: 'box' | 'path'; label: string; pts: { where: string; pH: number; E: number }[] }[] = [
     ...op.boxes.map((b) => ({
       kind: 'box' as const,
@@ -51,16 +71,27 @@ export function probeEnvelopes(c: Computed, warnings: string[]): EnvelopeResult[
     })),
     ...op.paths.map((p) => ({ kind: 'path' as const, label: p.label, pts: p.points.map(([x, y], k) => ({ where: `point ${k + 1}`, pH: x, E: y })) })),
   ];
-  if (!raw.length) return [];
-  const conv = raw.map((r) => ({ ...r, pts: r.pts.map((p) => ({ ...p, ...toShe(p.pH, p.E) })) }));
-  // Step 2: one computation holding every sample.
-  const at = computedHolding(c, conv.flatMap((r) => r.pts.map((p) => ({ pH: p.pH, E: p.Eshe }))));
-  // Step 3: the answer at each sample.
-  return conv.map((r) => {
-    const samples = r.pts.map((p) => {
-      const res = probe(at, p.pH, p.Eshe);
-      return { where: p.where, pH: p.pH, Egiven: p.E, Eshe: p.Eshe, predominant: res.predominant, verdict: res.verdict };
-    });
+  return raw.map((r) => ({ ...r, pts: r.pts.map((p) => ({ ...p, ...toShe(p.pH, p.E) })) }));
+}
+
+/** Step 3 (both kinds): each sample answered by `answer` (predominant form and verdict). */
+export function answerEnvelopes(sets: EnvelopeSamples[], answer: (pH: number, Eshe: number) => { predominant: string; verdict: Verdict | string }): EnvelopeResult[] {
+  return sets.map((r) => {
+    const samples = r.pts.map((p) => ({ where: p.where, pH: p.pH, Egiven: p.E, Eshe: p.Eshe, ...answer(p.pH, p.Eshe) }));
     return { kind: r.kind, label: r.label, scale: r.pts[0]?.scale ?? 'SHE', samples, verdicts: [...new Set(samples.map((s) => s.verdict))] };
+  });
+}
+
+/** The fixed-activity diagram's envelopes (see the module comment). */
+export function probeEnvelopes(c: Computed, warnings: string[]): EnvelopeResult[] {
+  // Step 1: the sample points of every box and path.
+  const sets = envelopeSamples(c.spec.operating, c.spec.temperature, warnings);
+  if (!sets.length) return [];
+  // Step 2: one computation holding every sample.
+  const at = computedHolding(c, sets.flatMap((r) => r.pts.map((p) => ({ pH: p.pH, E: p.Eshe }))));
+  // Step 3: the answer at each sample.
+  return answerEnvelopes(sets, (pH, E) => {
+    const res = probe(at, pH, E);
+    return { predominant: res.predominant, verdict: res.verdict };
   });
 }

@@ -68,7 +68,7 @@ export interface ProbeResult {
    * below (crossings.raiseE / lowerE). Horizontal distance `pH`: signed change of pH at this E to
    * the nearer of the boundaries at lower and higher pH (crossings.lowerPH / raisePH).
    */
-  distance: { mV: number | null; pH: number | null };
+  distance: { mV: number | null; pH: number | null; definition: string };
   /** Shortest distance in the (pH, E) plane, 1 pH counted as the Nernst slope (see `metric`). */
   nearestBoundary: {
     between: [string, string];
@@ -142,6 +142,9 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
   const second = k2 >= 0 ? input.species[k2] : null;
   const marginKJ = k2 >= 0 ? psi[k2] - psi[k1] : 0;
   const margin: Margin = second ? marginShifts(ctx, pH, E, k1, k2, marginKJ) : { kJPerMol: 0, potentialV: null, pH: null };
+  if (second && margin.potentialV === null && margin.pH === null && !movesWithActivity(best, input.element) && !movesWithActivity(second, input.element)) {
+    margin.note = FIXED_ORDER_NOTE;
+  }
   const winnerAt = (x: number, y: number) => {
     ctx.psi(x, y, psi);
     const k = argmin(psi);
@@ -182,7 +185,7 @@ export function probe(c: Computed, pH: number, E: number, ref?: { label: string;
     margin,
     ligandSpecies,
     crossings,
-    distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP },
+    distance: { mV: nearestE === null ? null : nearestE * 1000, pH: nearestP, definition: DISTANCE_DEFINITION },
     nearestBoundary: nb ? nearestOf(g.nearest!, ctx.metric) : null,
     advice: '',
     warnings,
@@ -214,6 +217,20 @@ function marginShifts(ctx: ProbeContext, pH: number, E: number, i: number, j: nu
   return out;
 }
 
+/**
+ * Whether a species' ψ moves with an activity the file sets: a dissolved or gaseous species (its
+ * own activity or pressure) or one holding a ligand (neither the element, H nor O). Between two
+ * species that do not (pure solids or liquids of the element and water, e.g. NiO and Ni(OH)₂) the
+ * margin is fixed at a given temperature.
+ */
+function movesWithActivity(sp: SolverSpecies, element: string): boolean {
+  return sp.phase === 'aq' || sp.phase === 'g' || Object.keys(sp.elements).some((e) => e !== element && e !== 'H' && e !== 'O');
+}
+
+/** The margin note between two such species (no shift of pH, E or activity closes the margin). */
+const FIXED_ORDER_NOTE =
+  'no change of potential, pH or activity reaches the runner-up: both are pure phases exchanging no electron, H+ or ligand with each other (the difference is water), so their order changes only with temperature';
+
 /** The element's amount; the default threshold read as a molality (ionic strength given) says so. */
 function thresholdAmount(c: Computed): GivenAmount {
   const a = c.model.amounts!.element;
@@ -226,6 +243,10 @@ function nearerShift(a: number | undefined, b: number | undefined): number | nul
   if (a === undefined) return b ?? null;
   return b !== undefined && Math.abs(b) < Math.abs(a) ? b : a;
 }
+
+/** What `distance.mV` and `distance.pH` are, stated in the JSON answer beside them. */
+const DISTANCE_DEFINITION =
+  'mV: vertical distance (change of E at this pH) to the nearer boundary above or below; pH: horizontal distance (change of pH at this potential) to the nearer boundary at lower or higher pH; null: no boundary that way within the diagram';
 
 /** The metric of the nearest-boundary distance at T (kelvin), in words. */
 function metricText(kelvin: number): string {

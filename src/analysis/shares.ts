@@ -11,6 +11,7 @@ import { speciationProfile } from '../diagram/composition-profile.js';
 import type { SystemSpec } from '../system/spec.js';
 import { InputError } from '../system/errors.js';
 import { KELVIN } from '../thermo/constants.js';
+import type { GivenPotential } from './points.js';
 
 export interface SharesData {
   element: string;
@@ -30,6 +31,8 @@ export interface SharesData {
   /** Indices of x where the point solver failed (shares NaN there). */
   failed: number[];
   warnings: string[];
+  /** Along pH: the fixed potential as given against a reference electrode (`at` is its SHE value). */
+  reference?: GivenPotential;
 }
 
 export interface SharesOptions {
@@ -37,6 +40,8 @@ export interface SharesOptions {
   points?: number;
   /** Smallest peak share for a form to be listed (default 1e-3; 0 lists every form). */
   minShare?: number;
+  /** The fixed potential as given against a reference electrode (kept with the data; `at` stays V vs SHE). */
+  reference?: GivenPotential;
 }
 
 /**
@@ -64,5 +69,6 @@ export function sharesData(spec: SystemSpec, along: 'pH' | 'E', at: number, opts
     dissolved: p.dissolved,
     failed: p.failed,
     warnings,
+    ...(opts.reference && along === 'pH' ? { reference: opts.reference } : {}),
   };
 }

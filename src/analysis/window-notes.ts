@@ -47,4 +47,4 @@ export function noWindowNote(element: string, runs: AboveRun[]): string {
 }
 
 export const WINDOW_DEFINITION =
-  'Window: a dissolved species of the element lies directly above the metal, so the bath keeps the metal in solution and deposits it below E_dep; margin = E_dep − E(H2/H+) at the same pH, overpotentials not included.';
+  'Window: a dissolved species of the element lies directly above the metal, so the bath keeps the metal in solution and deposits it below E_dep; margin = E_dep − E(H2(g)/H+) at the same pH, overpotentials not included.';

@@ -5,6 +5,7 @@
  */
 import { basename, dirname, extname, join } from 'node:path';
 import { alloyProbe } from '../analysis/alloy-probe.js';
+import { textForPeople } from '../chem/present.js';
 import { type DisplayedReference, displayReference, toShe } from '../analysis/points.js';
 import type { DiagramModel } from '../model.js';
 import { alloyName, computeAlloy } from '../diagram/alloy.js';
@@ -15,6 +16,7 @@ import { type FigureFormat, renderFigure } from '../figure/output.js';
 import { buildScene } from '../render/scene.js';
 import { writeOne, writeSet } from './outputs.js';
 import { alloyProbeText, alloyReportHtml, alloyReportMarkdown } from '../report/alloy-text.js';
+import { alloyOperating } from '../report/alloy-operating.js';
 import { stableJson } from '../report/json.js';
 import { activityRows, linesText, lineRows } from '../report/lines.js';
 import { type AlloySpec, isAlloyData, readAlloySpec } from '../system/alloy-spec.js';
@@ -26,8 +28,9 @@ import { T_RANGE } from '../system/spec.js';
 import { numberArg } from './args.js';
 import type { SpecOverrides } from './spec-options.js';
 
+/** Warnings on standard error, as text for people (Cu²⁺, Zn(OH)₂(aq)). */
 function warn(ws: readonly string[]): void {
-  for (const w of ws) process.stderr.write(`warning: ${w}\n`);
+  for (const w of ws) process.stderr.write(`warning: ${textForPeople(w)}\n`);
 }
 
 /**
@@ -129,10 +132,14 @@ export async function reportAlloy(spec: AlloySpec, output: string, fmt: string, 
   const caption = alloyCaption(c.model);
   const input = alloyFigureInput(c.model, spec, fig);
   input.options = { ...input.options, show: { ...input.options.show, caption: false } };
+  // The file's operating points, boxes and paths, answered by the point solver as probe does.
+  const refWarnings: string[] = [];
+  const operating = alloyOperating(spec.base.operating, spec.base.temperature, c.built.input, refWarnings);
+  warn(refWarnings.filter((w) => !c.model.warnings.includes(w)));
   if (fmt === 'pdf') {
     // Vector figure; its caption is printed under it by the report.
     const { alloyReportPdf } = await import('../report/alloy-pdf.js');
-    await writeOne(output, await alloyReportPdf(c.model, buildScene(input), { width: fig.options.width, height: fig.options.height }, caption));
+    await writeOne(output, await alloyReportPdf(c.model, buildScene(input), { width: fig.options.width, height: fig.options.height }, caption, operating));
     process.stdout.write(`wrote ${output}\n`);
     return;
   }
@@ -140,10 +147,10 @@ export async function reportAlloy(spec: AlloySpec, output: string, fmt: string, 
   if (fmt === 'md') {
     const svgName = `${basename(output, extname(output))}.svg`;
     const svgPath = join(dirname(output), svgName);
-    await writeSet([{ path: svgPath, data: svg }, { path: output, data: alloyReportMarkdown(c.model, svgName, caption) }]);
+    await writeSet([{ path: svgPath, data: svg }, { path: output, data: alloyReportMarkdown(c.model, svgName, caption, operating) }]);
     process.stdout.write(`wrote ${output} and ${svgPath}\n`);
     return;
   }
-  await writeOne(output, alloyReportHtml(c.model, svg, caption));
+  await writeOne(output, alloyReportHtml(c.model, svg, caption, operating));
   process.stdout.write(`wrote ${output}\n`);
 }

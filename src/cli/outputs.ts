@@ -15,10 +15,7 @@
  *     path (exit 3).
  * Every exit-2 refusal thus comes before any exit-3 one, and neither leaves anything written.
  */
-import { statSync } from 'node:fs';
-import { dirname } from 'node:path';
-import { OutputError } from '../errors.js';
-import { causeOf, errnoCode } from '../io/output-errors.js';
+import { requireOutputDirectory } from '../io/output-errors.js';
 import { type NamedPath, refuseInputsAsOutputs, requireExtension } from '../io/path-safety.js';
 import { commitOutputs, type OutputFile, writeOutput } from '../io/safe-write.js';
 
@@ -38,18 +35,7 @@ export function checkOutputs(outputs: PlannedOutput[], inputs: NamedPath[]): str
 }
 
 /** OutputError (exit 3) unless the directory that would hold `path` exists and is a directory. */
-export function requireDirectory(path: string): void {
-  const dir = dirname(path);
-  let isDir: boolean;
-  try {
-    isDir = statSync(dir).isDirectory();
-  } catch (e) {
-    const code = errnoCode(e);
-    if (code === 'ENOENT') throw new OutputError(path, `the directory ${dir} does not exist (create it first: ephmap does not create directories)`, { cause: e });
-    throw new OutputError(path, causeOf(code), { cause: e });
-  }
-  if (!isDir) throw new OutputError(path, causeOf('ENOTDIR'));
-}
+export const requireDirectory = requireOutputDirectory;
 
 /** Writes one output file safely; never creates directories. */
 export async function writeOne(path: string, data: string | Uint8Array): Promise<void> {

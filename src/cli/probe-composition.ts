@@ -16,6 +16,7 @@ import { stableJson } from '../report/json.js';
 import { InputError, UndeterminedError } from '../errors.js';
 import type { CustomReference } from '../thermo/reference.js';
 import { numberArg as num } from './args.js';
+import { writeOne } from './outputs.js';
 import type { RowAnswerer } from './probe-points.js';
 import type { SystemSpec } from '../system/spec.js';
 
@@ -23,6 +24,8 @@ export interface CompositionProbeOpts {
   ph?: string;
   potential?: string;
   json?: boolean;
+  /** A .json file for the answer (checked by the verb before anything is read). */
+  output?: string;
 }
 
 type Make = (spec: SystemSpec) => CompositionSetup;
@@ -59,6 +62,9 @@ export async function probeComposition(spec: SystemSpec, opts: CompositionProbeO
   const setup = make(spec);
   writeWarnings(setup.warnings, s.warnings);
   const r = compositionProbe(spec, setup, pH, s.E, s.ref);
-  process.stdout.write(opts.json ? stableJson(r) : compositionProbeText(r));
+  if (opts.output !== undefined) {
+    await writeOne(opts.output, stableJson(r));
+    process.stdout.write(`wrote ${opts.output}\n`);
+  } else process.stdout.write(opts.json ? stableJson(r) : compositionProbeText(r));
   if (r.status !== 'ok') throw new UndeterminedError(`probe: the speciation could not be solved at pH ${pH}, E ${s.E} V vs SHE (${r.reason}); verdict unknown`);
 }

@@ -49,7 +49,7 @@ export function registerProbe(program: Command): void {
     .option('--delimiter <sep>', 'with --points: separator of the input and output CSV: auto (default), ",", ";" or tab; with ";" or tab a decimal comma is read')
     .option('--unit <unit>', 'with --points: unit of a potential column named without one: V (default) or mV')
     .option('--strict', 'with --points: stop at the first bad row (exit status 2) instead of marking it and going on')
-    .option('--json', 'machine-readable output')
+    .option('--json', 'machine-readable output for one point (--points answers as CSV)')
     .action(async (file: string, opts: ProbeOpts) => {
       if (opts.output !== undefined && opts.points === undefined) {
         checkOutputs([{ path: opts.output, option: '--output', extensions: ['.json'] }], [{ path: file, option: '<file>' }]);
@@ -60,6 +60,7 @@ export function registerProbe(program: Command): void {
       if (opts.ref !== undefined) ref = readReference(new Fields('command line'), opts.ref, '--ref');
       if (opts.points !== undefined && (opts.ph !== undefined || opts.potential !== undefined)) throw new InputError('command line', '--points', 'either --points or --ph with --potential, not both');
       if (opts.points === undefined && (opts.ph === undefined || opts.potential === undefined)) throw new InputError('command line', '--ph/--potential', 'both --ph and --potential (or --points FILE.csv)');
+      if (opts.points !== undefined && opts.json === true) throw new InputError('command line', '--json', 'no --json with --points: a logged series is answered as CSV, one row per input row');
       if (opts.points !== undefined) {
         // A composition file answers each row from the bath as made up, an alloy file with its
         // assemblage; the streaming is the same.

@@ -52,7 +52,7 @@ export function registerReport(program: Command): void {
       if (alloy) return reportAlloy(alloy, opts.output, fmt, figOpts, opts.ref);
       const spec = loadSpecWith(file, opts);
       const fig = figureSettingsWidth(spec, figOpts, REPORT_WIDTH);
-      if (spec.composition) return reportComposition(spec, fig, opts.output, fmt);
+      if (spec.composition) return reportComposition(spec, fig, opts.output, fmt, opts.ref);
       const c = compute(spec);
       if (opts.ref !== undefined) {
         withSecondAxis(c, fig, displayReference(readReference(new Fields('command line'), opts.ref, '--ref'), spec.temperature, 'command line', '--ref'));

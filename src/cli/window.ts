@@ -34,7 +34,7 @@ function onScale<R extends WindowResult>(r: R, spec: SystemSpec, ref: string | u
   if (given === undefined || given === 'she') return r;
   const [where, field] = ref !== undefined ? ['command line', '--ref'] : [spec.file, 'reference'];
   const scaled = windowOnScale(r, given, spec.temperature, where, field);
-  for (const w of scaled.warnings) if (!r.warnings.includes(w) && !printed.includes(w)) process.stderr.write(`warning: ${w}\n`);
+  for (const w of scaled.warnings) if (!r.warnings.includes(w) && !printed.includes(w)) process.stderr.write(`warning: ${textForPeople(w)}\n`);
   return scaled;
 }
 

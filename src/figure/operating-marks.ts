@@ -7,10 +7,10 @@ import type { FigureInput } from '../render/scene.js';
 import type { Operating } from '../system/operating.js';
 import { referenceOffset } from '../thermo/reference.js';
 
-/** Sets input.points / boxes / paths from `op` (only those the file gives), at temperature `kelvin`. */
-export function placeOperatingMarks(input: FigureInput, op: Operating, kelvin: number): void {
+/** Sets input.points / boxes / paths from `op` (only those the file gives), at temperature `celsius` (°C). */
+export function placeOperatingMarks(input: FigureInput, op: Operating, celsius: number): void {
   const ref = op.reference;
-  const she = (E: number, pH: number) => (ref === undefined ? E : E + referenceOffset(ref, kelvin, pH).offset);
+  const she = (E: number, pH: number) => (ref === undefined ? E : E + referenceOffset(ref, celsius, pH).offset);
   if (op.points.length) input.points = op.points.map((p) => ({ label: p.label, pH: p.pH, E: she(p.E, p.pH) }));
   if (op.boxes.length) {
     input.boxes = op.boxes.map((b) => {

@@ -4,7 +4,7 @@
  */
 import type { SharesData } from '../analysis/shares.js';
 import { mmToPx } from '../render/options.js';
-import { buildSharesScene, fmtPotential, type SharesFigureInput } from '../render/shares-scene.js';
+import { buildSharesScene, fixedPotentialText, type SharesFigureInput } from '../render/shares-scene.js';
 import { sceneToSvg } from '../render/svg.js';
 import { fmtCelsius } from '../report/format.js';
 import type { SystemSpec } from '../system/spec.js';
@@ -17,7 +17,7 @@ export function sharesCaption(d: SharesData, spec: SystemSpec): string[] {
   const names = Object.keys(d.totals);
   const ligands = names.filter((k) => k !== d.element);
   const totals = names.map((k) => `${k} ${fmtTotal(d.totals[k]!)} mol/kg`).join(', ');
-  const fixed = d.along === 'pH' ? `E = ${fmtPotential(d.at)}` : `pH ${d.at.toFixed(2)}`;
+  const fixed = d.along === 'pH' ? `E = ${fixedPotentialText(d)}` : `pH ${d.at.toFixed(2)}`;
   const lines = [
     `${d.element}\u2013H\u2082O${ligands.length ? `\u2013${ligands.join('\u2013')}` : ''}, ${fmtCelsius(d.temperature.celsius)} °C; composition: full speciation; ${totals} total; ${fixed}. ` +
       `Share: fraction of all ${d.element} atoms held by each form, dissolved or solid.`,

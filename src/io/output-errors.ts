@@ -3,6 +3,8 @@
  * message naming the output path and the cause, with the system error kept as `cause` for logs.
  * Classification is by the error's `code` (EISDIR, ENOSPC, ...), never by its message text.
  */
+import { statSync } from 'node:fs';
+import { dirname } from 'node:path';
 import { OutputError } from '../errors.js';
 
 /** Plain-words cause for each system error code an output can meet. */
@@ -49,4 +51,21 @@ export function toOutputError(path: string, e: unknown): Error {
   const code = errnoCode(e);
   if (code === undefined) return e instanceof Error ? e : new Error(String(e));
   return new OutputError(path, causeOf(code), { cause: e });
+}
+
+/**
+ * OutputError (exit 3) unless the directory that would hold `path` exists and is a directory:
+ * ephmap never creates a directory for an output (only `demo --out`, through makeOutputDir).
+ */
+export function requireOutputDirectory(path: string): void {
+  const dir = dirname(path);
+  let isDir: boolean;
+  try {
+    isDir = statSync(dir).isDirectory();
+  } catch (e) {
+    const code = errnoCode(e);
+    if (code === 'ENOENT') throw new OutputError(path, `the directory ${dir} does not exist (create it first: ephmap does not create directories)`, { cause: e });
+    throw new OutputError(path, causeOf(code), { cause: e });
+  }
+  if (!isDir) throw new OutputError(path, causeOf('ENOTDIR'));
 }

@@ -266,7 +266,7 @@ const SCRIPT = `
     outSpecies.textContent = (r ? r.label + (r.name ? ' (' + r.name + ')' : '') + ': ' + r.reading : 'On a boundary') + gridReading(pH, E);
     var n = nearest(x, y);
     if (n) {
-      outLine.textContent = 'Nearest boundary ' + n.b.between + ': ' + n.b.reaction + '; ' + n.b.equation +
+      outLine.textContent = 'Nearest boundary on the figure: ' + n.b.between + ': ' + n.b.reaction + '; ' + n.b.equation +
         (n.b.equation2 ? ' (' + n.b.equation2 + ')' : '');
       near.setAttribute('d', 'M' + n.pts.map(function (p) { return p[0].toFixed(2) + ' ' + p[1].toFixed(2); }).join('L'));
     } else {
@@ -369,7 +369,7 @@ export function sceneToHtml(scene: Scene, model: DiagramModel, options: Pick<Fig
     '<p class="ephmap-species" id="ephmap-species"></p>',
     '<p class="ephmap-line" id="ephmap-line"></p>',
     '</div>',
-    `<p class="ephmap-help" id="ephmap-help">Point at the diagram or tap it to read pH, potential (V vs SHE${ref}), the predominant species and the nearest boundary. With the keyboard, focus the diagram and use the arrow keys: 0.1 pH or 10 mV per step, ten times more with Shift.</p>`,
+    `<p class="ephmap-help" id="ephmap-help">Point at the diagram or tap it to read pH, potential (V vs SHE${ref}), the predominant species and the boundary nearest the pointer on the figure (as drawn; probe measures its own nearest boundary on the Nernst scale). With the keyboard, focus the diagram and use the arrow keys: 0.1 pH or 10 mV per step, ten times more with Shift.</p>`,
     '</div>',
     '</figure>',
     '</main>',

@@ -35,10 +35,16 @@ function formStroke(o: FigureOptions, i: number): { stroke: string; dash: number
 /** A potential as "−0.20 V vs SHE" (minus sign U+2212). */
 export const fmtPotential = (E: number): string => `${E.toFixed(2).replace('-', '\u2212')} V vs SHE`;
 
+/** The fixed potential: "−0.20 V vs SHE", or "−0.45 V vs SCE (= −0.21 V vs SHE)" when given against an electrode. */
+export function fixedPotentialText(d: SharesData): string {
+  if (!d.reference) return fmtPotential(d.at);
+  return `${d.reference.E.toFixed(2).replace('-', '\u2212')} V vs ${d.reference.label} (= ${fmtPotential(d.at)})`;
+}
+
 /** The default title: "Ag shares vs pH at E = −0.20 V vs SHE, 25 °C". */
 export function sharesTitle(d: SharesData): string {
   const T = `${Number.isInteger(d.temperature.celsius) ? d.temperature.celsius : d.temperature.celsius.toFixed(1)} \u00b0C`;
-  return d.along === 'pH' ? `${d.element} shares vs pH at E = ${fmtPotential(d.at)}, ${T}` : `${d.element} shares vs E at pH ${d.at.toFixed(2)}, ${T}`;
+  return d.along === 'pH' ? `${d.element} shares vs pH at E = ${fixedPotentialText(d)}, ${T}` : `${d.element} shares vs E at pH ${d.at.toFixed(2)}, ${T}`;
 }
 
 /** The data's polyline of one form in figure points, broken where a point is unsolved (NaN). */
@@ -178,7 +184,7 @@ function axisItems(L: SharesLayout): SceneItem[] {
     items.push(text('tick-label', plainRuns(t.label), plot.x - tickLen - tickGap, Y(t.value) + (CAP_HEIGHT * fs) / 2, fs, 'end', ink.text, { data: { axis: 'share', value: String(t.value) } }));
   }
   items.push(line('tick', ticks, ink.frame, frameW, null));
-  const xTitle = d.along === 'pH' ? plainRuns(`pH (at E = ${fmtPotential(d.at)})`) : [...quantityRuns('E / V vs SHE'), ...plainRuns(` (at pH ${d.at.toFixed(2)})`)];
+  const xTitle = d.along === 'pH' ? plainRuns(`pH (at E = ${fixedPotentialText(d)})`) : [...quantityRuns('E / V vs SHE'), ...plainRuns(` (at pH ${d.at.toFixed(2)})`)];
   items.push(text('axis-title', xTitle, plot.x + plot.w / 2, bottom + L.xTitleBase, fs, 'middle', ink.text, { data: { axis: 'x' } }));
   items.push(text('axis-title', plainRuns(`share of ${d.element} (mol/mol)`), pad + CAP_HEIGHT * fs, plot.y + plot.h / 2, fs, 'middle', ink.text, { rotate: -90, data: { axis: 'share' } }));
   return items;

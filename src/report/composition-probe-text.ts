@@ -39,7 +39,7 @@ export function compositionProbeText(r: CompositionProbeResult): string {
   lines.push(`solids present: ${r.solids.length ? r.solids.map((s) => fp(s.species)).join(', ') : 'none'}`);
   for (const [c, f] of Object.entries(r.freeLigand)) lines.push(`free ${c} (not bound to the element): ${g(f.molality)} mol/kg, mostly ${fp(f.form)}`);
   if (r.saturation.length) lines.push(`saturation indices of solids not formed (log10 SI): ${r.saturation.map((s) => `${fp(s.species)} ${s.logSI.toFixed(2)}`).join(', ')}`);
-  lines.push(`ionic strength: ${g(r.ionicStrength!)} mol/kg`);
+  lines.push(`ionic strength: ${g(r.ionicStrength!)} mol/kg, ${r.ionicStrengthFrom}; activity model: ${r.activityModel}`);
   lines.push('Equilibrium thermodynamics only — not kinetics; follow the applicable codes and a qualified corrosion professional.');
   return `${lines.join('\n')}\n`;
 }

@@ -1,12 +1,14 @@
 /**
  * The `report` content for a composition-mode file (the bath as made up), in the shape the
  * writers lay out (ReportData): conditions with the totals, the boundaries as curves with the
- * reaction at each midpoint, the plating window of the composition diagram, and — in place of the
- * fixed-activity operating-point table — the speciation at each operating point as plain tables
- * (`speciation`: predominant form, verdict, dissolved total; then each point's species). Steps:
+ * reaction at each midpoint, the plating window of the composition diagram (when the file sets
+ * platingWindow: true), and — in place of the fixed-activity operating-point table — the
+ * speciation at each operating point as plain tables (`speciation`: predominant form, verdict,
+ * dissolved total; then each point's species). Steps:
  * 1. operating points to SHE; 2. each probed with the point solver (compositionProbe); 3. tables.
  * Computes nothing itself beyond laying the results out.
  */
+import { answerEnvelopes, envelopeSamples } from '../analysis/envelopes.js';
 import { compositionProbe, type CompositionProbeResult } from '../analysis/composition-probe.js';
 import type { CompositionWindowResult } from '../analysis/composition-window.js';
 import type { ComputedComposition } from '../diagram/composition.js';
@@ -96,8 +98,13 @@ export function compositionReportData(spec: SystemSpec, cc: ComputedComposition,
   const totals = Object.entries(cc.setup.totals).map(([c, v]) => `${c} ${fmtNum(v)} mol/kg`).join(', ');
   const ligands = Object.keys(cc.setup.totals).slice(1);
   const gamma = cc.setup.solver.gamma;
+  // Boxes and paths: each sample answered by the point solver, as the operating points are.
+  const envelopes = answerEnvelopes(envelopeSamples(spec.operating, spec.temperature, warnings), (pH, E) => {
+    const r = compositionProbe(spec, cc.setup, pH, E);
+    return { predominant: r.predominant ?? 'speciation not solved', verdict: r.verdict };
+  });
   return {
-    envelopes: [],
+    envelopes,
     title: spec.title ?? `${m.element}\u2013H\u2082O${ligands.map((l) => `\u2013${l}`).join('')} at ${fmtCelsius(m.temperature.celsius)} \u00b0C, the bath as made up`,
     element: m.element,
     celsius: m.temperature.celsius,
@@ -106,7 +113,7 @@ export function compositionReportData(spec: SystemSpec, cc: ComputedComposition,
       ['Temperature', `${fmtCelsius(m.temperature.celsius)} \u00b0C (${m.temperature.kelvin.toFixed(2)} K)`],
       ['Kind of diagram', 'composition mode \u2014 the bath as made up: totals, full speciation at every point (free ligand from the mass balances, solids precipitate when saturated); boundaries where two forms hold equal shares of the element'],
       ['Totals', totals],
-      ['Ionic strength', `${gamma.ionicStrength === 'auto' ? 'from the speciation at each point' : `${fmtNum(gamma.ionicStrength)} mol/kg`}; activity model: ${gamma.model}`],
+      ['Ionic strength', `${gamma.ionicStrength === 'auto' ? 'from the speciation at each point (ionicStrength: auto)' : `${fmtNum(gamma.ionicStrength)} mol/kg, ${cc.setup.built.solution.settings.ionicStrengthFrom}`}; activity model: ${gamma.model}`],
       ['Corrosion threshold', `${fmtNum(spec.activity)} mol/kg of dissolved element`],
       ['Gas pressures (water lines)', `p(H\u2082) = ${fmtNum(m.waterLines.pressures.H2)} bar, p(O\u2082) = ${fmtNum(m.waterLines.pressures.O2)} bar`],
       ['Diagram range', `pH ${fmtNum(m.domain.pH[0])} to ${fmtNum(m.domain.pH[1])}; E ${fmtNum(m.domain.E[0])} to ${fmtNum(m.domain.E[1])} V vs SHE`],
@@ -119,7 +126,7 @@ export function compositionReportData(spec: SystemSpec, cc: ComputedComposition,
     ],
     points: [],
     speciation: points.length ? speciationSection(points) : undefined,
-    window: win.windows.length ? win : null,
+    window: spec.extra.platingWindow === true ? win : null, // only when the file asks for it, as for the fixed kind
     sources: [...m.sources],
     species,
     warnings,

@@ -4,6 +4,7 @@
  * the same number always gives the same text.
  */
 
+import { formulaForPeople } from '../chem/present.js';
 import type { DiagramModel, GivenAmount } from '../model.js';
 
 /** A number to `sig` significant digits, plain between 1e-3 and 1e4, exponential outside. */
@@ -96,7 +97,12 @@ export function amountLabel(a: GivenAmount | undefined, fallback: number, opts: 
   if (!a) return `${opts.molal ? '' : 'activity '}${givenNumber(fallback, ascii)}${opts.molal ? ' mol/kg' : ''}`;
   if (a.kind === 'activity') return opts.molal && a.isDefault ? `${givenNumber(a.value, ascii)} mol/kg` : `activity ${givenNumber(a.value, ascii)}`;
   if (a.kind === 'molality') return `${givenNumber(a.value, ascii)} mol/kg`;
-  return `${fmtNum(a.value, 4)} mg/L${a.as ? ` as ${a.as}` : ''}${a.molality !== undefined ? ` (${fmtNum(a.molality, 3)} mol/kg)` : ''}`;
+  return `${massConcentration(a.value)}${a.as ? ` as ${formulaForPeople(a.as)}` : ''}${a.molality !== undefined ? ` (${fmtNum(a.molality, 3)} mol/kg)` : ''}`;
+}
+
+/** A mass concentration kept in mg/L, written in g/L from 1000 mg/L: "60 mg/L", "30 g/L" (never "3e+4 mg/L"). */
+function massConcentration(mgPerL: number): string {
+  return mgPerL >= 1000 ? `${fmtNum(mgPerL / 1000, 4)} g/L` : `${fmtNum(mgPerL, 4)} mg/L`;
 }
 
 /** The dissolved-element amount of a model, with its unit. */

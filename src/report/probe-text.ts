@@ -11,15 +11,24 @@ const mv = (v: number) => `${v >= 0 ? '+' : ''}${(v * 1000).toFixed(1)} mV`;
 const ph = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(3)} pH`;
 const pair = (x: { between: [string, string] }) => x.between.map(fp).join(' / ');
 
-/** The runner-up line: margin, and the shift of E and of pH that closes it (or why there is none). */
-function runnerUpLine(r: ProbeResult): string {
-  if (!r.runnerUp) return 'runner-up: none';
+/**
+ * The runner-up for people: its formula, the margin, and the shift of E and of pH that closes it
+ * (or why there is none) — "CuO (margin 7.691 kJ per mol of element; +0.674 pH at this potential; …)".
+ * Also the reports' operating-point lines.
+ */
+export function runnerUpText(r: ProbeResult): string {
+  if (!r.runnerUp) return 'none';
   const m = r.margin;
   const parts = [`margin ${m.kJPerMol.toFixed(3)} kJ per mol of element`];
   if (m.potentialV !== null) parts.push(`${mv(m.potentialV)} at this pH`);
   if (m.pH !== null) parts.push(`${ph(m.pH)} at this potential`);
   if (m.note) parts.push(m.note);
-  return `runner-up: ${fp(r.runnerUp)} (${parts.map(textForPeople).join('; ')})`;
+  return `${fp(r.runnerUp)} (${parts.map(textForPeople).join('; ')})`;
+}
+
+/** The runner-up line of the probe answer. */
+function runnerUpLine(r: ProbeResult): string {
+  return `runner-up: ${runnerUpText(r)}`;
 }
 
 /** The nearer of two crossings in one direction, named by its boundary. */

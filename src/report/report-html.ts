@@ -7,6 +7,7 @@ import { esc } from '../render/svg.js';
 import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
+import { runnerUpText } from './probe-text.js';
 import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 const STYLE = [
@@ -143,6 +144,7 @@ function pointsSection(d: ReportData, o: string[]): void {
       const cr = crossingTexts(p.result);
       let li = `<li><b>${esc(p.label)}</b>: ${esc(p.result.advice)}`;
       if (cr.length) li += ` Crossings: ${esc(cr.join('; '))}.`;
+      li += `<br>Runner-up: ${esc(runnerUpText(p.result))}.`;
       if (p.result.nearestBoundary) li += `<br>Nearest boundary: ${code(p.result.nearestBoundary.reaction)} (${esc(p.result.nearestBoundary.equation)}).`;
       o.push(`${li}</li>`);
     }

@@ -6,6 +6,7 @@ import { reportForPeople } from './people.js';
 import { shortSource } from './format.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
+import { runnerUpText } from './probe-text.js';
 import { fmtCelsius, fmtNum, fmtSigned, mdCode, mdEsc, mdTable } from './format.js';
 
 export function reportMarkdown(data: ReportData, figureFile: string, caption: string[]): string {
@@ -109,6 +110,7 @@ function pointsSection(d: ReportData, out: string[]): void {
     for (const p of d.points) {
       const cr = crossingTexts(p.result);
       out.push(`- **${mdEsc(p.label)}**: ${mdEsc(p.result.advice)}${cr.length ? ` Crossings: ${cr.map(mdEsc).join('; ')}.` : ''}`);
+      out.push(`  Runner-up: ${mdEsc(runnerUpText(p.result))}.`);
       if (p.result.nearestBoundary) out.push(`  Nearest boundary: ${mdCode(p.result.nearestBoundary.reaction)} (${mdEsc(p.result.nearestBoundary.equation)}).`);
     }
     out.push('');

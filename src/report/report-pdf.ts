@@ -12,6 +12,7 @@ import { collectPdf } from '../render/pdf-buffer.js';
 import type { Scene } from '../render/scene-types.js';
 import type { ReportData } from './report-data.js';
 import { crossingTexts, envelopeText } from './report-data.js';
+import { runnerUpText } from './probe-text.js';
 import { fmtCelsius, fmtNum, fmtSigned } from './format.js';
 
 type Doc = PDFKit.PDFDocument;
@@ -220,7 +221,7 @@ function pointsSection(d: ReportData, w: Writer): void {
     ]), [0.16, 0.07, 0.13, 0.1, 0.11, 0.12, 0.09, 0.12, 0.1]);
     w.bullets(d.points.map((p) => {
       const cr = crossingTexts(p.result);
-      return `${p.label}: ${p.result.advice}${cr.length ? ` Crossings: ${cr.join('; ')}.` : ''}${p.result.nearestBoundary ? ` Nearest boundary: ${p.result.nearestBoundary.reaction} (${p.result.nearestBoundary.equation}).` : ''}`;
+      return `${p.label}: ${p.result.advice}${cr.length ? ` Crossings: ${cr.join('; ')}.` : ''} Runner-up: ${runnerUpText(p.result)}.${p.result.nearestBoundary ? ` Nearest boundary: ${p.result.nearestBoundary.reaction} (${p.result.nearestBoundary.equation}).` : ''}`;
     }));
   }
 }

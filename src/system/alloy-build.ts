@@ -119,7 +119,7 @@ export function buildAlloySystem(spec: AlloySpec): BuiltAlloy {
   const warnings: string[] = [...spec.warnings];
   const builds = els.map((el) => buildSystem(elementSpec(spec, el)));
   const sources = new Set(builds.flatMap((b) => b.sources));
-  for (const b of builds) warnings.push(...b.warnings);
+  for (const b of builds) warnings.push(...b.warnings.filter((w) => !warnings.includes(w)));
   const rawWarnings: string[] = [];
   const mixed = mixedSpecies(spec, builds[0].solution.water, rawWarnings);
   warnings.push(...collapseCpWarnings(rawWarnings));

@@ -216,6 +216,15 @@ function keepMixedLigand(spec: SystemSpec, grouped: Record<string, number>): boo
 }
 
 /**
+ * A species as a warning names it: its formula, with the phase tag when it has no charge
+ * ("Zn(OH)2(aq)", "Ni(OH)2(s)"), so that the aqueous and the solid form are told apart and text
+ * for people prints it in Unicode (textForPeople re-spells tagged and charged formulas only).
+ */
+function warningName(s: ResolvedSpecies): string {
+  return s.f.charge === 0 ? `${s.formula}(${s.phase})` : s.formula;
+}
+
+/**
  * Carry a species to T (carry.ts). A species that cannot be carried (an inline species with only
  * ΔfG°) stays in the system as 'undetermined': its 25 °C ΔfG° is used for the GEOMETRY only (where
  * its field would lie if G did not change with T), its region is marked undetermined and gets no
@@ -223,23 +232,30 @@ function keepMixedLigand(spec: SystemSpec, grouped: Record<string, number>): boo
  */
 export function gAt(s: ResolvedSpecies, spec: SystemSpec, ctx: Omit<CarryContext, 'constantG'>, warnings: string[]): Carried & { G: number } {
   const c = carrySpecies(s, { ...ctx, constantG: constantG(spec, s.formula) });
+  const named = warningName(s);
   if (c.G === undefined) {
-    warnings.push(`${UNDET_WARN}${s.formula}`);
+    warnings.push(`${UNDET_WARN}${named}`);
     return { ...c, G: s.dfG, model: 'undetermined' };
   }
   if (!Number.isFinite(c.G)) {
     throw new InputError(spec.file, `${s.field} (${s.formula})`, `temperature data that give a finite G at ${spec.temperature} °C (check its hkf or cpPolynomial values)`);
   }
   if (Math.abs(spec.temperature - 25) > 1e-9) {
-    if (c.model === 'constant-g') warnings.push(`${CONST_G_WARN}${s.formula}`);
-    if (c.model === 'constant-h-s' && Math.abs(spec.temperature - 25) > 50) warnings.push(`${CP_WARN}${s.formula}`);
-    if (c.estimated) warnings.push(`${EST_WARN}${s.formula}`);
+    if (c.model === 'constant-g') warnings.push(`${CONST_G_WARN}${named}`);
+    if (c.model === 'constant-h-s' && Math.abs(spec.temperature - 25) > 50) warnings.push(`${CP_WARN}${named}`);
+    if (c.estimated) warnings.push(`${EST_WARN}${named}`);
   }
   return c as Carried & { G: number };
 }
 
+/** The warning for a temperature above the data's usual range, at the temperature built (°C). */
+export function hotWarning(celsius: number): string[] {
+  return celsius > 300 ? [`temperature ${celsius} °C is above 300 °C: data extrapolated beyond their usual range`] : [];
+}
+
 export function buildSystem(spec: SystemSpec): BuiltSystem {
-  const warnings = [...spec.warnings];
+  // The file's warnings, and the one for this temperature (a logged row may set another than the file's).
+  const warnings = [...spec.warnings, ...hotWarning(spec.temperature)];
   const kelvin = spec.temperature + KELVIN;
   const { main: resolved, water } = resolveSpecies(spec, warnings);
   const sol = solutionAt(spec.file, spec.temperature, spec.pressure, spec.solution);

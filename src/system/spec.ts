@@ -139,7 +139,7 @@ export function readSpec(data: unknown, file: string): SystemSpec {
   const levels = readSolubilityLevels(f, o.solubilityLevels, comp !== undefined);
   if (comp && levels) comp.composition.levels = levels;
   const temperature = f.optNumber(o.temperature, 'temperature', 25, { min: T_RANGE.min, max: T_RANGE.max });
-  if (temperature > 300) warnings.push(`temperature ${temperature} °C is above 300 °C: data extrapolated beyond their usual range`);
+  // The warning above 300 °C is the build's (system/build.ts), at the temperature actually computed.
   const pressure = o.pressure === undefined ? undefined : f.number(o.pressure, 'pressure', { positive: true, max: 100 });
   const activity = f.optNumber(o.activity, 'activity', 1e-6, { positive: true, max: 100 });
   if (o.activity !== undefined && o.concentration !== undefined) f.fail('concentration', 'either activity or concentration, not both');

@@ -10,12 +10,13 @@
  * Worked example (test): Cu²⁺ + 2e⁻ = Cu(s) at a(Cu²⁺) = 1e-6, 25 °C: E = E° − (0.05916/2)·6
  * = E° − 0.1775 V. Reference: the Nernst equation, any physical-chemistry text.
  */
+import { formulaForJson } from '../chem/present.js';
 import { parseFormula } from '../chem/formula.js';
 import { ReactionError, type Term } from '../chem/reaction-parse.js';
 import { F, KELVIN, LN10, R } from './constants.js';
 
 export interface AtConditions {
-  /** The activities (pressures, bar, for gases) used, by species as written. */
+  /** The activities (pressures, bar, for gases) used, by species in the canonical form (Fe^2+). */
   activities: Record<string, number>;
   logQ: number;
   /** kJ/mol, the reaction as written. */
@@ -66,7 +67,7 @@ export function atConditions(
     const hit = terms.filter((t) => !t.electron && names(key, t));
     if (!hit.length) throw new ReactionError(reaction, 'a species of the reaction', JSON.stringify(key), 'activity');
     for (const t of hit) logQ += t.side * t.coefficient * Math.log10(a);
-    used[key] = a;
+    used[formulaForJson(key)] = a;
   }
   const T = celsius + KELVIN;
   const deltaG = dG0 + (R * T * LN10 * logQ) / 1000;

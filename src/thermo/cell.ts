@@ -33,6 +33,7 @@ import { type CellExtrapolation, reactionEnergies, type SpeciesAtT } from './cel
 import { type AtConditions, atConditions } from './cell-conditions.js';
 import type { Phase } from '../chem/formula.js';
 import { electronsTransferred } from '../chem/oxidation.js';
+import { formulaForJson } from '../chem/present.js';
 import { parseReaction, ReactionError, type ParsedReaction, type Term } from '../chem/reaction-parse.js';
 import { referenceOffset, type CustomReference } from './reference.js';
 
@@ -210,7 +211,7 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
   for (const t of parsed.terms) {
     if (t.electron || isProton(t)) {
       species.push({
-        formula: t.electron ? 'e-' : 'H+',
+        formula: t.electron ? 'e^-' : 'H^+',
         phase: t.electron ? null : 'aq',
         coefficient: t.side * t.coefficient,
         source: t.electron ? 'SHE at the same temperature (½H₂ ⇌ H⁺ + e⁻)' : 'conventional scale: zero at every temperature',
@@ -227,7 +228,7 @@ export function prepareCell(text: string, opts: CellOptions): Prepared {
     const name = term.formula + (term.phase ? `(${term.phase})` : '');
     const data = opts.lookup(term.formula, term.phase);
     if (!data) throw new ReactionError(src, 'species known to the built-in library or the system file', JSON.stringify(name));
-    species.push({ formula: term.formula, phase: data.phase ?? term.phase ?? null, coefficient: nu, source: data.source ?? 'not given' });
+    species.push({ formula: formulaForJson(term.formula), phase: data.phase ?? term.phase ?? null, coefficient: nu, source: data.source ?? 'not given' });
     if (Math.abs(nu) > 1e-12) resolved.push({ nu, data, name });
   }
   if (kind === 'half') {

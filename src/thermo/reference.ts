@@ -90,7 +90,7 @@ export const REFERENCE_ELECTRODES: readonly ReferenceElectrode[] = [
   },
   {
     id: 'cse',
-    label: 'Cu/CuSO4 (sat.)',
+    label: 'Cu/CuSO₄ (sat.)',
     E25: 0.316,
     dEdT: 9.0e-4,
     validRange: [0, 60],
@@ -99,7 +99,7 @@ export const REFERENCE_ELECTRODES: readonly ReferenceElectrode[] = [
     aliases: ['cu/cuso4', 'csce', 'copper-sulfate'],
   },
   { id: 'hgo', label: 'Hg/HgO (1 mol/L NaOH)', E25: 0.14, source: PRACTICE, aliases: ['hg/hgo'] },
-  { id: 'mse', label: 'Hg/Hg2SO4 (sat. K2SO4)', E25: 0.64, source: PRACTICE, aliases: ['hg/hg2so4'] },
+  { id: 'mse', label: 'Hg/Hg₂SO₄ (sat. K₂SO₄)', E25: 0.64, source: PRACTICE, aliases: ['hg/hg2so4'] },
 ];
 
 const BY_NAME = new Map<string, ReferenceElectrode>();

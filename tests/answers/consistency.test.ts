@@ -93,3 +93,29 @@ describe('overlay options', () => {
     expect(html).toContain('vs SCE');
   });
 });
+
+describe('probe -o OUT.json for one point writes the JSON answer for every kind of file', () => {
+  it('a bath as made up and an alloy as well as one element (never printed and ignored)', async () => {
+    const bath = writeTmp(dir, 'bath-o.yaml', 'element: Cu\ncomposition: {Cu: 0.5, N: 1}\n');
+    const alloy = writeTmp(dir, 'alloy-o.yaml', 'elements: {Cu: 0.7, Zn: 0.3}\n');
+    for (const [f, key] of [[cu, 'predominant'], [bath, 'speciation'], [alloy, 'assemblage']] as const) {
+      const out = join(dir, `${key}.json`);
+      const r = await runCli(['probe', f, '--ph', '10', '--potential', '0.3', '-o', out]);
+      expect(r.code, r.stderr).toBe(0);
+      expect(r.stdout).toBe(`wrote ${out}\n`);
+      expect(JSON.parse(readFileSync(out, 'utf8'))).toHaveProperty(key);
+    }
+  });
+});
+
+describe('every probe answer carries the same caution', () => {
+  it('one element, a bath as made up and an alloy: equilibrium only, not kinetics; codes and a qualified professional', async () => {
+    const bath = writeTmp(dir, 'bath.yaml', 'element: Cu\ncomposition: {Cu: 0.5, N: 1}\n');
+    const alloy = writeTmp(dir, 'alloy.yaml', 'elements: {Fe: 0.7, Cr: 0.18, Ni: 0.12}\n');
+    for (const f of [cu, bath, alloy]) {
+      const r = await runCli(['probe', f, '--ph', '8', '--potential', '-0.3']);
+      expect(r.code, r.stderr).toBe(0);
+      expect(r.stdout, f).toMatch(/Equilibrium thermodynamics only — not kinetics.*; follow the applicable codes and a qualified corrosion professional\.\n$/);
+    }
+  });
+});

@@ -29,6 +29,27 @@ describe('runner-up reached without electron transfer', () => {
   });
 });
 
+describe('runner-up that no change of conditions reaches', () => {
+  // NBS 1982 (recalled): ΔfG°(NiO, s) = −211.7, ΔfG°(Ni(OH)2, s) = −447.2, ΔfG°(H2O, l) = −237.129 kJ/mol,
+  // so NiO + H2O = Ni(OH)2 has ΔrG° = +1.629 kJ/mol at 25 °C, whatever the pH, E or activities.
+  const r = probe(compute(readSpec({ element: 'Ni', activity: 1 }, 'ni.yaml')), 9, 0);
+  it('two pure solids: the margin is fixed, and the note does not blame activities', () => {
+    expect(r.predominant).toBe('NiO');
+    expect(r.runnerUp).toBe('Ni(OH)2');
+    expect(r.margin.kJPerMol).toBeCloseTo(1.629, 3);
+    expect(r.margin.potentialV).toBeNull();
+    expect(r.margin.pH).toBeNull();
+    expect(r.margin.note).not.toMatch(/ligand or dissolved activities/);
+    expect(r.margin.note).toMatch(/only with temperature/);
+  });
+  it('a dissolved runner-up still points at the activities (Zn(OH)2(aq) vs ZnO at 60 °C)', () => {
+    const zn = probe(compute(readSpec({ element: 'Zn', temperature: 60 }, 'zn.yaml')), 9, -0.7841);
+    expect(zn.margin.potentialV).toBeNull();
+    expect(zn.margin.pH).toBeNull();
+    expect(zn.margin.note).toMatch(/dissolved activities/);
+  });
+});
+
 describe('probe distances: one definition per name', () => {
   const r = probe(cu, 6, 0.5);
   it('nearest boundary: plane distance on the Nernst scale, with the point reached, not mislabelled', () => {
@@ -47,6 +68,12 @@ describe('probe distances: one definition per name', () => {
     expect(t).toMatch(/nearest boundary in the plane: Cu²⁺ \/ CuO/);
     expect(r.crossings.raisePH!.between.slice().sort()).toEqual(['CuO', 'Cu^2+']);
   });
+  it('the JSON distance states its definition beside the figures, as nearestBoundary.distance does', () => {
+    const r = probe(cu, 6, 0.5);
+    expect(r.distance.definition).toMatch(/^mV: vertical distance \(change of E at this pH\).*; pH: horizontal distance \(change of pH at this potential\)/);
+    expect(r.nearestBoundary!.distance.metric).toMatch(/shortest distance in the \(pH, E\) plane/);
+  });
+
   it('the vertical distance is the nearer of the boundaries above and below', () => {
     const fe = probe(compute(readSpec({ element: 'Fe' }, 'fe.yaml')), 8, 0.016);
     const v = [fe.crossings.raiseE, fe.crossings.lowerE].filter((x) => x !== null).map((x) => x!.shift * 1000);

@@ -18,6 +18,10 @@ describe('window notes', () => {
     const text = r.notes.join('\n');
     expect(text).not.toMatch(/marginToHydrogen > 0|deposits before hydrogen|above the hydrogen line \(/);
     expect(text).toMatch(/below the hydrogen line everywhere .*hydrogen evolves first/);
+    // Text for people in Unicode throughout (README "Notation"): the hydrogen couple too.
+    const printed = windowText(r, windowHeading(c.model));
+    expect(printed).toContain('E(H₂(g)/H⁺)');
+    expect(printed).not.toMatch(/H2\//);
   });
 
   it('copper in acid: every margin positive, and the note says so', () => {

@@ -28,7 +28,7 @@ describe('window on the file reference scale', () => {
 
   it('--ref overrides the file reference (cse), and --ref she gives SHE', async () => {
     const cse = await runCli(['window', zn, '--ref', 'cse']);
-    expect(cse.stdout).toContain('V vs Cu/CuSO4 (sat.)');
+    expect(cse.stdout).toContain('V vs Cu/CuSO₄ (sat.)'); // text for people in Unicode (README "Notation")
     expect(Math.abs(depText(cse.stdout) - -1.107)).toBeLessThan(0.01);
     const she = await runCli(['window', zn, '--ref', 'she']);
     expect(she.stdout).toContain('potentials in V vs SHE.');

@@ -79,7 +79,8 @@ describe.skipIf(!haveChromium)('interactive HTML in Chromium', () => {
     const t = await readout();
     expect(t).toContain('pH 2.00, E = \u22120.900 V vs SHE');
     expect(t).toMatch(/Fe \(iron[^)]*\)\): immunity|Fe: immunity/);
-    expect(t).toContain('Nearest boundary Fe / Fe\u00b2\u207a');
+    // Named by its own definition (issue 15, defect 5): nearest as drawn, not probe's Nernst-scaled plane.
+    expect(t).toContain('Nearest boundary on the figure: Fe / Fe\u00b2\u207a');
     expect(t).toContain('Fe\u00b2\u207a + 2e\u207b \u21cc Fe(s)');
   });
 
@@ -89,7 +90,7 @@ describe.skipIf(!haveChromium)('interactive HTML in Chromium', () => {
     const t = await readout();
     expect(t).toContain('pH 4.00, E = 0.000 V vs SHE');
     expect(t).toContain('Fe\u00b2\u207a (iron(II) ion): corrosion');
-    expect(t).toMatch(/Nearest boundary Fe\u00b2\u207a \/ Fe\u2082O\u2083: .*; E = [\d.]+ \u2212 [\d.]+ pH V vs SHE/);
+    expect(t).toMatch(/Nearest boundary on the figure: Fe\u00b2\u207a \/ Fe\u2082O\u2083: .*; E = [\d.]+ \u2212 [\d.]+ pH V vs SHE/);
   });
 
   it('moves the crosshair with the arrow keys (0.1 pH, 10 mV; Shift ×10)', async () => {

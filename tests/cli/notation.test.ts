@@ -77,6 +77,48 @@ describe('every spelling is read', () => {
   });
 });
 
+describe('warnings name neutral species with their phase', () => {
+  it('Zn(OH)₂(aq) and Ni(OH)₂(s) in text, Zn(OH)2(aq) in JSON: never a bare ASCII "Zn(OH)2" for people', async () => {
+    const zn = writeTmp(dir, 'zn60.yaml', 'element: Zn\ntemperature: 60\n');
+    const ni = writeTmp(dir, 'ni150.yaml', 'element: Ni\ntemperature: 150\n');
+    const t = await runCli(['probe', zn, '--ph', '9', '--potential', '-0.8']);
+    expect(t.stdout).toContain('Zn(OH)₂(aq)');
+    expect(t.stdout + t.stderr).not.toMatch(/Zn\(OH\)2(?!\()/);
+    const u = await runCli(['probe', ni, '--ph', '10', '--potential', '-0.2']);
+    expect(u.stdout).toMatch(/without Cp°.*Ni\(OH\)₂\(s\)/);
+    const j = await json(['probe', zn, '--ph', '9', '--potential', '-0.8', '--json']);
+    expect((j.warnings as string[]).join(' ')).toContain('Zn(OH)2(aq)');
+  });
+});
+
+describe('alloy warnings on standard error are text for people', () => {
+  it('Cu²⁺ and Zn(OH)₂(aq), never Cu^2+ or Zn(OH)2(aq)', async () => {
+    const f = writeTmp(dir, 'brass60.yaml', 'elements: {Cu: 0.7, Zn: 0.3}\ntemperature: 60\n');
+    const r = await runCli(['probe', f, '--ph', '8', '--potential', '-0.1']);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toContain('Cu²⁺');
+    expect(r.stderr).toContain('Zn(OH)₂(aq)');
+    expect(r.stderr).not.toMatch(/\^|Zn\(OH\)2/);
+  });
+});
+
+describe('cell --json lists its species in the canonical form', () => {
+  it('the electron and H+ too (e^-, H^+), every formula parsing back', async () => {
+    for (const reaction of ['Fe^2+ + 2e^- <=> Fe(s)', 'Fe+2 + 2e- = Fe(s)', 'Fe²⁺ + 2e⁻ ⇌ Fe(s)', 'H2O(l) <=> H^+ + OH^-']) {
+      const j = await json(['cell', reaction]);
+      const formulas = (j.species as { formula: string }[]).map((s) => s.formula);
+      expect(formulas).not.toContain('e-');
+      expect(formulas).not.toContain('H+');
+      for (const f of formulas) if (f !== 'e^-') expect(formulaAscii(parseFormula(f)), f).toBe(f);
+      if (reaction.startsWith('Fe')) expect(formulas).toContain('Fe^2+');
+    }
+    for (const a of SPELLINGS) {
+      const k = await json(['cell', 'Fe^2+ + 2e^- <=> Fe(s)', '--activity', `${a}=1e-6`]);
+      expect(Object.keys(k.atConditions.activities)).toEqual(['Fe^2+']);
+    }
+  });
+});
+
 describe('predominant echoes a file’s own spelling', () => {
   it('an inline species written Fe+2 stays Fe+2 in probe --json and in the points CSV', async () => {
     const f = file('inline.json', {

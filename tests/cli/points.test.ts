@@ -2,7 +2,7 @@
  * `probe --points`: rows carried, refused row by row, streamed; each answer equal to
  * `probe --ph --potential` at the same point (the same exact evaluation, independently invoked).
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -66,6 +66,46 @@ describe('probe --points', () => {
     expect(row.site).toBe('tank 3, inlet');
     expect(row.note).toBe("'=cmd()");
     expect(r.stdout).toContain('"tank 3, inlet"');
+  });
+
+  it('carries a negative number as the number it is (no quote), and a signed label neutralised', async () => {
+    const f = csv('signed.csv', 'pH;potential;offset_mV;tag\n7;0;-12,5;-spike\n');
+    const row = parse((await runCli(['probe', fe, '--points', f])).stdout, ';')[0];
+    expect(row.offset_mV).toBe('-12,5');
+    expect(row.tag).toBe("'-spike");
+  });
+
+  it('-o into a missing directory: exit 3 naming it, and the directory is not created (as every -o)', async () => {
+    const f = csv('dir.csv', 'pH,potential\n7,0\n');
+    const out = join(dir, 'no-such-dir', 'sub', 'out.csv');
+    const r = await runCli(['probe', fe, '--points', f, '-o', out]);
+    expect(r.code).toBe(3);
+    expect(r.stderr).toMatch(/does not exist \(create it first: ephmap does not create directories\)/);
+    expect(existsSync(join(dir, 'no-such-dir'))).toBe(false);
+    // An input error as well: the input error wins (exit 2), as README promises, still nothing made.
+    const bad = csv('bad-head.csv', 'foo,bar\n1,2\n');
+    const b = await runCli(['probe', fe, '--points', bad, '-o', out]);
+    expect(b.code).toBe(2);
+    expect(b.stderr).toMatch(/header/);
+    expect(existsSync(join(dir, 'no-such-dir'))).toBe(false);
+  });
+
+  it("the above-300 °C warning follows each row's own temperature, in its warnings column", async () => {
+    const f = csv('hot.csv', 'pH,potential,temperature\n7,-0.5,320\n7,-0.5,25\n');
+    const rows = parse((await runCli(['probe', fe, '--points', f])).stdout);
+    expect(rows[0].warnings).toMatch(/320 °C is above 300 °C/);
+    expect(rows[1].warnings).not.toMatch(/above 300 °C/);
+    const hotFile = join(dir, 'fe320.yaml');
+    writeFileSync(hotFile, 'element: Fe\ntemperature: 320\n');
+    const back = parse((await runCli(['probe', hotFile, '--points', csv('cool.csv', 'pH,potential,temperature\n7,-0.5,25\n')])).stdout);
+    expect(back[0].warnings).not.toMatch(/above 300 °C/);
+  });
+
+  it('--json with --points is refused (the answer is CSV), not ignored; nothing written', async () => {
+    const r = await runCli(['probe', fe, '--points', csv('j.csv', 'pH,potential\n7,0\n'), '--json']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--json/);
+    expect(r.stdout).toBe('');
   });
 
   it('marks bad rows in the error column, answers the rest, exit status 4', async () => {

@@ -74,4 +74,35 @@ describe('shares verb', () => {
     expect((await runCli(['shares', bath, '--potential', '0', '--points', '21', '--width', '40', '--height', '30', '-o', out])).code).toBe(2);
     expect(existsSync(out)).toBe(false);
   });
+
+});
+
+describe('shares: the potential on a reference electrode, as every other verb reads it (issue 15, consistency)', () => {
+  // SCE: +0.2412 V vs SHE at 25 °C (common practice; the library's SCE formula at 25 °C).
+  const sceBath = writeTmp(dir, 'bath-sce.yaml', 'element: Ag\ncomposition: {Ag: 0.2, CN: 0.6}\nreference: sce\n');
+  it("--ref sce: the potential is read vs SCE, converted to SHE, and the figure says both", async () => {
+    const out = join(dir, 'ref.json');
+    expect((await runCli(['shares', bath, '--potential', '-0.45', '--ref', 'sce', '--points', '21', '-o', out])).code).toBe(0);
+    const j = JSON.parse(readFileSync(out, 'utf8'));
+    expect(j.at).toBeCloseTo(-0.45 + 0.2412, 3);
+    expect(j.reference).toMatchObject({ label: 'SCE', E: -0.45 });
+    const svg = join(dir, 'ref.svg');
+    expect((await runCli(['shares', bath, '--potential', '-0.45', '--ref', 'sce', '--points', '21', '-o', svg])).code).toBe(0);
+    expect(readFileSync(svg, 'utf8')).toMatch(/E = \u22120\.45 V vs SCE \(= \u22120\.21 V vs SHE\)/);
+  });
+  it("without --ref, the file's reference: applies (as probe)", async () => {
+    const out = join(dir, 'file-ref.json');
+    expect((await runCli(['shares', sceBath, '--potential', '-0.45', '--points', '21', '-o', out])).code).toBe(0);
+    expect(JSON.parse(readFileSync(out, 'utf8')).at).toBeCloseTo(-0.2088, 3);
+  });
+  it('refuses --ref rhe along pH and --ref with --ph (exit 2, nothing written)', async () => {
+    const out = join(dir, 'rhe.svg');
+    const a = await runCli(['shares', bath, '--potential', '0', '--ref', 'rhe', '-o', out]);
+    expect(a.code).toBe(2);
+    expect(a.stderr).toMatch(/--ref.*RHE moves with pH/);
+    const b = await runCli(['shares', bath, '--ph', '10', '--ref', 'sce', '-o', out]);
+    expect(b.code).toBe(2);
+    expect(b.stderr).toMatch(/--ref/);
+    expect(existsSync(out)).toBe(false);
+  });
 });

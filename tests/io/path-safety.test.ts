@@ -79,6 +79,11 @@ describe('neutraliseCsvCell (common practice: spreadsheet formula injection)', (
     }
   });
 
+  it('leaves a plain number alone, signed or with a decimal comma (a number is never run as a formula)', () => {
+    for (const s of ['-12.5', '-12,5', '+3', '-7', '-1e-5', '-.5', '+0,25E+3']) expect(neutraliseCsvCell(s)).toBe(s);
+    for (const s of ['-2+3', '-1e5+cmd', '- 5', '-12,5,0', '-', '+', '-0x1F', '-Infinity']) expect(neutraliseCsvCell(s)).toBe(`'${s}`);
+  });
+
   it('leaves ordinary text alone', () => {
     for (const s of ['Fe+2', 'Fe(OH)3', 'magnetite', '', 'a=b', 'x-y']) expect(neutraliseCsvCell(s)).toBe(s);
   });

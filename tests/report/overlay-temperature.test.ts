@@ -87,7 +87,7 @@ describe('overlay legend of long layer labels', () => {
     expect(input.overlays?.map((o) => o.label)).toEqual(['Fe, 90 °C', 'Fe, 150 °C']);
     expect(input.baseLabel).toBe('Fe, 25 °C (filled)');
     const cap = (input.caption ?? []).join(' ');
-    expect(cap).toMatch(/Layers: Fe, 25 °C, 0\.05 mg\/L .*Cl 20 mg\/L .*C 120 mg\/L as HCO3/);
+    expect(cap).toMatch(/Layers: Fe, 25 °C, 0\.05 mg\/L .*Cl 20 mg\/L .*C 120 mg\/L as HCO₃/); // the formula in Unicode, as text for people
   });
 
   it('keeps short labels as they are', () => {
