@@ -47,18 +47,19 @@ export type PieceResult = PieceDone | { id: number; error: PieceError };
 
 /**
  * Input characters per piece (about 3,000 rows; the output is about ten times as long). 10⁶ rows,
- * main thread + 1 worker: peak RSS ~112 MB with 64 kB pieces, ~123–136 MB with 32 kB (more
- * pieces in flight for the same overlap), ~160 MB with 256 kB.
+ * main thread + 1 worker, before rows were read one record at a time: peak RSS ~112 MB with 64 kB
+ * pieces, ~123–136 MB with 32 kB (more pieces in flight for the same overlap), ~160 MB with 256 kB.
  */
 export const PIECE_CHARS = 1 << 16;
 
 /**
- * Pieces a worker may hold before the main thread answers the next piece itself. With 2 pieces in
- * flight (probe-points.ts), 1 keeps the worker busy while the main thread reads, answers and
- * writes: 10⁶ rows in 2.1–3.6 s, peak RSS 112–115 MB on the 2-core test machine, against
- * 3.1–3.3 s for strict turns; 2–3 queued were no faster and took 120–140 MB.
+ * Pieces a worker may hold before the main thread answers the next piece itself. With 4 pieces in
+ * flight (probe-points.ts), 2 keep the worker busy while the main thread reads, answers and
+ * writes. 10⁶ rows on the idle 2-core test machine (alternating runs, ~2 µs per row): queue 2 with
+ * 4 in flight 1.8–2.4 s at 99–103 MB peak RSS; queue 1 with 2 in flight 1.8–2.4 s at 97–102 MB;
+ * queue 3 with 5 in flight 2.4–2.7 s at ~111 MB; the single-thread run 2.2–2.6 s at 77–80 MB.
  */
-const WORKER_QUEUE = 1;
+const WORKER_QUEUE = 2;
 
 /** Inputs from this size (bytes) use workers, unless EPHMAP_POINTS_WORKERS_FROM says otherwise. */
 const WORKERS_FROM = 8 << 20;

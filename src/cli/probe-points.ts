@@ -40,19 +40,14 @@ export interface PointsOptions {
 }
 
 /**
- * Input chunk and output batch (bytes). Rows are written into one reused byte buffer
- * (report/row-bytes.ts), so only a chunk's records die young; chunks stay small enough that they
- * are not promoted (10⁶ rows: peak RSS ~89 MB and 4.4 s CPU with 64 kB chunks and 256 kB batches;
- * ~135 MB and no faster with 256 kB chunks; ~86 MB and 5.4 s CPU with 8 kB chunks, 64 kB batches).
+ * Input chunk and output batch (bytes). Rows are read one record at a time into one reused row
+ * and written into one reused byte buffer (report/row-bytes.ts), so a record dies young whatever
+ * the chunk size; 64 kB chunks keep each read and write large enough to be cheap.
  */
 const IN_CHUNK = 1 << 16;
 const OUT_BATCH = 1 << 18;
-/**
- * Pieces answered or being answered at once in a run with a worker (points-pool.ts). 10⁶ rows
- * (`node dist/bench/points.js`, load ~1.5): 2 → 3.0–3.2 s, 112 MB peak RSS; 3 → 2.8 s, 120–121 MB;
- * 4 → 2.2–2.9 s, 120–121 MB (over the 120 MB target).
- */
-const IN_FLIGHT = 2;
+/** Pieces answered or being answered at once in a run with a worker (points-pool.ts WORKER_QUEUE). */
+const IN_FLIGHT = 4;
 
 const SEPARATORS: Record<string, string> = { ',': ',', ';': ';', tab: '\t', '\t': '\t' };
 
