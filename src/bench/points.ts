@@ -4,7 +4,7 @@
  * writing are all counted and the peak RSS is the child's own:
  *   points 1e6 s: T           — 10⁶ rows (pH, potential, a time stamp) of the demo iron system at
  *                               one temperature, file in, file out; target ≤ 3 s wall
- *   points peak RSS MB: M     — the same run's peak resident memory (getrusage of the child);
+ *   points peak RSS MB: M     — the same run's peak resident memory (VmHWM of the child, threads included);
  *                               target ≤ 120 MB
  *   points 2000 temperatures s: T — 2,000 rows, each at its own temperature (one diagram each)
  * Run alone with `node dist/bench/points.js`. The rows are our own made-up plant log (a deterministic pseudo-random walk), not measured data.
