@@ -82,14 +82,19 @@ export function pointsAnswerer(spec: SystemSpec, ref: string | CustomReference |
     last = lookup(celsius, I);
     return last;
   };
-  const cached = conditionCache((key: string): Condition => {
+  const build = (T: number, I: number | undefined): Condition => {
     computations++;
-    const [T, I] = key.split('|');
-    const own = Number(T) === spec.temperature && I === undefined;
-    const r = orError(() => compute(specAt(spec, Number(T), I === undefined ? undefined : Number(I)), own ? {} : { checkGrid: ROW_CHECK_GRID }));
+    const own = T === spec.temperature && I === undefined;
+    const r = orError(() => compute(specAt(spec, T, I), own ? {} : { checkGrid: ROW_CHECK_GRID }));
     return 'value' in r ? { c: r.value, warnings: r.value.model.warnings } : { error: r.error, warnings: [] };
+  };
+  // Keyed by the temperature itself when there is no ionic strength (no key text built per row).
+  const byT = conditionCache((T: number): Condition => build(T, undefined));
+  const byTI = conditionCache((key: string): Condition => {
+    const [T, I] = key.split('|');
+    return build(Number(T), Number(I));
   });
-  const lookup = (celsius: number, I: number | undefined): Condition => cached(I === undefined ? `${celsius}` : `${celsius}|${I}`);
+  const lookup = (celsius: number, I: number | undefined): Condition => (I === undefined ? byT(celsius) : byTI(`${celsius}|${I}`));
   // Steps 1–3 up to the diagram the row is answered on, and the row's potential on the SHE scale.
   const NO_WARNINGS: string[] = [];
   const onShe = (q: PointQuery, T: number) =>

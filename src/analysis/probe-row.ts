@@ -60,11 +60,15 @@ interface RowContext {
 
 const hits = newGeometryHits();
 let last: RowContext | undefined;
+/** One context per system, kept while the system is (a log moving between conditions reuses them). */
+const contexts = new WeakMap<Computed, RowContext>();
 
 function rowContext(c: Computed): RowContext {
   if (last?.c === c) return last;
-  last = { c, ctx: contextOf(c), warnings: [] };
-  return last;
+  let r = contexts.get(c);
+  if (r === undefined) contexts.set(c, (r = { c, ctx: contextOf(c), warnings: [] }));
+  last = r;
+  return r;
 }
 
 /** Step 5: probe()'s warnings for predominant species `k`. */

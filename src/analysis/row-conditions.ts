@@ -14,20 +14,27 @@ import { toShe } from './points.js';
 /** Distinct conditions kept at once. */
 export const MAX_CONDITIONS = 64;
 
-/** `build(key)` once per key, the most recently used `max` kept. */
+/**
+ * `build(key)` once per key, the most recently used `max` kept. A hit only stamps its entry (no
+ * map change per row); a miss beyond `max` drops the entry with the oldest stamp.
+ */
 export function conditionCache<K, V>(build: (key: K) => V, max = MAX_CONDITIONS): (key: K) => V {
-  const cache = new Map<K, V>();
+  const cache = new Map<K, { v: V; used: number }>();
+  let clock = 0;
   return (key) => {
-    let v = cache.get(key);
-    if (v !== undefined) {
-      // Most recently used last.
-      cache.delete(key);
-      cache.set(key, v);
-      return v;
+    const hit = cache.get(key);
+    if (hit !== undefined) {
+      hit.used = ++clock;
+      return hit.v;
     }
-    v = build(key);
-    if (cache.size >= max) cache.delete(cache.keys().next().value!);
-    cache.set(key, v);
+    const v = build(key);
+    if (cache.size >= max) {
+      let oldest: K | undefined;
+      let at = Infinity;
+      for (const [k, e] of cache) if (e.used < at) (at = e.used), (oldest = k);
+      cache.delete(oldest!);
+    }
+    cache.set(key, { v, used: ++clock });
     return v;
   };
 }

@@ -91,10 +91,9 @@ export function readPointsHeader(fields: string[], file: string, unit: Potential
 
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 /** A cell echoed as written: a plain decimal without spaces, exponent or sign other than minus. */
-const PLAIN = /^-?\d{1,9}(?:\.\d{1,8})?$/;
 
 /**
- * A plain decimal cell (PLAIN: an optional "-", 1–9 digits, optionally "." and 1–8 digits) as
+ * A plain decimal cell (/^-?\d{1,9}(?:\.\d{1,8})?$/: an optional "-", 1–9 digits, optionally "." and 1–8 digits) as
  * Number(cell) reads it, or NaN for any other text — without the regular expression:
  *  1. the digits gathered into an integer m (exact: at most 15 digits, below 2^53) and the count
  *     k of digits after the point;
@@ -149,7 +148,8 @@ export function rowErrorText(e: RowError): string {
 /** A number cell, or what was wrong with it. */
 function readNumber(cell: string | undefined, decimalComma: boolean): number | { expected: string; got: string } {
   if (cell === undefined) return { expected: 'a number', got: 'nothing (the row is short)' };
-  if (PLAIN.test(cell)) return Number(cell);
+  const plain = plainDecimal(cell);
+  if (!Number.isNaN(plain)) return plain;
   let s = cell.trim();
   if (s === '') return { expected: 'a number', got: 'a blank cell' };
   if (decimalComma && /^[^,]*,[^,]*$/.test(s) && !s.includes('.')) s = s.replace(',', '.');
@@ -301,9 +301,21 @@ function text(s: string, sep: string): string {
 let lastCelsius = NaN;
 let lastCelsiusSep = '';
 let lastCelsiusText = '';
+/** Temperature cells met before (with the separator after them), emptied at 4096. */
+const celsiusTexts = new Map<number, string>();
 /** The temperature cell and the separator after it: one value for long runs of rows, so its text is kept. */
 function celsiusText(T: number, sep: string): string {
-  if (T !== lastCelsius || sep !== lastCelsiusSep) (lastCelsius = T), (lastCelsiusSep = sep), (lastCelsiusText = num8(T) + sep);
+  if (T !== lastCelsius || sep !== lastCelsiusSep) {
+    if (sep !== lastCelsiusSep) celsiusTexts.clear();
+    lastCelsius = T;
+    lastCelsiusSep = sep;
+    let t = celsiusTexts.get(T);
+    if (t === undefined) {
+      if (celsiusTexts.size >= 4096) celsiusTexts.clear();
+      celsiusTexts.set(T, (t = num8(T) + sep));
+    }
+    lastCelsiusText = t;
+  }
   return lastCelsiusText;
 }
 
@@ -428,13 +440,21 @@ function adviceTail(k: number, to: string, verdict: string, sep: string): string
 let lastWarnings: readonly string[] | undefined;
 let lastWarningsSep = '';
 let lastWarningsText = '';
-/** The warnings cell: the probe's (one array for long runs of rows, so its text is kept) and `more`, each once. */
+/** Texts of warning arrays met before (per separator; an array is one system's, kept while it is). */
+let warningTexts = new WeakMap<readonly string[], string>();
+/**
+ * The warnings cell: the probe's (one array per system and species, so its text is kept — for the
+ * last array at hand, and for any met before) and `more`, each once.
+ */
 function warningsText(w: readonly string[], more: readonly string[], sep: string): string {
   if (more.length) return text([...w, ...more.filter((m) => !w.includes(m))].join(' | '), sep);
   if (w !== lastWarnings || sep !== lastWarningsSep) {
+    if (sep !== lastWarningsSep) warningTexts = new WeakMap();
     lastWarnings = w;
     lastWarningsSep = sep;
-    lastWarningsText = w.length ? text(w.join(' | '), sep) : '';
+    let t = warningTexts.get(w);
+    if (t === undefined) warningTexts.set(w, (t = w.length ? text(w.join(' | '), sep) : ''));
+    lastWarningsText = t;
   }
   return lastWarningsText;
 }
