@@ -100,20 +100,9 @@ export class CsvCutter {
         if (nl !== -1 && nl < i) nl = t.indexOf('\n', i);
         if (q !== -1 && q < i) q = t.indexOf('"', i);
         if (cr !== -1 && cr < i) cr = t.indexOf('\r', i);
-        if (nl >= 0 && (q < 0 || nl < q) && (cr < 0 || nl < cr)) {
-          // A record end at nl with nothing before it that the state machine would act on.
-          i = nl + 1;
-          line++;
-          state = START;
-          this.cut = i;
-          this.cutLine = line;
-          if (i - pieceStart >= this.target) {
-            out.push({ text: t.slice(pieceStart, i), line: this.pieceLine });
-            pieceStart = i;
-            this.pieceLine = line;
-          }
-          continue;
-        }
+        // Nothing before the next LF that the state machine would act on: straight to it (the
+        // record end below takes it from there).
+        if (nl >= 0 && (q < 0 || nl < q) && (cr < 0 || nl < cr)) i = nl;
       }
       const c = t.charCodeAt(i);
       if (state === QUOTED) {
