@@ -9,7 +9,6 @@
 import type { AlloyOperating } from './alloy-operating.js';
 import { envelopeText, REPORT_CAUTIONS, REPORT_CLOSING } from './report-data.js';
 import type { DiagramModel } from '../model.js';
-import { drawSceneOnPdf } from '../render/pdf.js';
 import { PDF_FACE, registerPdfFonts } from '../render/fonts.js';
 import { collectPdf } from '../render/pdf-buffer.js';
 import type { Scene } from '../render/scene-types.js';
@@ -40,15 +39,7 @@ export async function alloyReportPdf(model: DiagramModel, scene: Scene, figureMm
   w.table(['element', 'mole fraction', 'threshold activity of its dissolved species'], Object.keys(a.composition).map((e) => [e, fmtNum(a.composition[e]), fmtNum(a.activities[e])]), [0.2, 0.3, 0.5], BODY - 0.5);
   if (model.reference) w.para(referenceNote(model));
 
-  // The figure, its heading kept with it.
-  const mmToPt = (mm: number) => (mm / 25.4) * 72;
-  const fw = Math.min(w.width, mmToPt(figureMm.width));
-  const fh = fw * (figureMm.height / figureMm.width);
-  w.room(fh + 50);
-  w.heading('Diagram');
-  const y = doc.y;
-  drawSceneOnPdf(doc, scene, { x: w.left + (w.width - fw) / 2, y, width: fw });
-  doc.y = y + fh + 6;
+  w.figure('Diagram', scene, figureMm);
   for (const l of caption) w.para(l, { size: SMALL });
 
   w.heading('Assemblages');

@@ -43,6 +43,23 @@ export class Writer {
     }
   }
 
+  /**
+   * The figure under its heading (kept on one page with it), centred, at most `figureMm` wide: a
+   * scene drawn as vectors, or PNG bytes placed as an image.
+   */
+  figure(heading: string, figure: Scene | Uint8Array, figureMm: { width: number; height: number }): void {
+    const doc = this.doc;
+    const mmToPt = (mm: number) => (mm / 25.4) * 72;
+    const fw = Math.min(this.width, mmToPt(figureMm.width));
+    const fh = fw * (figureMm.height / figureMm.width);
+    this.room(fh + 50);
+    this.heading(heading);
+    const y = doc.y;
+    if (isScene(figure)) drawSceneOnPdf(doc, figure, { x: this.left + (this.width - fw) / 2, y, width: fw });
+    else doc.image(Buffer.from(figure), this.left + (this.width - fw) / 2, y, { width: fw, height: fh });
+    doc.y = y + fh + 6;
+  }
+
   heading(s: string, size = 13): void {
     this.room(size * 4);
     this.doc.moveDown(0.6);
@@ -138,16 +155,7 @@ export async function reportPdf(data: ReportData, figure: Scene | Uint8Array, fi
     ]), [0.24, 0.14, 0.22, 0.18, 0.22]);
   }
 
-  const mmToPt = (mm: number) => (mm / 25.4) * 72;
-  const fw = Math.min(w.width, mmToPt(figureMm.width));
-  const fh = fw * (figureMm.height / figureMm.width);
-  // The heading stays with the figure.
-  w.room(fh + 50);
-  w.heading('Diagram');
-  const y = doc.y;
-  if (isScene(figure)) drawSceneOnPdf(doc, figure, { x: w.left + (w.width - fw) / 2, y, width: fw });
-  else doc.image(Buffer.from(figure), w.left + (w.width - fw) / 2, y, { width: fw, height: fh });
-  doc.y = y + fh + 6;
+  w.figure('Diagram', figure, figureMm);
   for (const l of caption) w.para(l, { size: SMALL });
 
   w.heading('Reactions and lines');
