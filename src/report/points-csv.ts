@@ -477,19 +477,16 @@ function mapsFor(sep: string): { cell: Map<string, string>; withSep: Map<string,
   return fixedMaps;
 }
 function fixed(s: string, sep: string): string {
-  const bySep = mapsFor(sep).cell;
-  let v = bySep.get(s);
-  if (v === undefined) {
-    v = csvField(s, sep);
-    if (bySep.size < 10_000) bySep.set(s, v);
-  }
-  return v;
+  return kept(mapsFor(sep).cell, s, sep, '');
 }
 function fixedSep(s: string, sep: string): string {
-  const bySep = mapsFor(sep).withSep;
+  return kept(mapsFor(sep).withSep, s, sep, sep);
+}
+/** csvField(s, sep) + after, from `bySep` or worked out and kept there (up to 10,000 cells). */
+function kept(bySep: Map<string, string>, s: string, sep: string, after: string): string {
   let v = bySep.get(s);
   if (v === undefined) {
-    v = csvField(s, sep) + sep;
+    v = csvField(s, sep) + after;
     if (bySep.size < 10_000) bySep.set(s, v);
   }
   return v;
